@@ -30,13 +30,13 @@ export interface BerendsGieleOptions {
 
 function checkGluons<T>(k: Kin<T>, helicities: readonly number[]): void {
   const n = helicities.length
-  if (n < 3) throw new PhysicsError('target', 'target: Berends–Giele needs at least three legs')
+  if (n < 3) throw new PhysicsError('target', 'Berends–Giele needs at least three legs')
   if (k.lambda.length !== n || k.lambdaTilde.length !== n) {
-    throw new PhysicsError('target', 'target: the kinematics and the helicities have different lengths')
+    throw new PhysicsError('target', 'the kinematics and the helicities have different lengths')
   }
   for (let a = 0; a < n; a++) {
     const h = helicities[a]
-    if (h !== 1 && h !== -1) throw new PhysicsError(`helicities[${a}]`, `helicities[${a}]: a gluon has helicity ±1`)
+    if (h !== 1 && h !== -1) throw new PhysicsError(`helicities[${a}]`, `a gluon has helicity ±1`)
   }
 }
 
@@ -99,7 +99,7 @@ function polarizations<T>(F: Field<T>, k: Kin<T>, helicities: readonly number[],
       done = true
       break
     }
-    if (!done) throw new PhysicsError('target', `target: no reference spinor found for leg ${a + 1}`)
+    if (!done) throw new PhysicsError('target', `no reference spinor found for leg ${a + 1}`)
   }
   return eps
 }

@@ -35,7 +35,7 @@ export function classifyGluon(helicities: readonly number[]): MhvClass {
       else if (plus === 1) p1 = a
       plus++
     } else {
-      throw new PhysicsError(`helicities[${a}]`, `helicities[${a}]: a gluon has helicity ±1`)
+      throw new PhysicsError(`helicities[${a}]`, `a gluon has helicity ±1`)
     }
   }
   if (minus === 2) return { kind: 'mhv', i: m0, j: m1 }
@@ -47,14 +47,14 @@ export function classifyGluon(helicities: readonly number[]): MhvClass {
 /** Parke–Taylor for MHV or anti-MHV helicities; zero for the identically vanishing classes. */
 export function parkeTaylor<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T {
   const n = helicities.length
-  if (n < 3) throw new PhysicsError('target', 'target: Parke–Taylor needs at least three legs')
+  if (n < 3) throw new PhysicsError('target', 'Parke–Taylor needs at least three legs')
   if (k.lambda.length !== n || k.lambdaTilde.length !== n) {
-    throw new PhysicsError('target', 'target: the kinematics and the helicities have different lengths')
+    throw new PhysicsError('target', 'the kinematics and the helicities have different lengths')
   }
   const c = classifyGluon(helicities)
   if (c.kind === 'vanishing') return F.zero
   if (c.kind === 'other') {
-    throw new PhysicsError('target', 'target: Parke–Taylor applies only to MHV helicities and their parity conjugate')
+    throw new PhysicsError('target', 'Parke–Taylor applies only to MHV helicities and their parity conjugate')
   }
   return c.kind === 'mhv' ? parkeTaylorMhv(F, k, c.i, c.j) : parkeTaylorAntiMhv(F, k, c.i, c.j)
 }
