@@ -1,8 +1,22 @@
-// A physically or semantically invalid request (API.md: 422). The message starts with the field path.
+// Physics-invalid input (API.md: 422). The message starts with the field path so the route can
+// pass it through unchanged; `field` carries the same path for `data.field`.
 export class PhysicsError extends Error {
-  status = 422
-  constructor(public field: string, message: string) {
-    super(message.startsWith(field) ? message : `${field}: ${message}`)
+  readonly status = 422
+  constructor(
+    public readonly field: string,
+    reason: string,
+  ) {
+    // A reason that already starts with the path is kept as it is (no doubled prefix).
+    super(!field || reason.startsWith(field) ? reason : `${field}: ${reason}`)
     this.name = 'PhysicsError'
   }
+}
+
+/** Short scientific notation for sizes quoted in messages (e.g. 3.2e-3). */
+export function fmtSize(x: number): string {
+  if (x === 0) return '0'
+  const a = Math.abs(x)
+  if (a >= 1e-3 && a < 1e4) return String(Number(x.toPrecision(3)))
+  const [m, e] = x.toExponential(1).split('e')
+  return `${m}e${Number(e)}`
 }

@@ -1,0 +1,123 @@
+// The large-z behaviour of A(z) along an [i,j⟩ shift. Double precision cannot measure it
+// (CONVENTIONS.md "Numerical advice"), so it is measured exactly at a seeded rational point of the
+// same process, with A(z) at the shifted (still on-shell, momentum-conserving) point computed by
+// BCFW under another shift that is valid there.
+import { Fraction, rationalField as Q, SingularError } from './field'
+import type { Kin, Spinor } from './spinors'
+import { rationalPoint } from './kinematics'
+import { bcfw } from './bcfw'
+import { defaultShift, isValidShift, processOf, tableExponent, vanishes, type Process, type TheoryName } from './theories'
+
+/** The probe points z = 10^4 … 10^7: large enough that O(1/z) corrections shift the slope by < 1e-3. */
+export const PROBE_Z = [10_000n, 100_000n, 1_000_000n, 10_000_000n]
+
+export interface FalloffResult {
+  exponent: number
+  valid: boolean
+  /** Largest distance of a two-point slope from the fitted slope. */
+  spread: number
+  /** The unrounded log-log slope. */
+  slope: number
+  /** False when the amplitude vanishes identically and the exponent is the table's. */
+  measured: boolean
+}
+
+/** ln|x| of an exact rational without overflowing a double. */
+export function lnAbs(x: Fraction): number {
+  const ln = (b: bigint) => {
+    const s = b.toString()
+    const head = Number(s.slice(0, 17))
+    return Math.log(head) + (s.length - Math.min(17, s.length)) * Math.LN10
+  }
+  return ln(x.n) - ln(x.d)
+}
+
+/** The [i,j⟩-shifted point (0-based): λ̃_i → λ̃_i + z λ̃_j, λ_j → λ_j − z λ_i. */
+export function shiftedKin(k: Kin<Fraction>, i: number, j: number, z: Fraction): Kin<Fraction> {
+  const lt = k.lambdaTilde.slice()
+  const l = k.lambda.slice()
+  lt[i] = [lt[i]![0].add(z.mul(lt[j]![0])), lt[i]![1].add(z.mul(lt[j]![1]))] as Spinor<Fraction>
+  l[j] = [l[j]![0].sub(z.mul(l[i]![0])), l[j]![1].sub(z.mul(l[i]![1]))] as Spinor<Fraction>
+  return { lambda: l, lambdaTilde: lt }
+}
+
+/** A valid shift other than [i,j⟩: the default rule's if it differs, else the first valid pair. */
+export function alternativeShift(p: Process, h: readonly number[], i: number, j: number): [number, number] {
+  const d = defaultShift(p, h)
+  if (!(d[0] === i && d[1] === j) && isValidShift(p, h, d[0], d[1])) return d
+  const n = h.length
+  for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) {
+    if (a === b || (a === i && b === j)) continue
+    if (isValidShift(p, h, a, b)) return [a, b]
+  }
+  return d
+}
+
+/** Least-squares slope of ln|A| against ln z, and the spread of the two-point slopes. */
+function fit(xs: number[], ys: number[]): { slope: number; spread: number } {
+  const m = xs.length
+  const mx = xs.reduce((a, b) => a + b, 0) / m
+  const my = ys.reduce((a, b) => a + b, 0) / m
+  let sxy = 0
+  let sxx = 0
+  for (let t = 0; t < m; t++) {
+    sxy += (xs[t]! - mx) * (ys[t]! - my)
+    sxx += (xs[t]! - mx) ** 2
+  }
+  const slope = sxy / sxx
+  let spread = 0
+  for (let t = 1; t < m; t++) spread = Math.max(spread, Math.abs((ys[t]! - ys[t - 1]!) / (xs[t]! - xs[t - 1]!) - slope))
+  return { slope, spread }
+}
+
+/**
+ * Measures the exponent k of |A(z)| ~ |z|^k under the [i,j⟩ shift (0-based) exactly, at a seeded
+ * rational point of the process (the exponent is generic in the kinematics).
+ */
+export function probeFalloff(p: Process, h: number[], i: number, j: number, seed: number | string = 'falloff'): FalloffResult {
+  const n = h.length
+  if (vanishes(p, h)) {
+    const e = tableExponent(p, h, i, j) ?? -2
+    return { exponent: e, valid: e < 0, spread: 0, slope: e, measured: false }
+  }
+  const alt = alternativeShift(p, h, i, j)
+  for (let attempt = 0; attempt < 20; attempt++) {
+    const k = rationalPoint(n, `${String(seed)}:${p.theory}:${p.s}:${n}:${attempt}`)
+    try {
+      const xs: number[] = []
+      const ys: number[] = []
+      for (const z of PROBE_Z) {
+        const v = bcfw(Q, p, shiftedKin(k, i, j, new Fraction(z)), h, alt).value
+        if (Q.isZero(v)) throw new SingularError('A(z) = 0 at a probe point')
+        xs.push(Math.log(Number(z)))
+        ys.push(lnAbs(v))
+      }
+      const { slope, spread } = fit(xs, ys)
+      const exponent = Math.round(slope)
+      return { exponent, valid: exponent < 0, spread, slope, measured: true }
+    } catch (e) {
+      if (!(e instanceof SingularError)) throw e
+    }
+  }
+  throw new SingularError('no regular rational point found for the falloff probe')
+}
+
+export interface FalloffRow {
+  /** 1-based. */
+  shift: [number, number]
+  /** CONVENTIONS.md table (null where it has none: spin s ≠ 2). */
+  exponent: number | null
+  valid: boolean
+}
+
+/** Exponent and validity of every [i,j⟩ shift by CONVENTIONS.md's table, for the editor. */
+export function falloffTable(theory: TheoryName, helicities: number[], spin?: number): FalloffRow[] {
+  const p = processOf(theory, spin)
+  const n = helicities.length
+  const rows: FalloffRow[] = []
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+    if (i === j) continue
+    rows.push({ shift: [i + 1, j + 1], exponent: tableExponent(p, helicities, i, j), valid: isValidShift(p, helicities, i, j) })
+  }
+  return rows
+}

@@ -1,0 +1,234 @@
+// The one entry to the engine: evaluate(request) → the API.md response. The route, the worker,
+// the batch runner and the tests all call this.
+import { Complex, Fraction, SingularError, complexField, rationalField, type Field } from './field'
+import type { Kin } from './spinors'
+import { det, momentumSum } from './spinors'
+import { PhysicsError } from './errors'
+import {
+  kinToWire,
+  physicalPoint,
+  pointFromExactSpinors,
+  pointFromMomenta,
+  pointFromSpinors,
+  randomPoint,
+  rationalPoint,
+  toFloatKin,
+  type BuiltPoint,
+} from './kinematics'
+import { THEORIES, checkShift, defaultShift, isValidShift, validateProcess, vanishes, type Process } from './theories'
+import { bcfw, type SubAmplitude, type Term, type Vertex } from './bcfw'
+import { probeFalloff, type FalloffResult } from './falloff'
+import { decideVerdict, deviationOf } from './verdict'
+import { applicableTargets, autoTarget, evaluateTarget, type TargetName } from './targets/index'
+import {
+  EvaluateRequestSchema,
+  type EvaluateRequestInput,
+  type EvaluateResponse,
+  type Kinematics,
+  type WireComplex,
+  type WireSubAmplitude,
+  type WireTerm,
+  type WireVertex,
+} from '../schemas/evaluate'
+
+export const ENGINE_VERSION = '0.1.0'
+
+/** Float poles |s_S| below this fraction of max |s_ij| count as vanishing (a singular point). */
+export const FLOAT_POLE_THRESHOLD = 1e-12
+
+export type AnyKin = { F: Field<Complex>; kin: Kin<Complex> } | { F: Field<Fraction>; kin: Kin<Fraction> }
+
+const EXACT_KINDS = new Set(['exact-spinors', 'rational'])
+
+/**
+ * Builds the point of a request (lengths checked against n, exact arithmetic only from exact
+ * input). Exported for the point sets and the editor.
+ */
+export function buildPoint(kin: Kinematics, n: number, arithmetic: 'float' | 'exact'): { warnings: string[] } & AnyKin {
+  if (kin.kind === 'spinors' || kin.kind === 'exact-spinors') {
+    if (kin.lambda.length !== n) throw new PhysicsError('kinematics.lambda', `${kin.lambda.length} angle spinors given for ${n} helicities`)
+    if (kin.lambdaTilde.length !== n) throw new PhysicsError('kinematics.lambdaTilde', `${kin.lambdaTilde.length} square spinors given for ${n} helicities`)
+  }
+  if (kin.kind === 'momenta' && kin.momenta.length !== n) throw new PhysicsError('kinematics.momenta', `${kin.momenta.length} momenta given for ${n} helicities`)
+  if (arithmetic === 'exact' && !EXACT_KINDS.has(kin.kind))
+    throw new PhysicsError('arithmetic', `exact arithmetic needs exact input (kinematics kind "exact-spinors" or "rational"), got "${kin.kind}"`)
+  let exact: BuiltPoint<Fraction> | null = null
+  if (kin.kind === 'exact-spinors') exact = pointFromExactSpinors(kin.lambda, kin.lambdaTilde)
+  if (kin.kind === 'rational') exact = { kin: rationalPoint(n, kin.seed), warnings: [] }
+  if (exact) {
+    if (arithmetic === 'exact') return { F: rationalField, kin: exact.kin, warnings: exact.warnings }
+    return { F: complexField, kin: toFloatKin(exact.kin), warnings: exact.warnings }
+  }
+  let pt: BuiltPoint<Complex> | undefined
+  switch (kin.kind) {
+    case 'spinors': {
+      const c = (s: [[number, number], [number, number]]): [Complex, Complex] => [new Complex(s[0][0], s[0][1]), new Complex(s[1][0], s[1][1])]
+      pt = pointFromSpinors(kin.lambda.map(c), kin.lambdaTilde.map(c))
+      break
+    }
+    case 'momenta':
+      pt = pointFromMomenta(kin.momenta)
+      break
+    case 'random':
+      pt = { kin: randomPoint(n, kin.seed), warnings: [] }
+      break
+    case 'physical':
+      pt = { kin: physicalPoint(n, kin.seed, kin.energy), warnings: [] }
+      break
+  }
+  if (!pt) throw new PhysicsError('kinematics.kind', 'unknown kinematics kind')
+  return { F: complexField, kin: pt.kin, warnings: pt.warnings }
+}
+
+/** The physical channels of the theory (0-based sets; one of each complementary pair). */
+function poleSets(p: Process, n: number): number[][] {
+  const out: number[][] = []
+  if (p.colourOrdered) {
+    for (let m = 2; 2 * m <= n; m++) for (let a = 0; a < (2 * m === n ? n / 2 : n); a++) out.push(Array.from({ length: m }, (_, t) => (a + t) % n))
+    return out
+  }
+  for (let mask = 1; mask < 1 << n; mask++) {
+    const S = Array.from({ length: n }, (_, t) => t).filter((t) => mask & (1 << t))
+    if (S.length >= 2 && 2 * S.length <= n) out.push(S)
+  }
+  return out
+}
+
+/** A vanishing physical pole of the point, named, or null. */
+function vanishingPole<T>(F: Field<T>, p: Process, k: Kin<T>): string | null {
+  const n = k.lambda.length
+  const sets = poleSets(p, n)
+  const vals = sets.map((S) => det(F, momentumSum(F, k, S)))
+  const scale = Math.max(...vals.filter((_, t) => sets[t]!.length === 2).map((v) => F.abs(v)))
+  for (let t = 0; t < sets.length; t++) {
+    const v = vals[t]!
+    const zero = F.kind === 'exact' ? F.isZero(v) : F.abs(v) <= FLOAT_POLE_THRESHOLD * scale
+    if (zero) return `the pole s(${sets[t]!.map((x) => x + 1).join(',')})`
+  }
+  return null
+}
+
+function termToWire<T>(F: Field<T>, t: Term<T>): WireTerm {
+  return {
+    left: t.left,
+    ...(t.leftLegs ? { leftLegs: t.leftLegs } : {}),
+    helicity: t.helicity,
+    z: F.toWire(t.z),
+    pole: F.toWire(t.pole),
+    value: F.toWire(t.value),
+    children: t.children ? { left: nodeToWire(F, t.children.left), right: nodeToWire(F, t.children.right) } : null,
+  }
+}
+
+function nodeToWire<T>(F: Field<T>, x: SubAmplitude<T> | Vertex<T>): WireSubAmplitude | WireVertex {
+  if ('kind' in x) return { kind: x.kind, legs: x.legs, helicities: x.helicities, value: F.toWire(x.value) }
+  return { value: F.toWire(x.value), shift: x.shift, legs: x.legs, helicities: x.helicities, terms: x.terms.map((t) => termToWire(F, t)) }
+}
+
+type ResolvedTarget = { kind: 'none' } | { kind: 'named'; name: TargetName }
+
+function resolveTarget(target: EvaluateRequestInput['target'], theory: Process['theory'], helicities: number[], spin?: number): ResolvedTarget {
+  const t = target ?? 'auto'
+  if (typeof t === 'object') throw new PhysicsError('target.formula', 'user formulas are not available yet')
+  if (t === 'none') return { kind: 'none' }
+  if (t === 'auto') {
+    const a = autoTarget(theory, helicities, spin)
+    return a ? { kind: 'named', name: a } : { kind: 'none' }
+  }
+  if (!applicableTargets(theory, helicities, spin).includes(t)) {
+    throw new PhysicsError('target', `${t} does not apply to ${theory === 'spin' ? `spin ${spin}` : theory} with helicities [${helicities.join(', ')}]`)
+  }
+  return { kind: 'named', name: t }
+}
+
+/** Evaluates one amplitude by on-shell recursion and compares it with its target (API.md "Evaluation"). */
+export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
+  const t0 = performance.now()
+  const req = EvaluateRequestSchema.parse(input)
+  const { theory, helicities, arithmetic } = req
+  const n = helicities.length
+  const { process: p, warnings } = validateProcess(theory, helicities, arithmetic, req.spin)
+  const shift = req.shift ? checkShift(req.shift as [number, number], n) : defaultShift(p, helicities)
+  const target = resolveTarget(req.target, theory, helicities, req.spin)
+  const point = buildPoint(req.kinematics, n, arithmetic)
+  warnings.push(...point.warnings)
+  const body = point.F.kind === 'exact' ? run(point.F as Field<Fraction>, point.kin as Kin<Fraction>) : run(point.F as Field<Complex>, point.kin as Kin<Complex>)
+  return { ...body, ms: Math.round((performance.now() - t0) * 1000) / 1000 }
+
+  function run<T>(F: Field<T>, k: Kin<T>): Omit<EvaluateResponse, 'ms'> {
+    const [i, j] = shift
+    const validByTable = isValidShift(p, helicities, i, j)
+    const vanishing = vanishes(p, helicities)
+    let singular: string | null = vanishing ? null : vanishingPole(F, p, k)
+    let value: T | null = null
+    let terms: Term<T>[] = []
+    if (!singular) {
+      try {
+        const r = bcfw(F, p, k, helicities, shift, { tree: req.tree })
+        value = r.value
+        terms = r.terms
+      } catch (e) {
+        if (!(e instanceof SingularError)) throw e
+        singular = e.what
+      }
+    }
+    let targetValue: T | null = null
+    if (target.kind === 'named' && !singular) {
+      try {
+        targetValue = evaluateTarget(target.name, F, k, helicities)
+      } catch (e) {
+        if (!(e instanceof SingularError)) throw e
+        singular = `${e.what} (in the target ${target.name})`
+      }
+    }
+    let falloff: FalloffResult | null = null
+    if (req.probeFalloff) falloff = probeFalloff(p, helicities, i, j)
+    if (singular) {
+      warnings.push(`singular point: ${singular.endsWith('vanishes') ? singular : `${singular} vanishes`} at this point`)
+      value = null
+    }
+    const deviation = value !== null && targetValue !== null ? deviationOf(F, value, targetValue, terms.map((t) => t.value)) : null
+    const verdict = decideVerdict({
+      singular: !!singular,
+      targetNone: target.kind === 'none',
+      shiftValidByTable: validByTable,
+      probedExponent: falloff ? falloff.exponent : null,
+      vanishing,
+      arithmetic,
+      n,
+      deviation: deviation ?? Infinity,
+      exactEqual: value !== null && targetValue !== null && F.equals(value, targetValue),
+    })
+    if (!validByTable && !vanishing) warnings.push(`shift: [${i + 1}, ${j + 1}⟩ is not a valid shift for these helicities (CONVENTIONS.md table); a boundary term is expected`)
+    return {
+      n,
+      theory,
+      ...(theory === 'spin' ? { spin: req.spin } : {}),
+      shift: [i + 1, j + 1],
+      arithmetic,
+      value: value === null ? null : (F.toWire(value) as WireComplex),
+      terms: singular ? [] : terms.map((t) => termToWire(F, t)),
+      target: target.kind === 'none' ? null : { name: target.name, value: targetValue === null ? null : (F.toWire(targetValue) as WireComplex) },
+      deviation,
+      verdict,
+      falloff: falloff ? { exponent: falloff.exponent, valid: falloff.valid, spread: falloff.spread, measured: falloff.measured } : null,
+      warnings,
+      kinematics: kinToWire(F, k),
+      engine: { version: ENGINE_VERSION },
+    }
+  }
+}
+
+export { PhysicsError } from './errors'
+export { SingularError, complexField, rationalField, parseRational } from './field'
+export type { Field, WireNumber, Arithmetic } from './field'
+export * from './kinematics'
+export { THEORIES, LIMITS, validateProcess, processOf, isValidShift, defaultShift, tableExponent, vanishes } from './theories'
+export type { TheoryName, Process } from './theories'
+export { bcfw, bcfwValue, channels } from './bcfw'
+export { threePoint, threePointFormula, boseSymmetry } from './three-point'
+export { probeFalloff, falloffTable } from './falloff'
+export type { FalloffRow, FalloffResult } from './falloff'
+export { crossShift } from './cross-shift'
+export type { CrossShiftResult, CrossShiftRow } from './cross-shift'
+export { floatTolerance, deviationOf, decideVerdict } from './verdict'

@@ -1,0 +1,78 @@
+// Three-point amplitudes by little-group scaling (CONVENTIONS.md "Amplitudes"):
+//   angle  (h1+h2+h3 < 0): ⟨12⟩^(h3−h1−h2) ⟨23⟩^(h1−h2−h3) ⟨31⟩^(h2−h3−h1)
+//   square (h1+h2+h3 > 0): σ [12]^(h1+h2−h3) [23]^(h2+h3−h1) [31]^(h3+h1−h2)
+// σ = −1 for gluons, (−1)^s for spin s (gravitons: σ² = +1), the cubic scalar A3 = 1.
+import type { Field } from './field'
+import { PhysicsError } from './errors'
+import { angleOf, squareOf, type Kin } from './spinors'
+import type { Process } from './theories'
+
+export type VertexKind = 'angle' | 'square'
+
+/** The sign σ of the square vertex: (−1)^s (gluons −1, gravitons +1). */
+export function sigmaOf(p: Process): number {
+  return p.s % 2 === 0 ? 1 : -1
+}
+
+function exponent(x: number): number {
+  if (!Number.isInteger(x)) throw new PhysicsError('helicities', `the three-point exponent ${x} is not an integer`)
+  return x
+}
+
+/**
+ * The little-group formula for any helicities (integer or half-integer, as long as the bracket
+ * exponents are integers), of the given kind, times a coupling.
+ */
+export function threePointFormula<T>(F: Field<T>, k: Kin<T>, h: readonly number[], kind: VertexKind, sigma: number, coupling?: T): T {
+  const [h1, h2, h3] = h as [number, number, number]
+  const [a, b, c] = [0, 1, 2]
+  let v: T
+  if (kind === 'angle') {
+    const L = k.lambda
+    v = F.mul(
+      F.mul(F.pow(angleOf(F, L[a]!, L[b]!), exponent(h3 - h1 - h2)), F.pow(angleOf(F, L[b]!, L[c]!), exponent(h1 - h2 - h3))),
+      F.pow(angleOf(F, L[c]!, L[a]!), exponent(h2 - h3 - h1)),
+    )
+  } else {
+    const L = k.lambdaTilde
+    v = F.mul(
+      F.mul(F.pow(squareOf(F, L[a]!, L[b]!), exponent(h1 + h2 - h3)), F.pow(squareOf(F, L[b]!, L[c]!), exponent(h2 + h3 - h1))),
+      F.pow(squareOf(F, L[c]!, L[a]!), exponent(h3 + h1 - h2)),
+    )
+    if (sigma < 0) v = F.neg(v)
+  }
+  return coupling === undefined ? v : F.mul(coupling, v)
+}
+
+/**
+ * Whether a block of this kind can be non-zero, from the helicities alone: the angle vertex needs
+ * Σh < 0, the square vertex Σh > 0 (Σh = 0 only for scalars, which couple on both kinds); pure
+ * gluon, graviton and spin-s theories have no (−−−) or (+++) vertex.
+ */
+export function threePointSurvives(p: Process, h: readonly number[], kind: VertexKind): boolean {
+  const sum = h[0]! + h[1]! + h[2]!
+  if (p.s === 0) return sum === 0
+  if ((h[0]! > 0 && h[1]! > 0 && h[2]! > 0) || (h[0]! < 0 && h[1]! < 0 && h[2]! < 0)) return false
+  return kind === 'angle' ? sum < 0 : sum > 0
+}
+
+/**
+ * A3 of the theory at a BCFW pole. The kind is fixed by the structure of the shift (the side
+ * holding î is an angle vertex, the side holding ĵ a square vertex), never by a float threshold;
+ * the other kind vanishes there identically.
+ */
+export function threePoint<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number[], kind: VertexKind, coupling?: T): T {
+  if (!threePointSurvives(p, h, kind)) return F.zero
+  if (p.s === 0) return coupling ?? F.one
+  return threePointFormula(F, k, h, kind, sigmaOf(p), coupling)
+}
+
+/**
+ * Bose symmetry of the block: (A3 of gluons)^s picks up (−1)^s under exchange of two identical
+ * legs, so a single species of odd spin is antisymmetric (Benincasa & Cachazo, arXiv:0705.4305).
+ * Colour-ordered gluons are exempt: their antisymmetry is carried by the structure constants.
+ */
+export function boseSymmetry(p: Process): 'symmetric' | 'antisymmetric' | 'colour-ordered' {
+  if (p.colourOrdered) return 'colour-ordered'
+  return p.s % 2 === 1 ? 'antisymmetric' : 'symmetric'
+}

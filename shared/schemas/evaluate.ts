@@ -1,0 +1,102 @@
+// The request body of POST /api/evaluate, exactly as API.md "Evaluation" fixes it, and the
+// response type. zod 4's z.number() refuses NaN and ±Infinity, so a non-finite number fails here
+// (400) and never reaches the engine.
+import { z } from 'zod'
+
+const num = z.number()
+const complex = z.tuple([num, num])
+const complexSpinor = z.tuple([complex, complex])
+/** An exact input: an integer or "p/q" string, reduced or not. */
+export const RationalString = z.string().regex(/^\s*[+-]?\d+(\s*\/\s*[+-]?\d+)?\s*$/, 'expected an integer or "p/q" string')
+const exactSpinor = z.tuple([RationalString, RationalString])
+const seed = z.union([z.number().int(), z.string().min(1).max(200)])
+
+export const TheoryEnum = z.enum(['gluon', 'graviton', 'scalar-cubic', 'spin'])
+export const TargetNameEnum = z.enum(['auto', 'parke-taylor', 'berends-giele', 'hodges', 'klt', 'feynman', 'none'])
+
+export const KinematicsSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('spinors'), lambda: z.array(complexSpinor), lambdaTilde: z.array(complexSpinor) }),
+  z.object({ kind: z.literal('exact-spinors'), lambda: z.array(exactSpinor), lambdaTilde: z.array(exactSpinor) }),
+  z.object({ kind: z.literal('momenta'), momenta: z.array(z.tuple([num, num, num, num])) }),
+  z.object({ kind: z.literal('random'), seed }),
+  z.object({ kind: z.literal('rational'), seed }),
+  z.object({ kind: z.literal('physical'), seed, energy: num.positive().default(1) }),
+])
+
+export const EvaluateRequestSchema = z.object({
+  theory: TheoryEnum,
+  spin: num.optional(),
+  helicities: z.array(num).min(1).max(64),
+  kinematics: KinematicsSchema,
+  shift: z.tuple([z.number().int(), z.number().int()]).optional(),
+  target: z.union([TargetNameEnum, z.object({ formula: z.string().max(20000) })]).default('auto'),
+  arithmetic: z.enum(['float', 'exact']).default('float'),
+  probeFalloff: z.boolean().default(false),
+  tree: z.boolean().default(false),
+})
+
+/** The request after parsing (defaults applied). */
+export type EvaluateRequest = z.output<typeof EvaluateRequestSchema>
+/** The request as a client may send it (defaults optional). */
+export type EvaluateRequestInput = z.input<typeof EvaluateRequestSchema>
+export type Kinematics = z.output<typeof KinematicsSchema>
+
+/** [re, im]: numbers in float, "p/q" strings in exact. */
+export type WireComplex = [number, number] | [string, string]
+export type WireLeg = { label: number } | { line: string }
+
+export interface WireVertex {
+  kind: 'angle' | 'square'
+  legs: WireLeg[]
+  helicities: number[]
+  value: WireComplex
+}
+
+export interface WireSubAmplitude {
+  value: WireComplex
+  shift: [number, number]
+  legs: WireLeg[]
+  helicities: number[]
+  terms: WireTerm[]
+}
+
+export interface WireTerm {
+  left: number[]
+  /** Below the top of a term tree: the legs (labels or lines) behind the positions in `left`. */
+  leftLegs?: WireLeg[]
+  helicity: number
+  z: WireComplex
+  pole: WireComplex
+  value: WireComplex
+  children: { left: WireSubAmplitude | WireVertex; right: WireSubAmplitude | WireVertex } | null
+}
+
+export type Verdict = 'singular point' | 'not evaluated' | 'boundary term suspected' | 'agrees' | 'disagrees'
+
+export interface EvaluateResponse {
+  n: number
+  theory: z.output<typeof TheoryEnum>
+  spin?: number
+  shift: [number, number]
+  arithmetic: 'float' | 'exact'
+  value: WireComplex | null
+  terms: WireTerm[]
+  target: { name: string; value: WireComplex | null; latex?: string } | null
+  deviation: number | null
+  verdict: Verdict
+  falloff: { exponent: number; valid: boolean; spread?: number; measured?: boolean } | null
+  warnings: string[]
+  kinematics: { lambda: unknown[]; lambdaTilde: unknown[] }
+  engine: { version: string }
+  ms: number
+}
+
+/** A zod issue's path written as API.md does: `kinematics.lambda[2][1]`. */
+export function zodIssuePath(issue: { path: ReadonlyArray<PropertyKey> }): string {
+  let out = ''
+  for (const seg of issue.path) {
+    if (typeof seg === 'number') out += `[${seg}]`
+    else out += out ? `.${String(seg)}` : String(seg)
+  }
+  return out
+}
