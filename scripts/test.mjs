@@ -1,0 +1,6 @@
+// npm test: install what is missing, build once, run every Vitest project against that build.
+import { ensureBuilt, ensureInstalled, run } from './lib.mjs'
+
+ensureInstalled()
+ensureBuilt()
+run(`npx vitest run ${process.argv.slice(2).join(' ')}`)

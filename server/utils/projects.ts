@@ -1,0 +1,48 @@
+import { and, asc, eq } from 'drizzle-orm'
+import type { ProjectRole } from '../../shared/types/db'
+
+export function projectView(project: typeof tables.projects.$inferSelect, role: ProjectRole) {
+  return {
+    id: project.id,
+    name: project.name,
+    description: project.description,
+    role,
+    createdBy: project.createdBy,
+    createdAt: project.createdAt,
+    updatedAt: project.updatedAt,
+  }
+}
+
+export function diagramView(d: typeof tables.diagrams.$inferSelect) {
+  return {
+    id: d.id,
+    projectId: d.projectId,
+    title: d.title,
+    graph: d.graph,
+    version: d.version,
+    createdBy: d.createdBy,
+    updatedBy: d.updatedBy,
+    createdAt: d.createdAt,
+    updatedAt: d.updatedAt,
+  }
+}
+
+export async function listMembers(projectId: number) {
+  return useDB().select({
+    userId: tables.users.id,
+    email: tables.users.email,
+    name: tables.users.name,
+    role: tables.memberships.role,
+    since: tables.memberships.createdAt,
+  })
+    .from(tables.memberships)
+    .innerJoin(tables.users, eq(tables.users.id, tables.memberships.userId))
+    .where(eq(tables.memberships.projectId, projectId))
+    .orderBy(asc(tables.users.name))
+}
+
+export async function ownerCount(projectId: number) {
+  const rows = await useDB().select({ id: tables.memberships.userId }).from(tables.memberships)
+    .where(and(eq(tables.memberships.projectId, projectId), eq(tables.memberships.role, 'owner')))
+  return rows.length
+}

@@ -1,0 +1,76 @@
+// The diagram document (a Diagram's `graph`). Versioned; an empty graph is valid.
+// The process (theory, helicities, colour order, shift) is optional on save and required
+// only when a check runs (see requireProcess).
+import { z } from 'zod'
+
+export const GRAPH_SCHEMA_VERSION = 1
+
+export const TheorySchema = z.enum(['gluon', 'graviton', 'scalar-cubic', 'spin'], {
+  error: 'must be gluon, graviton, scalar-cubic or spin',
+})
+
+const finite = z.number().refine(Number.isFinite, { error: 'must be a finite number' })
+
+export const ProcessSchema = z.object({
+  theory: TheorySchema,
+  spin: z.number().optional(),
+  helicities: z.array(finite).min(3, { error: 'needs at least 3 legs' }).max(16, { error: 'at most 16 legs' }),
+  /** Colour order as leg labels (1..n); defaults to 1..n. */
+  order: z.array(z.number().int().positive()).optional(),
+  shift: z.tuple([z.number().int().positive(), z.number().int().positive()]).optional(),
+})
+
+export const NodeKindSchema = z.enum(['leg', 'angle', 'square', 'block'])
+
+export const GraphNodeSchema = z.object({
+  id: z.string().min(1).max(64),
+  type: NodeKindSchema,
+  position: z.object({ x: finite, y: finite }),
+  data: z.record(z.string(), z.unknown()).default({}),
+}).loose()
+
+export const GraphEdgeSchema = z.object({
+  id: z.string().min(1).max(128),
+  source: z.string().min(1).max(64),
+  target: z.string().min(1).max(64),
+  sourceHandle: z.string().max(64).nullish(),
+  targetHandle: z.string().max(64).nullish(),
+  type: z.string().max(32).optional(),
+  data: z.record(z.string(), z.unknown()).optional(),
+}).loose()
+
+export const GraphSchema = z.object({
+  schemaVersion: z.literal(GRAPH_SCHEMA_VERSION, { error: `must be ${GRAPH_SCHEMA_VERSION}` }).optional(),
+  process: ProcessSchema.optional(),
+  /** Evaluation settings the editor remembers (kinematics, target, arithmetic). */
+  settings: z.record(z.string(), z.unknown()).optional(),
+  nodes: z.array(GraphNodeSchema).max(3000, { error: 'at most 3000 nodes' }),
+  edges: z.array(GraphEdgeSchema).max(6000, { error: 'at most 6000 edges' }),
+  viewport: z.object({ x: finite, y: finite, zoom: finite }).optional(),
+}).superRefine((g, ctx) => {
+  const ids = new Set<string>()
+  g.nodes.forEach((node, i) => {
+    if (ids.has(node.id)) ctx.addIssue({ code: 'custom', path: ['nodes', i, 'id'], message: `duplicate node id "${node.id}"` })
+    ids.add(node.id)
+  })
+  g.edges.forEach((edge, i) => {
+    if (!ids.has(edge.source)) ctx.addIssue({ code: 'custom', path: ['edges', i, 'source'], message: `no node "${edge.source}"` })
+    if (!ids.has(edge.target)) ctx.addIssue({ code: 'custom', path: ['edges', i, 'target'], message: `no node "${edge.target}"` })
+  })
+  if (g.process) {
+    const n = g.process.helicities.length
+    g.process.order?.forEach((label, i) => {
+      if (label > n) ctx.addIssue({ code: 'custom', path: ['process', 'order', i], message: `leg ${label} does not exist (legs are 1..${n})` })
+    })
+    g.process.shift?.forEach((label, i) => {
+      if (label > n) ctx.addIssue({ code: 'custom', path: ['process', 'shift', i], message: `leg ${label} does not exist (legs are 1..${n})` })
+    })
+  }
+})
+
+export type Graph = z.infer<typeof GraphSchema>
+export type GraphNode = z.infer<typeof GraphNodeSchema>
+export type GraphEdge = z.infer<typeof GraphEdgeSchema>
+export type Process = z.infer<typeof ProcessSchema>
+
+export const emptyGraph = (): Graph => ({ schemaVersion: GRAPH_SCHEMA_VERSION, nodes: [], edges: [] })

@@ -1,0 +1,63 @@
+// Who may call which route. The inventory test fails when a file under server/api is missing here;
+// the matrix test calls every route as each role and checks 401 / 404 / 403 / allowed.
+import type { Client } from '../helpers/api'
+
+export type Access = 'public' | 'user' | 'admin' | 'viewer' | 'editor' | 'owner'
+export type Scope = 'none' | 'project' | 'diagram' | 'check' | 'point-set'
+
+export interface Ids { project: number, diagram: number, check?: number, pointSet?: number, member: number }
+
+export interface RouteAccess {
+  /** Path of the file under server/api. */
+  file: string
+  access: Access
+  scope: Scope
+  /** Body sent by the matrix test (validation errors are fine: they show access was granted). */
+  body?: unknown
+  /** Skips the allowed-role call (e.g. it would log the caller out). */
+  skipAllowed?: boolean
+}
+
+export const matrix: RouteAccess[] = [
+  { file: '[...].ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'auth/register.post.ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'auth/login.post.ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'auth/logout.post.ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'auth/me.get.ts', access: 'user', scope: 'none' },
+  { file: 'projects/index.get.ts', access: 'user', scope: 'none' },
+  { file: 'projects/index.post.ts', access: 'user', scope: 'none', body: {} },
+  { file: 'projects/[id]/index.get.ts', access: 'viewer', scope: 'project' },
+  { file: 'projects/[id]/index.patch.ts', access: 'owner', scope: 'project', body: {} },
+  { file: 'projects/[id]/activity.get.ts', access: 'viewer', scope: 'project' },
+  { file: 'projects/[id]/members/index.get.ts', access: 'viewer', scope: 'project' },
+  { file: 'projects/[id]/members/index.post.ts', access: 'owner', scope: 'project', body: {} },
+  { file: 'projects/[id]/members/[userId].patch.ts', access: 'owner', scope: 'project', body: {} },
+  { file: 'projects/[id]/members/[userId].delete.ts', access: 'owner', scope: 'project' },
+  { file: 'projects/[id]/diagrams/index.get.ts', access: 'viewer', scope: 'project' },
+  { file: 'projects/[id]/diagrams/index.post.ts', access: 'editor', scope: 'project', body: {} },
+  { file: 'diagrams/[id]/index.get.ts', access: 'viewer', scope: 'diagram' },
+  { file: 'diagrams/[id]/index.put.ts', access: 'editor', scope: 'diagram', body: {} },
+  { file: 'diagrams/[id]/index.delete.ts', access: 'editor', scope: 'diagram' },
+  { file: 'diagrams/[id]/revisions/index.get.ts', access: 'viewer', scope: 'diagram' },
+  { file: 'diagrams/[id]/revisions/[version].get.ts', access: 'viewer', scope: 'diagram' },
+  { file: 'admin/users/index.get.ts', access: 'admin', scope: 'none' },
+  { file: 'admin/users/[id].patch.ts', access: 'admin', scope: 'none', body: {} },
+]
+
+/** Turns a route file into a request path and method for the given fixture ids. */
+export function requestFor(route: RouteAccess, ids: Ids): { method: string, path: string } {
+  const m = route.file.match(/\.(get|post|put|patch|delete)\.ts$/)
+  const method = m ? m[1]!.toUpperCase() : 'GET'
+  let path = route.file.replace(/\.(get|post|put|patch|delete)?\.?ts$/, '').replace(/\/index$/, '').replace(/^index$/, '')
+  const scopeId: Record<Scope, number | undefined> = { 'none': ids.member, 'project': ids.project, 'diagram': ids.diagram, 'check': ids.check, 'point-set': ids.pointSet }
+  path = path
+    .replace('[...]', 'no-such-route')
+    .replace('[id]', String(scopeId[route.scope] ?? 1))
+    .replace('[userId]', String(ids.member))
+    .replace('[version]', '1')
+    .replace(/\[(\w+)\]/g, '1')
+  return { method, path: `/api/${path}` }
+}
+
+/** Extra fixtures later features need (a check, a point set), created by an owner client. */
+export const fixtureMakers: ((owner: Client, ids: Ids) => Promise<void>)[] = []

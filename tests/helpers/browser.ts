@@ -1,0 +1,44 @@
+// Debian's chromium driven by playwright-core (no browser download). Screenshots go to tests/screenshots.
+import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { mkdirSync, mkdtempSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
+import { baseURL } from './api'
+
+export const screenshotDir = resolve(import.meta.dirname, '../screenshots')
+
+const flags = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+  '--disable-domain-reliability', '--no-pings', '--host-resolver-rules=MAP * ~NOTFOUND, EXCLUDE 127.0.0.1',
+]
+
+export interface BrowserSession { context: BrowserContext, page: Page, errors: string[], close: () => Promise<void> }
+
+/** A fresh browser profile; console errors and page errors are collected for assertions. */
+export async function openBrowser(): Promise<BrowserSession> {
+  const context = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'pw-chromium-')), {
+    executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
+    args: flags,
+    viewport: { width: 1440, height: 900 },
+    baseURL: baseURL(),
+  })
+  const page = context.pages()[0] ?? await context.newPage()
+  const errors: string[] = []
+  page.on('console', (msg) => { if (msg.type() === 'error' || (msg.type() === 'warning' && /hydrat/i.test(msg.text()))) errors.push(msg.text()) })
+  page.on('pageerror', e => errors.push(e.message))
+  return { context, page, errors, close: () => context.close() }
+}
+
+export async function shot(page: Page, name: string) {
+  mkdirSync(screenshotDir, { recursive: true })
+  await page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: false })
+}
+
+export async function signInBrowser(page: Page, email: string, password: string) {
+  await page.goto('/login')
+  await page.waitForLoadState('networkidle')
+  await page.fill('input[name=email]', email)
+  await page.fill('input[name=password]', password)
+  await Promise.all([page.waitForURL(/\/projects/), page.click('button[type=submit]')])
+}

@@ -1,0 +1,29 @@
+import { defineConfig } from 'vitest/config'
+import { fileURLToPath } from 'node:url'
+
+const alias = { '~~': fileURLToPath(new URL('./', import.meta.url)), '~': fileURLToPath(new URL('./', import.meta.url)) }
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        resolve: { alias },
+        // API and browser tests share one built server and a temporary SQLite file.
+        test: {
+          name: 'e2e',
+          include: ['tests/api/**/*.test.ts', 'tests/browser/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/setup/server.ts'],
+          hookTimeout: 120_000,
+          testTimeout: 120_000,
+          maxWorkers: 2,
+        },
+      },
+    ],
+  },
+})
