@@ -1,0 +1,74 @@
+// Target selection (API.md "Targets") and evaluation through the registry; the values themselves are
+// checked against outside references in the other files of this folder.
+import { describe, expect, it } from 'vitest'
+import { complexField as C, rationalField as Q } from '../../../../shared/physics/field'
+import { TARGETS, applicableTargets, autoTarget, evaluateTarget } from '../../../../shared/physics/targets'
+import type { TargetName, TargetTheory } from '../../../../shared/physics/targets'
+import { parkeTaylor } from '../../../../shared/physics/targets/parke-taylor'
+import { berendsGiele } from '../../../../shared/physics/targets/berends-giele'
+import { PhysicsError } from '../../../../shared/physics/errors'
+import { randomComplexPoint, randomRationalPoint, relDiff } from './_points'
+
+describe('applicable targets and the auto choice', () => {
+  it.each<[TargetTheory, number[], number | undefined, TargetName[], TargetName | null]>([
+    ['gluon', [-1, -1, 1, 1, 1], undefined, ['parke-taylor', 'berends-giele'], 'parke-taylor'],
+    ['gluon', [1, 1, -1, -1, -1], undefined, ['parke-taylor', 'berends-giele'], 'parke-taylor'],
+    ['gluon', [-1, -1, -1, 1, 1, 1], undefined, ['berends-giele'], 'berends-giele'],
+    ['gluon', [1, 1, 1, 1, 1], undefined, ['parke-taylor', 'berends-giele'], 'parke-taylor'],
+    ['graviton', [-2, -2, 2, 2, 2, 2, 2], undefined, ['hodges'], 'hodges'],
+    ['graviton', [-2, 2, -2, 2, 2], undefined, ['hodges', 'klt'], 'hodges'],
+    ['graviton', [-2, -2, -2, 2, 2, 2], undefined, ['klt'], 'klt'],
+    ['graviton', [-2, -2, -2, 2, 2, 2, 2], undefined, [], null],
+    ['spin', [-2, -2, 2, 2], 2, ['hodges', 'klt'], 'hodges'],
+    ['spin', [-1, -1, 1, 1], 1, [], null],
+    ['spin', [-3, -3, 3, 3], 3, [], null],
+    ['scalar-cubic', [0, 0, 0, 0, 0], undefined, ['feynman'], 'feynman'],
+    ['gluon', [-2, -2, 2, 2], undefined, [], null],
+  ])('%s %j (spin %s) → %j, auto %s', (theory, h, spin, list, auto) => {
+    expect(applicableTargets(theory, h, spin)).toEqual(list)
+    expect(autoTarget(theory, h, spin)).toBe(auto)
+  })
+})
+
+describe('evaluateTarget', () => {
+  it('dispatches to the target functions', () => {
+    const k = randomComplexPoint(6, 'registry')
+    const h = [-1, 1, -1, 1, 1, 1]
+    expect(relDiff(evaluateTarget('parke-taylor', C, k, h), parkeTaylor(C, k, h))).toBe(0)
+    expect(relDiff(evaluateTarget('berends-giele', C, k, h), berendsGiele(C, k, h))).toBe(0)
+  })
+  it('vanishing classes give exactly zero for every gluon and graviton target', () => {
+    const k = randomRationalPoint(5, 'registry-zero')
+    for (const name of ['parke-taylor', 'berends-giele'] as const) expect(evaluateTarget(name, Q, k, [1, 1, -1, 1, 1]).n).toBe(0n)
+    for (const name of ['hodges', 'klt'] as const) expect(evaluateTarget(name, Q, k, [2, 2, 2, 2, 2]).n).toBe(0n)
+  })
+  it.each<[TargetName, number[], RegExp]>([
+    ['parke-taylor', [-1, -1, -1, 1, 1, 1], /^target: Parke–Taylor applies only/],
+    ['hodges', [-1, -1, 1, 1], /^target: hodges applies to gravitons/],
+    ['feynman', [-1, -1, 1, 1], /^target: feynman applies to scalars/],
+    ['klt', [0, 0, 0, 0], /^target: klt applies to gravitons/],
+  ])('%s with helicities %j is refused (422, field target)', (name, h, msg) => {
+    const k = randomComplexPoint(h.length, 'registry-bad')
+    let err: unknown
+    try {
+      evaluateTarget(name, C, k, h)
+    } catch (e) {
+      err = e
+    }
+    expect(err).toBeInstanceOf(PhysicsError)
+    expect((err as PhysicsError).message).toMatch(msg)
+    expect((err as PhysicsError).field).toBe('target')
+  })
+})
+
+describe('catalogue entries', () => {
+  it('one entry per target, each with a label, theories, a description and a source', () => {
+    expect(TARGETS.map((t) => t.name).sort()).toEqual(['berends-giele', 'feynman', 'hodges', 'klt', 'parke-taylor'])
+    for (const t of TARGETS) {
+      expect(t.label.length).toBeGreaterThan(3)
+      expect(t.theories.length).toBeGreaterThan(0)
+      expect(t.description.length).toBeGreaterThan(20)
+      expect(t.source).toMatch(/\d{4}|arXiv|common practice/)
+    }
+  })
+})
