@@ -17,7 +17,7 @@ export const FORMULA_MAX_LENGTH = 2000
 export const FORMULA_MAX_EXPONENT = 64
 
 // BigNumber constants: mathjs keeps a decimal literal exactly, so 0.1 becomes 1/10.
-const math = create({ parseDependencies }, { number: 'BigNumber', precision: 64 })
+const math = create({ parseDependencies: parseDependencies! }, { number: 'BigNumber', precision: 64 })
 
 export interface CompiledFormula {
   latex: string
@@ -108,7 +108,7 @@ function translate(src: string, n: number): Translation {
     }
   }
   const call = (b: Bracket, at: number) => {
-    const args = b.kind === 'ang' || b.kind === 'sq' ? b.legs : b.kind === 'sand' ? [b.i, b.j, ...b.p] : b.p
+    const args = b.kind === 'sand' ? [b.i, b.j, ...b.p] : b.kind === 'mand' ? b.p : b.legs
     // A space keeps "<1 2><2 3>" an implicit product for mathjs.
     const prev = text[text.length - 1]
     emit(`${prev !== undefined && /[\w).]/.test(prev) ? ' ' : ''}${b.kind}(${args.join(',')})`, at)
