@@ -15,6 +15,7 @@ import seedrandom from 'seedrandom'
 import type { Field } from '../field'
 import type { Kin, Spinor } from '../spinors'
 import { PhysicsError } from '../errors'
+import { checkTargetPoint } from './parke-taylor'
 
 type Quad<T> = [T, T, T, T]
 
@@ -30,10 +31,7 @@ export interface BerendsGieleOptions {
 
 function checkGluons<T>(k: Kin<T>, helicities: readonly number[]): void {
   const n = helicities.length
-  if (n < 3) throw new PhysicsError('target', 'Berends–Giele needs at least three legs')
-  if (k.lambda.length !== n || k.lambdaTilde.length !== n) {
-    throw new PhysicsError('target', 'the kinematics and the helicities have different lengths')
-  }
+  checkTargetPoint(k, n, 'Berends–Giele')
   for (let a = 0; a < n; a++) {
     const h = helicities[a]
     if (h !== 1 && h !== -1) throw new PhysicsError(`helicities[${a}]`, `a gluon has helicity ±1`)

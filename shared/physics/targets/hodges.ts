@@ -10,6 +10,7 @@
 import type { Field } from '../field'
 import type { Kin, Spinor } from '../spinors'
 import { PhysicsError } from '../errors'
+import { checkTargetPoint } from './parke-taylor'
 
 export interface HodgesOptions {
   /** Three removed rows (0-based, distinct). Default: the first three legs. */
@@ -142,10 +143,7 @@ function hodgesCore<T>(
 /** The graviton amplitude for MHV or anti-MHV helicities (±2, 0-based legs); zero for vanishing classes. */
 export function hodges<T>(F: Field<T>, k: Kin<T>, helicities: number[], opts?: HodgesOptions): T {
   const n = helicities.length
-  if (n < 3) throw new PhysicsError('target', "Hodges' formula needs at least three legs")
-  if (k.lambda.length !== n || k.lambdaTilde.length !== n) {
-    throw new PhysicsError('target', 'the kinematics and the helicities have different lengths')
-  }
+  checkTargetPoint(k, n, "Hodges' formula")
   const c = classifyGraviton(helicities)
   if (c.kind === 'vanishing') return F.zero
   if (c.kind === 'other') throw new PhysicsError('target', "Hodges' formula applies only to MHV helicities and their parity conjugate")

@@ -11,6 +11,7 @@ import type { Field } from '../field'
 import type { Kin } from '../spinors'
 import { PhysicsError } from '../errors'
 import { berendsGiele } from './berends-giele'
+import { checkTargetPoint } from './parke-taylor'
 
 const PERMS_234: ReadonlyArray<readonly [number, number, number]> = [
   [2, 3, 4], [2, 4, 3], [3, 2, 4], [3, 4, 2], [4, 2, 3], [4, 3, 2],
@@ -20,9 +21,7 @@ const PERMS_234: ReadonlyArray<readonly [number, number, number]> = [
 export function klt<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T {
   const n = helicities.length
   if (n < 3 || n > 6) throw new PhysicsError('target', `the KLT target covers 3 to 6 gravitons, not ${n}`)
-  if (k.lambda.length !== n || k.lambdaTilde.length !== n) {
-    throw new PhysicsError('target', 'the kinematics and the helicities have different lengths')
-  }
+  checkTargetPoint(k, n, 'KLT')
   const gluonH = helicities.map((h, a) => {
     if (h !== 2 && h !== -2) throw new PhysicsError(`helicities[${a}]`, 'a graviton has helicity ±2')
     return h / 2

@@ -44,13 +44,17 @@ export function classifyGluon(helicities: readonly number[]): MhvClass {
   return { kind: 'other', i: -1, j: -1 }
 }
 
-/** Parke–Taylor for MHV or anti-MHV helicities; zero for the identically vanishing classes. */
-export function parkeTaylor<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T {
-  const n = helicities.length
-  if (n < 3) throw new PhysicsError('target', 'Parke–Taylor needs at least three legs')
+/** The checks every target makes: at least three legs, and one spinor pair per helicity. */
+export function checkTargetPoint<T>(k: Kin<T>, n: number, target: string): void {
+  if (n < 3) throw new PhysicsError('target', `${target} needs at least three legs`)
   if (k.lambda.length !== n || k.lambdaTilde.length !== n) {
     throw new PhysicsError('target', 'the kinematics and the helicities have different lengths')
   }
+}
+
+/** Parke–Taylor for MHV or anti-MHV helicities; zero for the identically vanishing classes. */
+export function parkeTaylor<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T {
+  checkTargetPoint(k, helicities.length, 'Parke–Taylor')
   const c = classifyGluon(helicities)
   if (c.kind === 'vanishing') return F.zero
   if (c.kind === 'other') {
@@ -58,6 +62,9 @@ export function parkeTaylor<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T 
   }
   return c.kind === 'mhv' ? parkeTaylorMhv(F, k, c.i, c.j) : parkeTaylorAntiMhv(F, k, c.i, c.j)
 }
+
+// The two closed forms are written out separately (not through a bracket callback): the BCFW core
+// calls them for every MHV sub-block.
 
 /** ⟨ij⟩⁴ / (⟨12⟩…⟨n1⟩) with negative-helicity legs i, j (0-based); no helicity checks. */
 export function parkeTaylorMhv<T>(F: Field<T>, k: Kin<T>, i: number, j: number): T {
