@@ -3,10 +3,10 @@
 // term(L, h) = A_L(…, −P̂^h) A_R(…, P̂^−h) / P², with −P̂ carried by (λ_P, −λ̃_P).
 import { SingularError, type Field } from './field'
 import { det, momentumSum, sandwichOf, type Bispinor, type Kin, type Spinor } from './spinors'
-import { defaultShift, vanishes, type Process } from './theories'
+import { defaultShift, isValidShift, vanishes, type Process } from './theories'
 import { threePoint, threePointSurvives, type VertexKind } from './three-point'
 import { PhysicsError } from './errors'
-import { classifyGluon, parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/parke-taylor'
+import { parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/parke-taylor'
 
 /** A leg of a (sub-)amplitude: an external label (1-based) or an internal line L1, L2, … */
 export type LegRef = { label: number } | { line: string }
@@ -60,6 +60,9 @@ interface Ctx<T> {
 
 export const DEFAULT_MAX_TREE_NODES = 20000
 
+const ZERO_HEL = [0]
+const GLUON_HEL = [1, -1]
+
 /** Rank-one split P̂ = λ_P λ̃_Pᵀ from its largest entry (r, c): λ_P = column c, λ̃_P = row r / P̂_rc. */
 export function splitRankOne<T>(F: Field<T>, P: Bispinor<T>): { lambda: Spinor<T>; lambdaTilde: Spinor<T> } {
   let r = 0
@@ -77,7 +80,17 @@ export function splitRankOne<T>(F: Field<T>, P: Bispinor<T>): { lambda: Spinor<T
 }
 
 /** Left sets of the [i,j⟩ shift (0-based): each with A_L's and A_R's external legs in their order. */
-export function channels(n: number, i: number, j: number, colourOrdered: boolean): { L: number[]; R: number[] }[] {
+export function channels(n: number, i: number, j: number, colourOrdered: boolean): readonly Channel[] {
+  const key = ((n * 64 + i) * 64 + j) * 2 + (colourOrdered ? 1 : 0)
+  let c = channelCache.get(key)
+  if (!c) channelCache.set(key, (c = computeChannels(n, i, j, colourOrdered)))
+  return c
+}
+
+type Channel = { readonly L: readonly number[]; readonly R: readonly number[] }
+const channelCache = new Map<number, readonly Channel[]>()
+
+function computeChannels(n: number, i: number, j: number, colourOrdered: boolean): Channel[] {
   const out: { L: number[]; R: number[] }[] = []
   if (colourOrdered) {
     for (let m = 2; m <= n - 2; m++) {
@@ -103,16 +116,13 @@ export function channels(n: number, i: number, j: number, colourOrdered: boolean
   return out
 }
 
-function internalHelicities(p: Process): number[] {
-  return p.s === 0 ? [0] : [p.s, -p.s]
-}
 
 function sideSurvives(p: Process, h: number[], kind: VertexKind): boolean {
   return h.length === 3 ? threePointSurvives(p, h, kind) : !vanishes(p, h)
 }
 
 /** Label list like "1,2,5" for messages. */
-function labelsOf(legs: LegRef[] | undefined, idx: number[]): string {
+function labelsOf(legs: LegRef[] | undefined, idx: readonly number[]): string {
   return idx.map((t) => (legs ? ('label' in legs[t]! ? String((legs[t] as { label: number }).label) : (legs[t] as { line: string }).line) : String(t + 1))).join(',')
 }
 
@@ -121,52 +131,100 @@ interface SumResult<T> {
   terms: Term<T>[]
 }
 
+function poleName(legs: LegRef[] | undefined, L: readonly number[]): string {
+  return `the pole s(${labelsOf(legs, L)})`
+}
+
 function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number], legs: LegRef[] | undefined, wantTerms: boolean, top = false): SumResult<T> {
   const { F, p } = ctx
   const n = h.length
   const [i, j] = shift
-  const li = k.lambda[i]!
-  const ltj = k.lambdaTilde[j]!
-  const hs = internalHelicities(p)
+  const lam = k.lambda
+  const lamT = k.lambdaTilde
+  const li = lam[i]!
+  const ltj = lamT[j]!
+  const ltI = lamT[i]!
+  const lJ = lam[j]!
+  // z-independent parts of the shift: λ_i λ̃_jᵀ
+  const q00 = F.mul(li[0], ltj[0])
+  const q01 = F.mul(li[0], ltj[1])
+  const q10 = F.mul(li[1], ltj[0])
+  const q11 = F.mul(li[1], ltj[1])
+  const hs = p.s === 0 ? ZERO_HEL : p.s === 1 ? GLUON_HEL : [p.s, -p.s]
   let value = F.zero
   const terms: Term<T>[] = []
   for (const { L, R } of channels(n, i, j, p.colourOrdered)) {
-    const hL = L.map((t) => h[t]!)
-    const hR = R.map((t) => h[t]!)
-    const live = hs.filter((x) => sideSurvives(p, [...hL, x], 'angle') && sideSurvives(p, [...hR, -x], 'square'))
-    if (live.length === 0) continue
-    const P = momentumSum(F, k, L)
-    const P2 = det(F, P)
-    const what = `the pole s(${labelsOf(legs, L)})`
-    if (F.isZero(P2)) throw new SingularError(`${what} vanishes`)
+    const nL = L.length
+    const nR = R.length
+    const hL: number[] = new Array(nL + 1)
+    const hR: number[] = new Array(nR + 1)
+    for (let t = 0; t < nL; t++) hL[t] = h[L[t]!]!
+    for (let t = 0; t < nR; t++) hR[t] = h[R[t]!]!
+    let live0 = false
+    let live1 = false
+    for (let a = 0; a < hs.length; a++) {
+      const x = hs[a]!
+      hL[nL] = x
+      hR[nR] = -x
+      const ok = sideSurvives(p, hL, 'angle') && sideSurvives(p, hR, 'square')
+      if (a === 0) live0 = ok
+      else live1 = ok
+    }
+    if (!live0 && !live1) continue
+    // P = Σ_{k∈L} λ_k λ̃_kᵀ at z = 0
+    let P00 = F.zero, P01 = F.zero, P10 = F.zero, P11 = F.zero
+    for (let t = 0; t < nL; t++) {
+      const l = lam[L[t]!]!
+      const lt = lamT[L[t]!]!
+      P00 = F.add(P00, F.mul(l[0], lt[0]))
+      P01 = F.add(P01, F.mul(l[0], lt[1]))
+      P10 = F.add(P10, F.mul(l[1], lt[0]))
+      P11 = F.add(P11, F.mul(l[1], lt[1]))
+    }
+    const P2 = F.sub(F.mul(P00, P11), F.mul(P01, P10))
+    if (F.isZero(P2)) throw new SingularError(`${poleName(legs, L)} vanishes`)
+    const P: Bispinor<T> = [[P00, P01], [P10, P11]]
     const ipj = sandwichOf(F, li, P, ltj)
-    const z = F.neg(F.div(P2, ipj, `⟨${i + 1}|P|${j + 1}] of the channel s(${labelsOf(legs, L)})`))
+    if (F.isZero(ipj)) throw new SingularError(`⟨${i + 1}|P|${j + 1}] of the channel s(${labelsOf(legs, L)}) vanishes (the shift has no pole there)`)
+    const z = F.neg(F.div(P2, ipj))
     const Phat: Bispinor<T> = [
-      [F.add(P[0][0], F.mul(z, F.mul(li[0], ltj[0]))), F.add(P[0][1], F.mul(z, F.mul(li[0], ltj[1])))],
-      [F.add(P[1][0], F.mul(z, F.mul(li[1], ltj[0]))), F.add(P[1][1], F.mul(z, F.mul(li[1], ltj[1])))],
+      [F.add(P00, F.mul(z, q00)), F.add(P01, F.mul(z, q01))],
+      [F.add(P10, F.mul(z, q10)), F.add(P11, F.mul(z, q11))],
     ]
     const sp = splitRankOne(F, Phat)
-    const ltI = k.lambdaTilde[i]!
     const hatLtI: Spinor<T> = [F.add(ltI[0], F.mul(z, ltj[0])), F.add(ltI[1], F.mul(z, ltj[1]))]
-    const lJ = k.lambda[j]!
     const hatLJ: Spinor<T> = [F.sub(lJ[0], F.mul(z, li[0])), F.sub(lJ[1], F.mul(z, li[1]))]
-    const kL: Kin<T> = {
-      lambda: [...L.map((t) => k.lambda[t]!), sp.lambda],
-      lambdaTilde: [...L.map((t) => (t === i ? hatLtI : k.lambdaTilde[t]!)), [F.neg(sp.lambdaTilde[0]), F.neg(sp.lambdaTilde[1])]],
+    const kL: Kin<T> = { lambda: new Array(nL + 1), lambdaTilde: new Array(nL + 1) }
+    for (let t = 0; t < nL; t++) {
+      const e = L[t]!
+      kL.lambda[t] = lam[e]!
+      kL.lambdaTilde[t] = e === i ? hatLtI : lamT[e]!
     }
-    const kR: Kin<T> = {
-      lambda: [...R.map((t) => (t === j ? hatLJ : k.lambda[t]!)), sp.lambda],
-      lambdaTilde: [...R.map((t) => k.lambdaTilde[t]!), sp.lambdaTilde],
+    kL.lambda[nL] = sp.lambda
+    kL.lambdaTilde[nL] = [F.neg(sp.lambdaTilde[0]), F.neg(sp.lambdaTilde[1])]
+    const kR: Kin<T> = { lambda: new Array(nR + 1), lambdaTilde: new Array(nR + 1) }
+    for (let t = 0; t < nR; t++) {
+      const e = R[t]!
+      kR.lambda[t] = e === j ? hatLJ : lam[e]!
+      kR.lambdaTilde[t] = lamT[e]!
     }
+    kR.lambda[nR] = sp.lambda
+    kR.lambdaTilde[nR] = sp.lambdaTilde
     let line: string | undefined
     if (ctx.tree) line = `L${++ctx.lines}`
     const legsL = legs && line ? [...L.map((t) => legs[t]!), { line }] : undefined
     const legsR = legs && line ? [...R.map((t) => legs[t]!), { line }] : undefined
-    for (const x of live) {
-      const left = side(ctx, kL, [...hL, x], 'angle', legsL)
+    for (let a = 0; a < hs.length; a++) {
+      if (!(a === 0 ? live0 : live1)) continue
+      const x = hs[a]!
+      const hLx = hL.slice()
+      hLx[nL] = x
+      const left = side(ctx, kL, hLx, 'angle', legsL)
       if (F.isZero(left.value)) continue
-      const right = side(ctx, kR, [...hR, -x], 'square', legsR)
-      const tv = F.div(F.mul(left.value, right.value), P2, what)
+      const hRx = hR.slice()
+      hRx[nR] = -x
+      const right = side(ctx, kR, hRx, 'square', legsR)
+      const tv = F.div(F.mul(left.value, right.value), P2)
       value = F.add(value, tv)
       if (wantTerms) {
         terms.push({
@@ -209,13 +267,68 @@ function side<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], kind: VertexKind, legs: Le
 
 function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[]): T {
   const { F, p } = ctx
-  if (vanishes(p, h)) return F.zero
   if (ctx.closedForms && p.theory === 'gluon') {
-    const c = classifyGluon(h)
-    if (c.kind === 'mhv') return parkeTaylorMhv(F, k, c.i, c.j)
-    if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(F, k, c.i, c.j)
+    // one pass: the two minus (MHV) or two plus (anti-MHV) legs, or a vanishing class
+    const n = h.length
+    let minus = 0
+    let m0 = -1, m1 = -1, p0 = -1, p1 = -1
+    for (let t = 0; t < n; t++) {
+      if (h[t]! < 0) {
+        if (minus === 0) m0 = t
+        else if (minus === 1) m1 = t
+        minus++
+      } else if (t - minus === 0) p0 = t
+      else if (t - minus === 1) p1 = t
+    }
+    if (minus === 2) return parkeTaylorMhv(F, k, m0, m1)
+    if (n - minus === 2) return parkeTaylorAntiMhv(F, k, p0, p1)
+    if (minus < 2 || n - minus < 2) return F.zero
+    return bcfwSum(ctx, k, h, cheapestShift(h).shift, undefined, false).value
   }
+  if (vanishes(p, h)) return F.zero
   return bcfwSum(ctx, k, h, defaultShift(p, h), undefined, false).value
+}
+
+const gluonProcess: Process = { theory: 'gluon', s: 1, colourOrdered: true }
+const costMemo = new Map<string, { cost: number; shift: [number, number] }>()
+
+/**
+ * Speed: the valid adjacent gluon shift with the fewest closed-form evaluations below it, found
+ * from the helicities alone (memoized per helicity string; MHV, anti-MHV and three-point blocks
+ * cost 1, vanishing ones 0). Only valid shifts are candidates, so the rule stays valid.
+ */
+export function cheapestShift(h: readonly number[]): { cost: number; shift: [number, number] } {
+  const key = h.join('')
+  const hit = costMemo.get(key)
+  if (hit) return hit
+  const n = h.length
+  let best = { cost: Infinity, shift: defaultShift(gluonProcess, h) }
+  let minus = 0
+  for (const x of h) if (x < 0) minus++
+  if (n === 3 || minus === 2 || n - minus === 2) best = { cost: 1, shift: best.shift }
+  else if (minus < 2 || n - minus < 2) best = { cost: 0, shift: best.shift }
+  else {
+    for (let a = 0; a < n; a++) {
+      for (const [i, j] of [[a, (a + 1) % n], [(a + 1) % n, a]] as [number, number][]) {
+        if (!isValidShift(gluonProcess, h, i, j)) continue
+        let cost = 0
+        for (const { L, R } of channels(n, i, j, true)) {
+          const hL = [...L.map((t) => h[t]!), 0]
+          const hR = [...R.map((t) => h[t]!), 0]
+          for (const x of GLUON_HEL) {
+            hL[L.length] = x
+            hR[R.length] = -x
+            if (!sideSurvives(gluonProcess, hL, 'angle') || !sideSurvives(gluonProcess, hR, 'square')) continue
+            cost += 1 + (hL.length === 3 ? 0 : cheapestShift(hL).cost) + (hR.length === 3 ? 0 : cheapestShift(hR).cost)
+          }
+          if (cost >= best.cost) break
+        }
+        if (cost < best.cost) best = { cost, shift: [i, j] }
+      }
+    }
+  }
+  costMemo.set(key, best)
+  return best
 }
 
 export interface BcfwResult<T> {

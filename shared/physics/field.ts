@@ -37,33 +37,63 @@ export interface Field<T> {
   toWire(a: T): WireNumber
 }
 
+// complex.js parses its arguments on every operation and in its constructor; the engine's hot
+// loops build results directly on its prototype (same Complex objects, a fraction of the cost).
+const complexProto = Complex.prototype
+function mkComplex(re: number, im: number): Complex {
+  const z = Object.create(complexProto) as Complex
+  z.re = re
+  z.im = im
+  return z
+}
+
+function cmul(a: Complex, b: Complex): Complex {
+  return mkComplex(a.re * b.re - a.im * b.im, a.re * b.im + a.im * b.re)
+}
+
+/** a / b by Smith's algorithm (no overflow for large |b|). */
+function cdiv(a: Complex, b: Complex): Complex {
+  if (Math.abs(b.re) >= Math.abs(b.im)) {
+    const r = b.im / b.re
+    const d = b.re + b.im * r
+    return mkComplex((a.re + a.im * r) / d, (a.im - a.re * r) / d)
+  }
+  const r = b.re / b.im
+  const d = b.re * r + b.im
+  return mkComplex((a.re * r + a.im) / d, (a.im * r - a.re) / d)
+}
+
+const C0 = mkComplex(0, 0)
+const C1 = mkComplex(1, 0)
+
 export const complexField: Field<Complex> = {
   kind: 'float',
-  zero: Complex.ZERO,
-  one: Complex.ONE,
-  fromInt: (n) => new Complex(n, 0),
-  add: (a, b) => a.add(b),
-  sub: (a, b) => a.sub(b),
-  mul: (a, b) => a.mul(b),
+  zero: C0,
+  one: C1,
+  fromInt: (n) => mkComplex(n, 0),
+  add: (a, b) => mkComplex(a.re + b.re, a.im + b.im),
+  sub: (a, b) => mkComplex(a.re - b.re, a.im - b.im),
+  mul: cmul,
   div: (a, b, what = 'division by zero') => {
     if (b.re === 0 && b.im === 0) throw new SingularError(what)
-    return a.div(b)
+    return cdiv(a, b)
   },
-  neg: (a) => a.neg(),
+  neg: (a) => mkComplex(-a.re, -a.im),
   pow: (a, k) => {
     if (!Number.isInteger(k)) throw new RangeError(`non-integer power ${k}`)
-    let base = k < 0 ? Complex.ONE.div(a) : a
+    if (k < 0 && a.re === 0 && a.im === 0) throw new SingularError('zero to a negative power')
+    let base = k < 0 ? cdiv(C1, a) : a
     let e = Math.abs(k)
-    let acc = Complex.ONE
+    let acc = C1
     while (e > 0) {
-      if (e & 1) acc = acc.mul(base)
-      base = base.mul(base)
+      if (e & 1) acc = cmul(acc, base)
       e >>= 1
+      if (e > 0) base = cmul(base, base)
     }
     return acc
   },
   isZero: (a) => a.re === 0 && a.im === 0,
-  abs: (a) => a.abs(),
+  abs: (a) => Math.sqrt(a.re * a.re + a.im * a.im),
   equals: (a, b) => a.re === b.re && a.im === b.im,
   toWire: (a) => [a.re, a.im],
 }

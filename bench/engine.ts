@@ -1,0 +1,73 @@
+// Engine benchmark (issue 3 "Speed"): per n = 4..12 and helicity class, BCFW float time,
+// Berends–Giele float time, their ratio, exact BCFW time, agreement and heap growth.
+// Run: node bench/run.mjs  [--quick]
+import { complexField as C, rationalField as Q } from '../shared/physics/field'
+import { randomPoint, rationalPoint } from '../shared/physics/kinematics'
+import { bcfw } from '../shared/physics/bcfw'
+import { defaultShift, processOf, THEORIES } from '../shared/physics/theories'
+import { berendsGiele } from '../shared/physics/targets/berends-giele'
+
+const quick = process.argv.includes('--quick')
+const gc = (globalThis as { gc?: () => void }).gc
+
+/** k+2 negative helicities spread over n legs: the N^kMHV class. */
+function classHelicities(n: number, k: number): number[] {
+  const m = k + 2
+  const h = Array<number>(n).fill(1)
+  for (let t = 0; t < m; t++) h[Math.floor((t * n) / m)] = -1
+  return h
+}
+
+function className(k: number): string {
+  return k === 0 ? 'MHV' : k === 1 ? 'NMHV' : `N${k === 2 ? '²' : k === 3 ? '³' : '⁴'}MHV`
+}
+
+/** Median time in ms of fn over repeated runs filling ~budget ms. */
+function time(fn: () => unknown, budget: number): { ms: number; heap: number } {
+  gc?.()
+  const h0 = process.memoryUsage().heapUsed
+  let t = performance.now()
+  fn()
+  const first = performance.now() - t
+  const heap = Math.max(0, process.memoryUsage().heapUsed - h0)
+  const reps = Math.max(1, Math.min(2000, Math.floor(budget / Math.max(first, 1e-3))))
+  const samples: number[] = []
+  for (let r = 0; r < reps; r++) {
+    t = performance.now()
+    fn()
+    samples.push(performance.now() - t)
+  }
+  samples.sort((a, b) => a - b)
+  return { ms: samples[Math.floor(samples.length / 2)]!, heap }
+}
+
+const fmt = (x: number) => (x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x >= 1 ? x.toFixed(2) : x.toFixed(3))
+const g = processOf('gluon')
+const rows: string[] = []
+rows.push('| n | class | BCFW float ms | BG float ms | BCFW/BG | exact BCFW ms | rel. agreement | heap MB |')
+rows.push('|---|---|---|---|---|---|---|---|')
+const budget = quick ? 30 : 300
+for (let n = 4; n <= 12; n++) {
+  for (let k = 0; 2 * k <= n - 4; k++) {
+    const h = classHelicities(n, k)
+    const kin = randomPoint(n, 1)
+    const shift = defaultShift(g, h)
+    let vb = C.zero
+    const tb = time(() => (vb = bcfw(C, g, kin, h, shift).value), budget)
+    let vg = C.zero
+    const tg = time(() => (vg = berendsGiele(C, kin, h)), budget)
+    let exact = '—'
+    let heap = tb.heap
+    if (n <= THEORIES.gluon.limits.exact) {
+      const kq = rationalPoint(n, 1)
+      const te = time(() => bcfw(Q, g, kq, h, shift), quick ? 50 : 500)
+      exact = fmt(te.ms)
+      heap = Math.max(heap, te.heap)
+    }
+    const agree = vb.sub(vg).abs() / vg.abs()
+    rows.push(`| ${n} | ${className(k)} | ${fmt(tb.ms)} | ${fmt(tg.ms)} | ${(tb.ms / tg.ms).toFixed(2)} | ${exact} | ${agree.toExponential(1)} | ${(heap / 2 ** 20).toFixed(1)} |`)
+    console.error(rows[rows.length - 1])
+  }
+}
+console.log(rows.join('\n'))
+console.log(`\npeak RSS ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB; node ${process.version}; ${quick ? 'quick' : 'full'} run`)
