@@ -42,6 +42,25 @@ export const matrix: RouteAccess[] = [
   { file: 'diagrams/[id]/revisions/[version].get.ts', access: 'viewer', scope: 'diagram' },
   { file: 'admin/users/index.get.ts', access: 'admin', scope: 'none' },
   { file: 'admin/users/[id].patch.ts', access: 'admin', scope: 'none', body: {} },
+  // Collaboration (issue 7). Token and invitation ids in these paths name nothing, so the
+  // allowed call would be a correct 404: tests/api/collab*.test.ts cover the allowed cases.
+  { file: 'admin/outbox.get.ts', access: 'admin', scope: 'none' },
+  { file: 'auth/password/forgot.post.ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'auth/password/reset.post.ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'auth/password/reset/[token].get.ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'invitations/[token]/index.get.ts', access: 'public', scope: 'none', skipAllowed: true },
+  { file: 'invitations/[token]/accept.post.ts', access: 'user', scope: 'none', skipAllowed: true },
+  { file: 'projects/[id]/invitations/index.get.ts', access: 'owner', scope: 'project' },
+  { file: 'projects/[id]/invitations/[invitationId].delete.ts', access: 'owner', scope: 'project', skipAllowed: true },
+  { file: 'diagrams/[id]/comments/index.get.ts', access: 'viewer', scope: 'diagram' },
+  { file: 'diagrams/[id]/comments/index.post.ts', access: 'viewer', scope: 'diagram', body: {} },
+  { file: 'checks/[id]/comments/index.get.ts', access: 'viewer', scope: 'check' },
+  { file: 'checks/[id]/comments/index.post.ts', access: 'viewer', scope: 'check', body: {} },
+  { file: 'comments/[id].patch.ts', access: 'viewer', scope: 'none', body: {}, skipAllowed: true },
+  { file: 'comments/[id].delete.ts', access: 'viewer', scope: 'none', skipAllowed: true },
+  { file: 'tokens/index.get.ts', access: 'user', scope: 'none' },
+  { file: 'tokens/index.post.ts', access: 'user', scope: 'none', body: {} },
+  { file: 'tokens/[id].delete.ts', access: 'user', scope: 'none', skipAllowed: true },
 ]
 
 /** Turns a route file into a request path and method for the given fixture ids. */

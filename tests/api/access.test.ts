@@ -72,6 +72,7 @@ describe('access matrix: each role on each route', () => {
     const { method, path } = requestFor(route, ids)
     expect((await new Client().req(method, path, route.body)).status, 'anonymous').toBe(401)
     if (route.access === 'admin') expect((await users.owner.req(method, path, route.body)).status, 'member').toBe(403)
+    if (route.skipAllowed) return
     const res = await (route.access === 'admin' ? admin : users.outsider).req(method, path, route.body)
     expect([401, 403, 404]).not.toContain(res.status)
   })

@@ -8,6 +8,7 @@ const AdminUserUpdate = z.object({
 
 export default defineEventHandler(async (event) => {
   const auth = await requireSiteAdmin(event)
+  requireWriteScope(auth)
   const id = routeId(event)
   const body = await readValid(event, AdminUserUpdate)
   if (id === auth.user.id && (body.disabled || body.role === 'member')) {
