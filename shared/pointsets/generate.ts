@@ -1,0 +1,46 @@
+// Generated point sets, reproducible from their seed: point i is drawn from the seed "<seed>:<i>"
+// by the engine's own seeded points (shared/physics/kinematics): `physical` = RAMBO with the
+// chosen centre-of-mass energy, legs 1, 2 incoming along ±z and crossed to outgoing; `random` =
+// a complex point. Both are redrawn until well-conditioned (API.md), as the engine does.
+import { z } from 'zod'
+import { complexField as F } from '../physics/field'
+import { momentumOfBispinor, physicalPoint, randomPoint, type Momentum } from '../physics/kinematics'
+import { outer, type Kin } from '../physics/spinors'
+import type { Complex } from '../physics/field'
+import { minInvariantRatio } from './invariants'
+import { MAX_POINTS, type PointData, type WireSpinor } from './types'
+
+export const GenerateSchema = z.object({
+  name: z.string().trim().min(1, { error: 'must not be empty' }).max(200).optional(),
+  kind: z.enum(['physical', 'random'], { error: 'must be physical or random' }),
+  n: z.number().int({ error: 'must be a whole number' }).min(4, { error: 'needs at least 4 legs' }).max(16, { error: 'at most 16 legs' }),
+  count: z.number().int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).max(MAX_POINTS, { error: `at most ${MAX_POINTS} points per point set` }),
+  seed: z.number().int({ error: 'must be a whole number' }).min(0).max(2 ** 31 - 1),
+  energy: z.number().positive({ error: 'must be positive' }).max(1e12).optional(),
+})
+export type GenerateInput = z.infer<typeof GenerateSchema>
+
+/** The seed of point i of a generated set. */
+export const pointSeed = (seed: number, i: number) => `${seed}:${i}`
+
+function momentaOf(k: Kin<Complex>): Momentum[] {
+  // Real up to rounding: the engine's physical point is real momenta with conservation restored.
+  return k.lambda.map((l, i) => momentumOfBispinor(outer(F, l, k.lambdaTilde[i]!)).map(c => c.re) as Momentum)
+}
+
+const wire = (s: [Complex, Complex]): WireSpinor => [[s[0].re, s[0].im], [s[1].re, s[1].im]]
+
+/** Point i of a generated set (also used to re-derive a stored point from its seed). */
+export function generatePoint(kind: 'physical' | 'random', n: number, seed: number, i: number, energy = 1): PointData {
+  const s = pointSeed(seed, i)
+  if (kind === 'physical') {
+    const k = physicalPoint(n, s, energy)
+    return { label: String(i + 1), momenta: momentaOf(k), minInvariant: minInvariantRatio(k) }
+  }
+  const k = randomPoint(n, s)
+  return { label: String(i + 1), lambda: k.lambda.map(wire), lambdaTilde: k.lambdaTilde.map(wire), minInvariant: minInvariantRatio(k) }
+}
+
+export function* generatePoints(g: GenerateInput): Generator<PointData> {
+  for (let i = 0; i < g.count; i++) yield generatePoint(g.kind, g.n, g.seed, i, g.energy ?? 1)
+}
