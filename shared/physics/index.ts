@@ -20,6 +20,7 @@ import { bcfw, type SubAmplitude, type Term, type Vertex } from './bcfw'
 import { probeFalloff, type FalloffResult } from './falloff'
 import { decideVerdict, deviationOf } from './verdict'
 import { applicableTargets, autoTarget, evaluateTarget, type TargetName } from './targets/index'
+import { compileFormula, type CompiledFormula } from './formula'
 import {
   EvaluateRequestSchema,
   type EvaluateRequestInput,
@@ -125,11 +126,11 @@ function nodeToWire<T>(F: Field<T>, x: SubAmplitude<T> | Vertex<T>): WireSubAmpl
   return { value: F.toWire(x.value), shift: x.shift, legs: x.legs, helicities: x.helicities, terms: x.terms.map((t) => termToWire(F, t)) }
 }
 
-type ResolvedTarget = { kind: 'none' } | { kind: 'named'; name: TargetName }
+type ResolvedTarget = { kind: 'none' } | { kind: 'named'; name: TargetName } | { kind: 'formula'; formula: CompiledFormula }
 
 function resolveTarget(target: EvaluateRequestInput['target'], theory: Process['theory'], helicities: number[], spin?: number): ResolvedTarget {
   const t = target ?? 'auto'
-  if (typeof t === 'object') throw new PhysicsError('target.formula', 'user formulas are not available yet')
+  if (typeof t === 'object') return { kind: 'formula', formula: compileFormula(t.formula, helicities.length) }
   if (t === 'none') return { kind: 'none' }
   if (t === 'auto') {
     const a = autoTarget(theory, helicities, spin)
@@ -173,12 +174,12 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       }
     }
     let targetValue: T | null = null
-    if (target.kind === 'named' && !singular) {
+    if (target.kind !== 'none' && !singular) {
       try {
-        targetValue = evaluateTarget(target.name, F, k, helicities)
+        targetValue = target.kind === 'named' ? evaluateTarget(target.name, F, k, helicities) : target.formula.evaluate(F, k)
       } catch (e) {
         if (!(e instanceof SingularError)) throw e
-        singular = `${e.what} (in the target ${target.name})`
+        singular = `${e.what} (in the target ${target.kind === 'named' ? target.name : 'formula'})`
       }
     }
     let falloff: FalloffResult | null = null
@@ -208,7 +209,14 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       arithmetic,
       value: value === null ? null : (F.toWire(value) as WireComplex),
       terms: singular ? [] : terms.map((t) => termToWire(F, t)),
-      target: target.kind === 'none' ? null : { name: target.name, value: targetValue === null ? null : (F.toWire(targetValue) as WireComplex) },
+      target:
+        target.kind === 'none'
+          ? null
+          : {
+              name: target.kind === 'named' ? target.name : 'formula',
+              value: targetValue === null ? null : (F.toWire(targetValue) as WireComplex),
+              ...(target.kind === 'formula' ? { latex: target.formula.latex } : {}),
+            },
       deviation,
       verdict,
       falloff: falloff ? { exponent: falloff.exponent, valid: falloff.valid, spread: falloff.spread, measured: falloff.measured } : null,

@@ -1,0 +1,143 @@
+// Exports of the editor: the term table as CSV and as a LaTeX table, and the canvas as a
+// standalone SVG drawn from node positions and shapes (the PNG is this SVG drawn on a canvas).
+import type { EvaluateResponse, WireComplex } from '../schemas/evaluate'
+import type { Process } from '../schemas/graph'
+import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
+import { helicityText, sign } from './types'
+import { absOf, fmtDeviation, fmtReal, phaseOf } from './format'
+import { channelLabels } from './process'
+import { chevronPoints, handleLayout, nodeSize } from './geometry'
+
+/** Colours of tailwind.config.ts (kept in step by hand: the SVG must stand alone). */
+export const PALETTE = {
+  paper: '#f7f3ea', ink: '#1f2328', inkSoft: '#4a4f57', edge: '#ddd3bf', accent: '#3d4fd6',
+  angle: '#0f8b8d', angleLight: '#d5efef', square: '#e04e2b', squareLight: '#fbe0d8', block: '#52606d', blockLight: '#e4e8ec',
+}
+
+const csvCell = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s)
+const part = (c: WireComplex | null | undefined, k: 0 | 1) => (c ? (typeof c[k] === 'string' ? (c[k] as string) : String(c[k])) : '')
+
+/** The term table as CSV: one row per channel term, then the total and the target. */
+export function termsCsv(r: EvaluateResponse, p: Process): string {
+  const head = ['channel', 'helicity', 'z_re', 'z_im', 'pole_re', 'pole_im', 'value_re', 'value_im', 'abs', 'phase_over_pi']
+  const rows = r.terms.map(t => [
+    `{${channelLabels(p, t.left).join(' ')}}`, String(t.helicity),
+    part(t.z, 0), part(t.z, 1), part(t.pole, 0), part(t.pole, 1), part(t.value, 0), part(t.value, 1),
+    String(absOf(t.value)), String(phaseOf(t.value)),
+  ])
+  const tail = (name: string, v: WireComplex | null | undefined) => [name, '', '', '', '', '', part(v, 0), part(v, 1), v ? String(absOf(v)) : '', v ? String(phaseOf(v)) : '']
+  rows.push(tail('total', r.value))
+  if (r.target) rows.push(tail(`target:${r.target.name}`, r.target.value))
+  const meta = `# shift [${r.shift.join(',')}>, arithmetic ${r.arithmetic}, deviation ${r.deviation ?? ''}, verdict ${r.verdict}, engine ${r.engine.version}`
+  return [meta, head.join(','), ...rows.map(row => row.map(csvCell).join(','))].join('\n') + '\n'
+}
+
+const texNum = (x: number | string) => {
+  if (typeof x === 'string') return x.includes('/') ? `\\tfrac{${x.split('/')[0]}}{${x.split('/')[1]}}` : x
+  const s = fmtReal(x, 8)
+  const m = /^(-?[\d.]+)e([+-])0*(\d+)$/.exec(s)
+  return m ? `${m[1]}\\times 10^{${m[2] === '-' ? '-' : ''}${m[3]}}` : s
+}
+const texComplex = (c: WireComplex | null | undefined) => (c ? `$${texNum(c[0])}$ & $${texNum(c[1])}$` : '-- & --')
+
+/** The term table as a LaTeX tabular (booktabs rules). */
+export function termsLatex(r: EvaluateResponse, p: Process): string {
+  const lines = [
+    `% ${p.theory}, helicities (${p.helicities.map(sign).join('')}), shift [${r.shift.join(',')}\\rangle, ${r.arithmetic} arithmetic; verdict: ${r.verdict}`,
+    '\\begin{tabular}{llrrrr}',
+    '\\toprule',
+    'channel & $h$ & $\\mathrm{Re}\\,z^*$ & $\\mathrm{Im}\\,z^*$ & $\\mathrm{Re}$ term & $\\mathrm{Im}$ term \\\\',
+    '\\midrule',
+    ...r.terms.map(t => `$\\{${channelLabels(p, t.left).join(',')}\\}$ & $${helicityText(t.helicity).replace('−', '-')}$ & ${texComplex(t.z)} & ${texComplex(t.value)} \\\\`),
+    '\\midrule',
+    `total & & & & ${texComplex(r.value)} \\\\`,
+    ...(r.target ? [`target (${r.target.name}) & & & & ${texComplex(r.target.value)} \\\\`] : []),
+    `\\multicolumn{6}{l}{relative deviation ${fmtDeviation(r.deviation)}} \\\\`,
+    '\\bottomrule',
+    '\\end{tabular}',
+  ]
+  return lines.join('\n') + '\n'
+}
+
+const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;')
+
+/** The canvas as a standalone SVG: same shapes, colours and handle positions as the nodes. */
+export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shift?: [number, number], title?: string, padding?: number } = {}): string {
+  const pad = opts.padding ?? 40
+  const byId = new Map(nodes.map(n => [n.id, n]))
+  let minX = Infinity
+  let minY = Infinity
+  let maxX = -Infinity
+  let maxY = -Infinity
+  for (const n of nodes) {
+    const s = nodeSize(n)
+    minX = Math.min(minX, n.position.x)
+    minY = Math.min(minY, n.position.y)
+    maxX = Math.max(maxX, n.position.x + s.width)
+    maxY = Math.max(maxY, n.position.y + s.height)
+  }
+  if (!nodes.length) { minX = 0; minY = 0; maxX = 200; maxY = 80 }
+  const titleH = opts.title ? 28 : 0
+  const W = Math.ceil(maxX - minX + 2 * pad)
+  const H = Math.ceil(maxY - minY + 2 * pad + titleH)
+  const ox = pad - minX
+  const oy = pad - minY + titleH
+  const handlePos = (id: string, h: string | null | undefined) => {
+    const n = byId.get(id)!
+    const hl = handleLayout(n).find(x => x.id === (h ?? '')) ?? handleLayout(n)[0]!
+    return { x: n.position.x + hl.x + ox, y: n.position.y + hl.y + oy }
+  }
+  const out: string[] = []
+  out.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family="Space Grotesk, system-ui, sans-serif">`)
+  out.push(`<rect width="${W}" height="${H}" fill="${PALETTE.paper}"/>`)
+  if (opts.title) out.push(`<text x="${pad}" y="${pad - 8}" font-size="15" font-weight="700" fill="${PALETTE.ink}">${esc(opts.title)}</text>`)
+  for (const e of edges) {
+    if (!byId.has(e.source) || !byId.has(e.target)) continue
+    const a = handlePos(e.source, e.sourceHandle)
+    const b = handlePos(e.target, e.targetHandle)
+    const d = (e.data ?? {}) as LineData
+    const external = byId.get(e.source)!.type === 'leg' || byId.get(e.target)!.type === 'leg'
+    out.push(`<line x1="${a.x}" y1="${a.y}" x2="${b.x}" y2="${b.y}" stroke="${external ? PALETTE.ink : PALETTE.inkSoft}" stroke-width="${external ? 1.6 : 2}"${external ? '' : ' stroke-dasharray="6 4"'}/>`)
+    if (!external && d.helicity !== undefined) {
+      const th = d.targetHelicity ?? -d.helicity
+      const [l, r] = a.x <= b.x ? [d.helicity, th] : [th, d.helicity]
+      const mx = (a.x + b.x) / 2
+      const my = (a.y + b.y) / 2
+      out.push(`<rect x="${mx - 17}" y="${my - 10}" width="34" height="20" rx="10" fill="#fff" stroke="${PALETTE.inkSoft}"/>`)
+      out.push(`<text x="${mx}" y="${my + 4}" font-size="12" text-anchor="middle" fill="${PALETTE.ink}">${sign(l)}|${sign(r)}</text>`)
+    }
+  }
+  for (const n of nodes) {
+    const { width: w, height: h } = nodeSize(n)
+    const x = n.position.x + ox
+    const y = n.position.y + oy
+    if (n.type === 'leg') {
+      const d = n.data as unknown as LegData
+      const shifted = opts.shift && (opts.shift[0] === d.label || opts.shift[1] === d.label)
+      if (shifted) {
+        out.push(`<circle cx="${x + w - 2}" cy="${y + 2}" r="9" fill="${PALETTE.accent}" opacity="0.9"/>`)
+        out.push(`<text x="${x + w - 2}" y="${y + 6}" font-size="11" font-style="italic" text-anchor="middle" fill="#fff">z</text>`)
+      }
+      out.push(`<rect x="${x}" y="${y}" width="${w}" height="${h}" rx="${h / 2}" fill="#fff" stroke="${PALETTE.ink}" stroke-width="1.4"/>`)
+      out.push(`<text x="${x + w / 2}" y="${y + h / 2 + 5}" font-size="14" font-weight="700" text-anchor="middle" fill="${PALETTE.ink}">${d.label}${esc(sign(d.helicity))}</text>`)
+    }
+    else if (n.type === 'angle') {
+      const pts = chevronPoints(w, h).map(([px, py]) => `${x + px},${y + py}`).join(' ')
+      out.push(`<polygon points="${pts}" fill="${PALETTE.angle}" stroke="${PALETTE.angle}"/>`)
+      out.push(`<text x="${x + w / 2 + 2}" y="${y + h / 2 + 5}" font-size="15" font-weight="700" text-anchor="middle" fill="#fff">⟨⟩</text>`)
+    }
+    else if (n.type === 'square') {
+      out.push(`<rect x="${x}" y="${y}" width="${w}" height="${h}" fill="${PALETTE.square}"/>`)
+      out.push(`<text x="${x + w / 2}" y="${y + h / 2 + 5}" font-size="15" font-weight="700" text-anchor="middle" fill="#fff">[ ]</text>`)
+    }
+    else {
+      const d = n.data as unknown as BlockData
+      out.push(`<rect x="${x}" y="${y}" width="${w}" height="${h}" rx="12" fill="${PALETTE.blockLight}" stroke="${PALETTE.block}" stroke-width="1.6"/>`)
+      out.push(`<text x="${x + w / 2}" y="${y + 18}" font-size="12" font-weight="700" text-anchor="middle" fill="${PALETTE.block}">A${d.helicities.length}</text>`)
+      out.push(`<text x="${x + w / 2}" y="${y + 34}" font-size="12" text-anchor="middle" fill="${PALETTE.ink}">${esc(d.helicities.map(sign).join(' '))}</text>`)
+    }
+    for (const hl of n.type === 'leg' ? [] : handleLayout(n)) out.push(`<circle cx="${x + hl.x}" cy="${y + hl.y}" r="3" fill="${PALETTE.ink}"/>`)
+  }
+  out.push('</svg>')
+  return out.join('\n')
+}

@@ -1,0 +1,58 @@
+// Node sizes and handle positions, shared by the node components, the layout function and the
+// SVG export, so an exported picture matches the canvas.
+import type { EditorNode } from './types'
+import { handleCount } from './types'
+
+export const LEG_SIZE = { width: 46, height: 28 }
+export const ANGLE_SIZE = { width: 64, height: 48 }
+export const SQUARE_SIZE = { width: 52, height: 52 }
+export const BLOCK_WIDTH = 150
+export const BLOCK_ROW = 18
+
+export function blockHeight(k: number): number {
+  return 44 + Math.max(1, Math.ceil(k / 2)) * BLOCK_ROW
+}
+
+export function nodeSize(n: Pick<EditorNode, 'type' | 'data'>): { width: number, height: number } {
+  if (n.type === 'leg') return LEG_SIZE
+  if (n.type === 'block') return { width: BLOCK_WIDTH, height: blockHeight(handleCount(n as EditorNode)) }
+  return n.type === 'angle' ? ANGLE_SIZE : SQUARE_SIZE
+}
+
+/** The chevron outline of an angle vertex (points, relative to the node's top-left). */
+export function chevronPoints(w = ANGLE_SIZE.width, h = ANGLE_SIZE.height, notch = 14): [number, number][] {
+  return [[0, 0], [w - notch, 0], [w, h / 2], [w - notch, h], [0, h], [notch, h / 2]]
+}
+
+/**
+ * Handle offsets (relative to the node's top-left) and their side. Vertex slots h0, h1, h2 go
+ * around the node in cyclic order: left, upper right, lower right. Block slots: first half down
+ * the left side, the rest down the right side (so the cyclic order runs round the card).
+ */
+export function handleLayout(n: Pick<EditorNode, 'type' | 'data'>): { id: string, x: number, y: number, side: 'left' | 'right' | 'top' | 'bottom' }[] {
+  const { width: w, height: h } = nodeSize(n)
+  if (n.type === 'leg') return [{ id: 'p', x: w / 2, y: h / 2, side: 'right' }]
+  if (n.type === 'angle') {
+    return [
+      { id: 'h0', x: 14, y: h / 2, side: 'left' },
+      { id: 'h1', x: w - 7, y: h / 4, side: 'right' },
+      { id: 'h2', x: w - 7, y: (3 * h) / 4, side: 'right' },
+    ]
+  }
+  if (n.type === 'square') {
+    return [
+      { id: 'h0', x: 0, y: h / 2, side: 'left' },
+      { id: 'h1', x: w, y: h / 4, side: 'right' },
+      { id: 'h2', x: w, y: (3 * h) / 4, side: 'right' },
+    ]
+  }
+  const k = handleCount(n as EditorNode)
+  const left = Math.ceil(k / 2)
+  const out: { id: string, x: number, y: number, side: 'left' | 'right' }[] = []
+  for (let t = 0; t < k; t++) {
+    const onLeft = t < left
+    const row = onLeft ? t : k - 1 - t
+    out.push({ id: `h${t}`, x: onLeft ? 0 : w, y: 40 + row * BLOCK_ROW + BLOCK_ROW / 2, side: onLeft ? 'left' : 'right' })
+  }
+  return out
+}

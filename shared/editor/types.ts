@@ -1,0 +1,89 @@
+// The editor's node and edge data (what a Diagram's graph.nodes[].data and graph.edges[].data
+// hold). Framework-free so the store, the seed and the unit tests share it.
+import type { WireComplex, WireLeg } from '../schemas/evaluate'
+
+export type NodeKind = 'leg' | 'angle' | 'square' | 'block'
+
+/** Where a generated node sits in the term tree: component id and path of its sub-amplitude. */
+export interface Origin {
+  /** Component id (one connected term of the residue sum). */
+  comp?: string
+  /** Index of the top-level term of the expansion. */
+  term?: number
+  /** Path of the sub-amplitude in the term tree ("L", "R", "L.0.R", …). */
+  path?: string
+}
+
+export interface LegData extends Origin {
+  /** External leg label 1..n. */
+  label: number
+  /** Outgoing helicity. */
+  helicity: number
+}
+
+export interface VertexData extends Origin {
+  /** Leg names around the vertex in cyclic order (handles h0, h1, h2), from an expansion. */
+  legs?: string[]
+  value?: WireComplex
+}
+
+export interface BlockData extends Origin {
+  /** Helicity at each handle h0..h(k−1), in the block's leg order. */
+  helicities: number[]
+  legs?: string[]
+  /** Number of channel terms below (an expansion's sub-amplitude); 0 or absent: not expandable. */
+  terms?: number
+  shift?: [number, number]
+  value?: WireComplex
+}
+
+export interface LineData extends Origin {
+  /** Internal on-shell line: helicity at the source end (the target end carries −h unless set). */
+  helicity?: number
+  targetHelicity?: number
+  /** Line name from the term tree (L1, L2, …). */
+  line?: string
+  /** An attachment of an external leg (solid, no badge). */
+  external?: boolean
+}
+
+export interface EditorNode {
+  id: string
+  type: NodeKind
+  position: { x: number, y: number }
+  data: Record<string, unknown>
+}
+
+export interface EditorEdge {
+  id: string
+  source: string
+  target: string
+  sourceHandle?: string | null
+  targetHandle?: string | null
+  type?: string
+  data?: Record<string, unknown>
+}
+
+export const legName = (l: WireLeg): string => ('label' in l ? String(l.label) : l.line)
+
+export const sign = (h: number): string => (h > 0 ? '+' : h < 0 ? '−' : '0')
+
+/** "+2", "−1", "0": a helicity as people write it. */
+export function helicityText(h: number): string {
+  if (h === 0) return '0'
+  const a = Math.abs(h)
+  const mag = Number.isInteger(a) ? String(a) : `${2 * a}/2`
+  return `${h > 0 ? '+' : '−'}${a === 1 ? '' : mag}`
+}
+
+/** Number of handles of a node (vertex 3, block k, leg 1). */
+export function handleCount(n: EditorNode): number {
+  if (n.type === 'leg') return 1
+  if (n.type === 'block') return ((n.data as unknown as BlockData).helicities ?? []).length
+  return 3
+}
+
+export function handleIds(n: EditorNode): string[] {
+  if (n.type === 'leg') return ['p']
+  return Array.from({ length: handleCount(n) }, (_, t) => `h${t}`)
+}

@@ -1,0 +1,206 @@
+// Checks a hand-assembled (or generated) canvas node by node and says in words what is wrong,
+// on the node that is wrong. The rules are the trade's (CONVENTIONS.md "Amplitudes"):
+// a three-point vertex's helicities decide its kind (Σh < 0 angle, Σh > 0 square), pure gluon
+// and graviton theories have no all-equal three-point vertex, an internal line joins opposite
+// helicities, and momentum routing closes only on a tree holding every external leg once.
+import type { Process } from '../schemas/graph'
+import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
+import { handleIds, helicityText, sign } from './types'
+
+export interface Issue {
+  level: 'error' | 'warning'
+  message: string
+}
+
+export interface SlotInfo {
+  handle: string
+  edges: EditorEdge[]
+  /** Helicity arriving at this slot (outgoing from the node), or null if unknown/unconnected. */
+  helicity: number | null
+  /** What sits at the other end: a leg label, a line, or nothing. */
+  other: { kind: 'leg', label: number, nodeId: string } | { kind: 'line', nodeId: string, edgeId: string } | null
+}
+
+export interface Component {
+  id: string
+  nodeIds: string[]
+  legIds: string[]
+  labels: number[]
+  /** Internal lines (edges between vertices and blocks). */
+  lineIds: string[]
+  isTree: boolean
+}
+
+export interface Validation {
+  nodes: Record<string, Issue[]>
+  edges: Record<string, Issue[]>
+  components: Component[]
+  /** Slots of every vertex and block, by node id. */
+  slots: Record<string, SlotInfo[]>
+  errorCount: number
+}
+
+/** |h| of the process's particles, or null when no process is set. */
+export function particleSpin(p: Process | undefined): number | null {
+  if (!p) return null
+  if (p.theory === 'gluon') return 1
+  if (p.theory === 'graviton') return 2
+  if (p.theory === 'scalar-cubic') return 0
+  return p.spin ?? null
+}
+
+const THEORY_WORDS: Record<string, string> = { gluon: 'gluons', graviton: 'gravitons', 'scalar-cubic': 'cubic scalars', spin: 'this spin-s species' }
+
+/** The helicity an edge brings to the given end (node, handle). */
+export function helicityAt(edge: EditorEdge, nodeId: string, nodes: Map<string, EditorNode>): number | null {
+  const d = (edge.data ?? {}) as LineData
+  const otherId = edge.source === nodeId ? edge.target : edge.source
+  const other = nodes.get(otherId)
+  if (other?.type === 'leg') return (other.data as unknown as LegData).helicity
+  if (d.helicity === undefined) return null
+  if (edge.source === nodeId && edge.target !== nodeId) return d.helicity
+  return d.targetHelicity ?? -d.helicity
+}
+
+export function isExternal(edge: EditorEdge, nodes: Map<string, EditorNode>): boolean {
+  return nodes.get(edge.source)?.type === 'leg' || nodes.get(edge.target)?.type === 'leg'
+}
+
+export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], process?: Process): Validation {
+  const nodes = new Map(nodesIn.map(n => [n.id, n]))
+  const issues: Record<string, Issue[]> = {}
+  const edgeIssues: Record<string, Issue[]> = {}
+  const add = (id: string, level: Issue['level'], message: string) => { (issues[id] ??= []).push({ level, message }) }
+  const addEdge = (id: string, level: Issue['level'], message: string) => { (edgeIssues[id] ??= []).push({ level, message }) }
+  const s = particleSpin(process)
+  const n = process?.helicities.length ?? 0
+
+  // Edges at each (node, handle).
+  const at = new Map<string, EditorEdge[]>()
+  const key = (id: string, h: string | null | undefined) => `${id}\u0000${h ?? ''}`
+  for (const e of edges) {
+    if (!nodes.has(e.source) || !nodes.has(e.target)) continue
+    if (e.source === e.target) { add(e.source, 'error', 'a line from this node back to itself: glue two different nodes'); continue }
+    for (const [id, h] of [[e.source, e.sourceHandle], [e.target, e.targetHandle]] as const) {
+      const list = at.get(key(id, h)) ?? []
+      list.push(e)
+      at.set(key(id, h), list)
+    }
+    const a = nodes.get(e.source)!
+    const b = nodes.get(e.target)!
+    if (a.type === 'leg' && b.type === 'leg') addEdge(e.id, 'error', 'two legs joined directly: attach legs to a vertex or a block')
+    const d = (e.data ?? {}) as LineData
+    if (!isExternal(e, nodes) && d.helicity !== undefined) {
+      if (d.targetHelicity !== undefined && d.targetHelicity !== -d.helicity) {
+        const msg = `line ${d.line ?? ''} joins ${sign(d.helicity)} to ${sign(d.targetHelicity)}: an internal line joins opposite helicities`.replace('  ', ' ')
+        addEdge(e.id, 'error', msg)
+        add(e.target, 'error', msg)
+      }
+      if (s !== null && Math.abs(d.helicity) !== s) addEdge(e.id, 'error', `helicity ${helicityText(d.helicity)} on a line of ${THEORY_WORDS[process!.theory]}, whose helicities are ${s === 0 ? '0' : `±${s}`}`)
+    }
+  }
+
+  const slots: Record<string, SlotInfo[]> = {}
+  for (const node of nodesIn) {
+    if (node.type === 'leg') {
+      const d = node.data as unknown as LegData
+      const list = at.get(key(node.id, 'p')) ?? edges.filter(e => (e.source === node.id || e.target === node.id) && e.source !== e.target)
+      if (list.length === 0) add(node.id, 'error', `leg ${d.label} is not attached: connect it to a vertex or a block`)
+      if (list.length > 1) add(node.id, 'error', `leg ${d.label} is attached ${list.length} times: an external leg enters exactly one vertex`)
+      if (process) {
+        if (!Number.isInteger(d.label) || d.label < 1 || d.label > n) add(node.id, 'error', `leg ${d.label} does not exist (legs are 1..${n})`)
+        else if (process.helicities[d.label - 1] !== d.helicity) add(node.id, 'error', `leg ${d.label} is ${helicityText(d.helicity)} here but ${helicityText(process.helicities[d.label - 1]!)} in the process`)
+      }
+      if (s !== null && Math.abs(d.helicity) !== s) add(node.id, 'error', `helicity ${helicityText(d.helicity)} does not belong to ${THEORY_WORDS[process!.theory]} (${s === 0 ? '0' : `±${s}`})`)
+      continue
+    }
+    const info: SlotInfo[] = []
+    for (const h of handleIds(node)) {
+      const list = at.get(key(node.id, h)) ?? []
+      const first = list[0]
+      let other: SlotInfo['other'] = null
+      if (first) {
+        const oid = first.source === node.id ? first.target : first.source
+        const o = nodes.get(oid)!
+        other = o.type === 'leg' ? { kind: 'leg', label: (o.data as unknown as LegData).label, nodeId: oid } : { kind: 'line', nodeId: oid, edgeId: first.id }
+      }
+      info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other })
+    }
+    slots[node.id] = info
+    const open = info.filter(x => x.edges.length === 0).length
+    const crowded = info.filter(x => x.edges.length > 1)
+    const total = info.length
+    if (open) add(node.id, 'error', `${total - open} of ${total} ${node.type === 'block' ? 'legs' : 'slots'} connected: every slot takes one leg or line`)
+    for (const c of crowded) add(node.id, 'error', `slot ${Number(c.handle.slice(1)) + 1} has ${c.edges.length} connections: one leg or line per slot`)
+    const hs = info.map(x => x.helicity)
+    if (node.type === 'angle' || node.type === 'square') {
+      if (hs.every(h => h !== null)) {
+        const hv = hs as number[]
+        const sum = hv[0]! + hv[1]! + hv[2]!
+        const txt = `(${hv.map(sign).join(',')})`
+        const allSame = hv.every(h => h > 0) || hv.every(h => h < 0)
+        if (s !== null && s > 0 && allSame) add(node.id, 'error', `helicities ${txt}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
+        else if (sum < 0 && node.type === 'square') add(node.id, 'error', `helicities ${txt} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
+        else if (sum > 0 && node.type === 'angle') add(node.id, 'error', `helicities ${txt} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
+        else if (sum === 0 && s !== 0 && s !== null) add(node.id, 'error', `helicities ${txt} sum to 0: only scalars have such a vertex`)
+      }
+    }
+    else if (node.type === 'block') {
+      const want = (node.data as unknown as BlockData).helicities ?? []
+      info.forEach((x, t) => {
+        if (x.helicity !== null && want[t] !== undefined && x.helicity !== want[t])
+          add(node.id, 'error', `slot ${t + 1} expects ${helicityText(want[t]!)} but receives ${helicityText(x.helicity)}`)
+      })
+      if (want.length < 4) add(node.id, 'warning', `a block of ${want.length} legs: use a vertex for three-point amplitudes`)
+      if (s !== null && s > 0 && want.length >= 4) {
+        const minus = want.filter(h => h < 0).length
+        if (minus < 2 || want.length - minus < 2) add(node.id, 'warning', `this block vanishes at tree level (${minus < 2 ? 'fewer than two −' : 'fewer than two +'} helicities)`)
+      }
+    }
+  }
+
+  // Connected components: momentum routing closes on a tree holding every leg once.
+  const parent = new Map<string, string>(nodesIn.map(x => [x.id, x.id]))
+  const find = (x: string): string => {
+    let r = x
+    while (parent.get(r) !== r) r = parent.get(r)!
+    parent.set(x, r)
+    return r
+  }
+  const validEdges = edges.filter(e => nodes.has(e.source) && nodes.has(e.target) && e.source !== e.target)
+  for (const e of validEdges) parent.set(find(e.source), find(e.target))
+  const groups = new Map<string, string[]>()
+  for (const x of nodesIn) {
+    const r = find(x.id)
+    const g = groups.get(r) ?? []
+    g.push(x.id)
+    groups.set(r, g)
+  }
+  const edgeCount = new Map<string, number>()
+  for (const e of validEdges) edgeCount.set(find(e.source), (edgeCount.get(find(e.source)) ?? 0) + 1)
+  const components: Component[] = []
+  for (const [root, ids] of groups) {
+    const legIds = ids.filter(id => nodes.get(id)!.type === 'leg')
+    const inner = ids.filter(id => nodes.get(id)!.type !== 'leg')
+    const labels = legIds.map(id => (nodes.get(id)!.data as unknown as LegData).label)
+    const lineIds = validEdges.filter(e => find(e.source) === root && !isExternal(e, nodes)).map(e => e.id)
+    const isTree = (edgeCount.get(root) ?? 0) === ids.length - 1
+    components.push({ id: inner[0] ?? ids[0]!, nodeIds: ids, legIds, labels, lineIds, isTree })
+    if (!inner.length) continue
+    const anchor = inner[0]!
+    if (!isTree) add(anchor, 'error', 'a closed loop of lines: a tree-level term has no loops, so momentum routing cannot be fixed')
+    const seen = new Map<number, string>()
+    for (const id of legIds) {
+      const l = (nodes.get(id)!.data as unknown as LegData).label
+      if (seen.has(l)) add(id, 'error', `leg ${l} appears twice in this term`)
+      seen.set(l, id)
+    }
+    if (process) {
+      const missing = Array.from({ length: n }, (_, t) => t + 1).filter(l => !seen.has(l))
+      if (missing.length) add(anchor, 'error', `momentum does not close: leg${missing.length > 1 ? 's' : ''} ${missing.join(', ')} of the process ${missing.length > 1 ? 'are' : 'is'} missing from this term`)
+    }
+  }
+  let errorCount = 0
+  for (const list of [...Object.values(issues), ...Object.values(edgeIssues)]) errorCount += list.filter(i => i.level === 'error').length
+  return { nodes: issues, edges: edgeIssues, components, slots, errorCount }
+}

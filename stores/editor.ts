@@ -1,0 +1,454 @@
+// The editor's browser-only state (STYLE.md: Pinia for what lives only in the browser): the graph
+// being edited, selection, the undo/redo stack and the unsaved draft in localStorage. Server calls
+// stay in the page; the store only takes their results, so it is unit-tested in node.
+import { defineStore } from 'pinia'
+import { computed, ref, shallowRef } from 'vue'
+import type { Graph, Process } from '~~/shared/schemas/graph'
+import { GRAPH_SCHEMA_VERSION } from '~~/shared/schemas/graph'
+import type { EvaluateResponse, WireTerm } from '~~/shared/schemas/evaluate'
+import type { BlockData, EditorEdge, EditorNode, LegData, LineData, NodeKind } from '~~/shared/editor/types'
+import { validateGraph, particleSpin } from '~~/shared/editor/validate'
+import { blockPaths, collapseSpec, compId, expandAllSpecs, expandSpec, specsToGraph, topSpecs, type CompSpec } from '~~/shared/editor/expand'
+import { labelMap, matchTerms, processKey } from '~~/shared/editor/process'
+import { layoutGraph } from '~~/composables/useLayout'
+
+export interface Expansion {
+  /** processKey() of the process it was made for. */
+  key: string
+  seed: string
+  specs: CompSpec[]
+}
+
+interface Snapshot { process?: Process, nodes: EditorNode[], edges: EditorEdge[], expansion: Expansion | null, title: string }
+
+export interface DiagramDoc { id: number, projectId: number, title: string, graph: Graph, version: number, role?: 'owner' | 'editor' | 'viewer' }
+
+export interface Draft { baseVersion: number, title: string, graph: Graph, savedAt: number }
+
+const UNDO_LIMIT = 200
+export const draftKey = (id: number) => `polewright:draft:${id}`
+
+function storage(): Storage | null {
+  try {
+    return typeof window !== 'undefined' && window.localStorage ? window.localStorage : null
+  }
+  catch {
+    return null
+  }
+}
+
+let seq = 0
+const newId = (prefix: string) => `${prefix}${Date.now().toString(36)}${(seq++).toString(36)}`
+
+export const useEditorStore = defineStore('editor', () => {
+  const diagramId = ref<number | null>(null)
+  const projectId = ref<number | null>(null)
+  const title = ref('')
+  const version = ref(0)
+  const role = ref<'owner' | 'editor' | 'viewer'>('viewer')
+  const process = ref<Process | undefined>()
+  const settings = ref<Record<string, unknown>>({})
+  const nodes = shallowRef<EditorNode[]>([])
+  const edges = shallowRef<EditorEdge[]>([])
+  const expansion = ref<Expansion | null>(null)
+  /** The term tree of the expansion (not saved; fetched again when needed). */
+  const tree = shallowRef<WireTerm[] | null>(null)
+  const selection = ref<string[]>([])
+  const selectedEdges = ref<string[]>([])
+  const undoStack = shallowRef<string[]>([])
+  const redoStack = shallowRef<string[]>([])
+  /** JSON of the last saved or loaded document, to tell whether there are unsaved changes. */
+  const savedJson = ref('')
+  const result = shallowRef<EvaluateResponse | null>(null)
+  /** The process the result was computed for (key), to mark stale results. */
+  const resultKey = ref<string | null>(null)
+  const highlightTerm = ref<number | null>(null)
+  /** Two-click shift picking: the first leg label chosen, or null. */
+  const shiftPick = ref<number | null>(null)
+  const pickingShift = ref(false)
+
+  const readOnly = computed(() => role.value === 'viewer')
+  const validation = computed(() => validateGraph(nodes.value, edges.value, process.value))
+  const nodeById = computed(() => new Map(nodes.value.map(n => [n.id, n])))
+  const expansionStale = computed(() => !!expansion.value && !!process.value && expansion.value.key !== processKey(process.value))
+
+  /** Top-level term index → component ids on the canvas that realise it. */
+  const termComponents = computed(() => {
+    const r = result.value
+    const p = process.value
+    if (!r || !p) return new Map<number, string[]>()
+    return matchTerms(p, r.terms, validation.value.components, nodes.value, edges.value, expansion.value?.key ?? null)
+  })
+
+  /** Node ids highlighted for the hovered term. */
+  const highlighted = computed(() => {
+    const k = highlightTerm.value
+    if (k === null) return new Set<string>()
+    const comps = new Set(termComponents.value.get(k) ?? [])
+    const out = new Set<string>()
+    for (const c of validation.value.components) if (comps.has(c.id)) for (const id of c.nodeIds) out.add(id)
+    return out
+  })
+
+  function toGraph(): Graph {
+    const s = { ...settings.value }
+    if (expansion.value) s.expansion = expansion.value
+    else delete s.expansion
+    return {
+      schemaVersion: GRAPH_SCHEMA_VERSION,
+      ...(process.value ? { process: process.value } : {}),
+      settings: s,
+      nodes: nodes.value.map(n => ({ id: n.id, type: n.type, position: { x: n.position.x, y: n.position.y }, data: n.data })),
+      edges: edges.value.map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, type: e.type ?? 'line', data: e.data ?? {} })),
+    }
+  }
+
+  const docJson = () => JSON.stringify({ title: title.value, graph: toGraph() })
+  const dirty = computed(() => {
+    void nodes.value
+    void edges.value
+    void process.value
+    void title.value
+    void expansion.value
+    return docJson() !== savedJson.value
+  })
+
+  function setGraph(g: Graph) {
+    process.value = g.process ? structuredClone(g.process) : undefined
+    const s = { ...(g.settings ?? {}) }
+    const exp = s.expansion as Expansion | undefined
+    delete s.expansion
+    settings.value = s
+    expansion.value = exp && Array.isArray(exp.specs) ? exp : null
+    nodes.value = (g.nodes ?? []).map(n => ({ id: n.id, type: n.type, position: { ...n.position }, data: { ...(n.data ?? {}) } }))
+    edges.value = (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, type: e.type ?? 'line', data: { ...(e.data ?? {}) } }))
+  }
+
+  function load(doc: DiagramDoc) {
+    diagramId.value = doc.id
+    projectId.value = doc.projectId
+    title.value = doc.title
+    version.value = doc.version
+    role.value = doc.role ?? 'viewer'
+    setGraph(doc.graph)
+    tree.value = null
+    result.value = null
+    resultKey.value = null
+    selection.value = []
+    selectedEdges.value = []
+    undoStack.value = []
+    redoStack.value = []
+    savedJson.value = docJson()
+  }
+
+  /** After a successful save: the server's version becomes the base; the draft is dropped. */
+  function markSaved(doc: { version: number, title?: string }) {
+    version.value = doc.version
+    if (doc.title !== undefined) title.value = doc.title
+    savedJson.value = docJson()
+    clearDraft()
+  }
+
+  const snap = (): string => JSON.stringify({ process: process.value, nodes: nodes.value, edges: edges.value, expansion: expansion.value, title: title.value } satisfies Snapshot)
+  function restore(json: string) {
+    const s = JSON.parse(json) as Snapshot
+    process.value = s.process
+    nodes.value = s.nodes
+    edges.value = s.edges
+    expansion.value = s.expansion
+    title.value = s.title
+    const ids = new Set(s.nodes.map(n => n.id))
+    selection.value = selection.value.filter(id => ids.has(id))
+  }
+
+  /** Every change goes through here: one undo step, redo cleared, draft written. */
+  function commit(change: () => void) {
+    if (readOnly.value) return
+    const before = snap()
+    change()
+    if (snap() === before) return
+    undoStack.value = [...undoStack.value.slice(-(UNDO_LIMIT - 1)), before]
+    redoStack.value = []
+    writeDraft()
+  }
+  function undo() {
+    const prev = undoStack.value.at(-1)
+    if (prev === undefined || readOnly.value) return
+    redoStack.value = [...redoStack.value, snap()]
+    undoStack.value = undoStack.value.slice(0, -1)
+    restore(prev)
+    writeDraft()
+  }
+  function redo() {
+    const next = redoStack.value.at(-1)
+    if (next === undefined || readOnly.value) return
+    undoStack.value = [...undoStack.value, snap()]
+    redoStack.value = redoStack.value.slice(0, -1)
+    restore(next)
+    writeDraft()
+  }
+
+  // ---- the process ----
+  function setProcess(p: Process | undefined) {
+    commit(() => { process.value = p ? structuredClone(p) : undefined })
+  }
+  function setShift(shift: [number, number] | undefined) {
+    if (!process.value) return
+    commit(() => {
+      const p = { ...process.value! }
+      if (shift) p.shift = shift
+      else delete p.shift
+      process.value = p
+    })
+  }
+  function setTitle(t: string) {
+    commit(() => { title.value = t })
+  }
+  /** Click-two-legs shift picking: first click i, second click j. */
+  function pickLeg(label: number) {
+    if (!pickingShift.value) return
+    if (shiftPick.value === null) { shiftPick.value = label; return }
+    if (shiftPick.value !== label) setShift([shiftPick.value, label])
+    shiftPick.value = null
+    pickingShift.value = false
+  }
+
+  // ---- hand assembly ----
+  function addNode(type: NodeKind, position: { x: number, y: number }, data?: Record<string, unknown>): string {
+    const id = newId(type === 'leg' ? 'l' : type === 'block' ? 'b' : 'v')
+    let d = data
+    if (!d) {
+      const s = particleSpin(process.value) ?? 1
+      if (type === 'leg') {
+        const used = new Set(nodes.value.filter(n => n.type === 'leg').map(n => (n.data as unknown as LegData).label))
+        let label = 1
+        while (used.has(label)) label++
+        const h = process.value?.helicities[label - 1] ?? (label <= 2 ? -s : s)
+        d = { label, helicity: h } satisfies LegData
+      }
+      else if (type === 'block') d = { helicities: [-s, -s, s, s] } satisfies BlockData
+      else d = {}
+    }
+    commit(() => { nodes.value = [...nodes.value, { id, type, position: { ...position }, data: d! }] })
+    return id
+  }
+
+  /** Glues two handles. An internal line gets the helicity that fits the source vertex if it can tell, else +s. */
+  function connect(c: { source: string, target: string, sourceHandle?: string | null, targetHandle?: string | null }): string | null {
+    if (c.source === c.target) return null
+    const a = nodeById.value.get(c.source)
+    const b = nodeById.value.get(c.target)
+    if (!a || !b) return null
+    const dup = edges.value.some(e => (e.source === c.source && e.sourceHandle === c.sourceHandle && e.target === c.target && e.targetHandle === c.targetHandle)
+      || (e.source === c.target && e.sourceHandle === c.targetHandle && e.target === c.source && e.targetHandle === c.sourceHandle))
+    if (dup) return null
+    // Keep the leg as the source of an attachment.
+    const swap = b.type === 'leg' && a.type !== 'leg'
+    const src = swap ? { id: c.target, h: c.targetHandle } : { id: c.source, h: c.sourceHandle }
+    const dst = swap ? { id: c.source, h: c.sourceHandle } : { id: c.target, h: c.targetHandle }
+    const external = a.type === 'leg' || b.type === 'leg'
+    const s = particleSpin(process.value) ?? 1
+    let data: LineData
+    if (external) data = { external: true }
+    else {
+      const srcNode = nodeById.value.get(src.id)!
+      let h = s
+      if (srcNode.type === 'block') {
+        const k = Number((src.h ?? 'h0').slice(1))
+        h = (srcNode.data as unknown as BlockData).helicities[k] ?? s
+      }
+      else {
+        const known = (validation.value.slots[src.id] ?? []).filter(x => x.handle !== src.h && x.helicity !== null).map(x => x.helicity!)
+        if (known.length === 2) {
+          // Choose the helicity that makes the vertex's kind consistent with its shape.
+          const want = srcNode.type === 'angle' ? -1 : 1
+          h = [s, -s].find(x => Math.sign(known[0]! + known[1]! + x) === want && !(Math.abs(known[0]! + known[1]! + x) === 3 * s && s > 0)) ?? s
+        }
+      }
+      data = { helicity: h }
+    }
+    const id = newId('e')
+    commit(() => {
+      edges.value = [...edges.value, { id, source: src.id, target: dst.id, sourceHandle: src.h ?? null, targetHandle: dst.h ?? null, type: 'line', data: data as unknown as Record<string, unknown> }]
+    })
+    return id
+  }
+
+  function updateNodeData(id: string, patch: Record<string, unknown>) {
+    commit(() => { nodes.value = nodes.value.map(n => (n.id === id ? { ...n, data: { ...n.data, ...patch } } : n)) })
+  }
+  function setNodeType(id: string, type: NodeKind) {
+    commit(() => { nodes.value = nodes.value.map(n => (n.id === id ? { ...n, type } : n)) })
+  }
+  function updateEdgeData(id: string, patch: Record<string, unknown>) {
+    commit(() => { edges.value = edges.value.map(e => (e.id === id ? { ...e, data: { ...e.data, ...patch } } : e)) })
+  }
+  /** Flips a line's helicity: both ends change sign (they stay opposite). */
+  function flipLine(id: string) {
+    const e = edges.value.find(x => x.id === id)
+    const d = (e?.data ?? {}) as LineData
+    if (!e || d.external || d.helicity === undefined) return
+    updateEdgeData(id, { helicity: -d.helicity, targetHelicity: -(d.targetHelicity ?? -d.helicity) })
+  }
+  function moveNodes(pos: Record<string, { x: number, y: number }>) {
+    commit(() => { nodes.value = nodes.value.map(n => (pos[n.id] ? { ...n, position: { ...pos[n.id]! } } : n)) })
+  }
+  function removeIds(nodeIds: string[], edgeIds: string[] = []) {
+    const ns = new Set(nodeIds)
+    const es = new Set(edgeIds)
+    if (!ns.size && !es.size) return
+    commit(() => {
+      nodes.value = nodes.value.filter(n => !ns.has(n.id))
+      edges.value = edges.value.filter(e => !es.has(e.id) && !ns.has(e.source) && !ns.has(e.target))
+    })
+    selection.value = selection.value.filter(id => !ns.has(id))
+    selectedEdges.value = selectedEdges.value.filter(id => !es.has(id))
+  }
+  function removeSelected() {
+    removeIds(selection.value, selectedEdges.value)
+  }
+  function clearCanvas() {
+    commit(() => {
+      nodes.value = []
+      edges.value = []
+      expansion.value = null
+    })
+  }
+  function tidy() {
+    commit(() => { nodes.value = layoutGraph(nodes.value, edges.value) })
+  }
+
+  // ---- expansion ----
+  function rebuild(specs: CompSpec[]) {
+    if (!tree.value || !process.value) return
+    const g = specsToGraph(tree.value, specs, labelMap(process.value))
+    nodes.value = layoutGraph(g.nodes, g.edges)
+    edges.value = g.edges
+    expansion.value = { key: processKey(process.value), seed: expansion.value?.seed ?? 'structure', specs }
+  }
+  /**
+   * Takes the term tree of the process (POST /api/evaluate with tree: true) and lays out its
+   * channel terms. `shift` is the one the server used, in the diagram's labels.
+   */
+  function applyExpansion(terms: WireTerm[], shift: [number, number], seed: string, full = false) {
+    if (!process.value) return
+    commit(() => {
+      process.value = { ...process.value!, shift }
+      tree.value = terms
+      expansion.value = { key: processKey(process.value), seed, specs: [] }
+      rebuild(full ? expandAllSpecs(terms, topSpecs(terms)) : topSpecs(terms))
+    })
+  }
+  /** A tree fetched again for a saved expansion (after a reload). */
+  function setTree(terms: WireTerm[]) {
+    tree.value = terms
+  }
+  function specOfNode(id: string): { spec: CompSpec, path: string } | null {
+    const n = nodeById.value.get(id)
+    const d = n?.data as { comp?: string, path?: string } | undefined
+    if (!d?.comp || !expansion.value) return null
+    const spec = expansion.value.specs.find(s => compId(s) === d.comp)
+    return spec ? { spec, path: d.path ?? '' } : null
+  }
+  function canExpand(id: string): boolean {
+    const n = nodeById.value.get(id)
+    return n?.type === 'block' && !!specOfNode(id) && ((n.data as unknown as BlockData).terms ?? 0) > 0 && !expansionStale.value
+  }
+  function expandBlock(id: string): boolean {
+    const at = specOfNode(id)
+    if (!at || !tree.value || !expansion.value || !canExpand(id)) return false
+    commit(() => rebuild(expandSpec(tree.value!, expansion.value!.specs, at.spec, at.path)))
+    return true
+  }
+  /** The innermost expanded sub-amplitude above a node (what collapsing it folds back). */
+  function collapsiblePath(id: string): string | null {
+    const at = specOfNode(id)
+    if (!at) return null
+    const paths = Object.keys(at.spec.choices).filter(p => at.path.startsWith(`${p}.`)).sort((a, b) => b.length - a.length)
+    return paths[0] ?? null
+  }
+  function collapseAt(id: string): boolean {
+    const at = specOfNode(id)
+    const path = collapsiblePath(id)
+    if (!at || path === null || !tree.value || !expansion.value) return false
+    commit(() => rebuild(collapseSpec(expansion.value!.specs, at.spec, path)))
+    return true
+  }
+  function expandAll(): boolean {
+    if (!tree.value || !expansion.value || expansionStale.value) return false
+    if (!expansion.value.specs.some(s => blockPaths(tree.value!, s).length)) return false
+    commit(() => rebuild(expandAllSpecs(tree.value!, expansion.value!.specs)))
+    return true
+  }
+
+  // ---- results ----
+  function setResult(r: EvaluateResponse | null) {
+    result.value = r
+    resultKey.value = r && process.value ? processKey(process.value) : null
+  }
+
+  // ---- selection ----
+  function select(nodeIds: string[], edgeIds: string[] = []) {
+    selection.value = nodeIds
+    selectedEdges.value = edgeIds
+  }
+
+  // ---- draft ----
+  let draftTimer: ReturnType<typeof setTimeout> | null = null
+  function writeDraft(now = false) {
+    const st = storage()
+    if (!st || diagramId.value === null || readOnly.value) return
+    const id = diagramId.value
+    const write = () => {
+      draftTimer = null
+      if (!dirty.value) { st.removeItem(draftKey(id)); return }
+      const d: Draft = { baseVersion: version.value, title: title.value, graph: toGraph(), savedAt: Date.now() }
+      try {
+        st.setItem(draftKey(id), JSON.stringify(d))
+      }
+      catch { /* storage full: the canvas still holds the work */ }
+    }
+    if (draftTimer) clearTimeout(draftTimer)
+    if (now) write()
+    else draftTimer = setTimeout(write, 400)
+  }
+  function readDraft(id: number): Draft | null {
+    const raw = storage()?.getItem(draftKey(id))
+    if (!raw) return null
+    try {
+      const d = JSON.parse(raw) as Draft
+      return d && d.graph && Array.isArray(d.graph.nodes) ? d : null
+    }
+    catch {
+      return null
+    }
+  }
+  function applyDraft(d: Draft) {
+    commit(() => {
+      title.value = d.title
+      setGraph(d.graph)
+    })
+  }
+  function clearDraft() {
+    if (draftTimer) { clearTimeout(draftTimer); draftTimer = null }
+    if (diagramId.value !== null) storage()?.removeItem(draftKey(diagramId.value))
+  }
+  /** Replace the canvas with another document (a revision, an import), as one undoable step. */
+  function replaceGraph(g: Graph, t?: string) {
+    commit(() => {
+      setGraph(g)
+      if (t !== undefined) title.value = t
+    })
+    tree.value = null
+  }
+
+  return {
+    diagramId, projectId, title, version, role, process, settings, nodes, edges, expansion, tree, selection, selectedEdges,
+    undoStack, redoStack, result, resultKey, highlightTerm, shiftPick, pickingShift,
+    readOnly, validation, nodeById, expansionStale, termComponents, highlighted, dirty,
+    toGraph, load, markSaved, commit, undo, redo, setProcess, setShift, setTitle, pickLeg,
+    addNode, connect, updateNodeData, setNodeType, updateEdgeData, flipLine, moveNodes, removeIds, removeSelected, clearCanvas, tidy,
+    applyExpansion, setTree, canExpand, expandBlock, collapsiblePath, collapseAt, expandAll, specOfNode,
+    setResult, select, writeDraft, readDraft, applyDraft, clearDraft, replaceGraph,
+  }
+})
