@@ -39,7 +39,10 @@ export default defineNuxtConfig({
       maxAge: 60 * 60 * 24 * 14,
     },
   },
+  // The exact arithmetic uses BigInt literals.
+  vite: { build: { target: 'es2022' }, esbuild: { target: 'es2022' }, optimizeDeps: { esbuildOptions: { target: 'es2022' } } },
   nitro: {
+    esbuild: { options: { target: 'es2022' } },
     output: process.env.NUXT_OUTPUT_DIR ? { dir: process.env.NUXT_OUTPUT_DIR } : undefined,
     experimental: { tasks: false },
   },
