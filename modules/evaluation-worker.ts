@@ -1,0 +1,57 @@
+// Bundles the evaluation worker (server/workers/evaluate.ts with the whole engine) into its own
+// file: Nitro bundles server code into chunks, but a worker thread needs a file to start from.
+// Build: <server output>/workers/evaluate.mjs, found by server/utils/pool.ts next to index.mjs.
+// Dev: <buildDir>/workers/evaluate.mjs, rebuilt on change, its path in runtimeConfig.
+import { existsSync, cpSync, mkdirSync } from 'node:fs'
+import { createRequire } from 'node:module'
+import { dirname, join, resolve } from 'node:path'
+import { build, context, type BuildOptions } from 'esbuild'
+import { defineNuxtModule } from '@nuxt/kit'
+
+export default defineNuxtModule({
+  meta: { name: 'polewright-evaluation-worker' },
+  setup(_options, nuxt) {
+    const entry = resolve(nuxt.options.rootDir, 'server/workers/evaluate.ts')
+    const options = (outfile: string): BuildOptions => ({
+      entryPoints: [entry],
+      outfile,
+      bundle: true,
+      platform: 'node',
+      format: 'esm',
+      target: 'node20',
+      logLevel: 'warning',
+      // CommonJS dependencies (complex.js, fraction.js, seedrandom, mathjs) may call require().
+      banner: { js: "import { createRequire as __pwRequire } from 'node:module'; const require = __pwRequire(import.meta.url);" },
+    })
+
+    if (nuxt.options.dev) {
+      const outfile = join(nuxt.options.buildDir, 'workers/evaluate.mjs')
+      nuxt.options.runtimeConfig.evaluationWorker = outfile
+      let dispose: (() => Promise<void>) | undefined
+      nuxt.hook('nitro:build:before', async () => {
+        if (dispose) return
+        const ctx = await context(options(outfile))
+        await ctx.rebuild()
+        await ctx.watch()
+        dispose = () => ctx.dispose()
+      })
+      nuxt.hook('close', async () => dispose?.())
+      return
+    }
+
+    nuxt.hook('nitro:init', (nitro) => {
+      nitro.hooks.hook('compiled', async () => {
+        if (nitro.options.dev) return
+        const serverDir = nitro.options.output.serverDir
+        await build(options(join(serverDir, 'workers/evaluate.mjs')))
+        // tinypool starts its threads from its own dist/entry/worker.js, which file tracing misses.
+        const traced = join(serverDir, 'node_modules/tinypool')
+        if (existsSync(traced) && !existsSync(join(traced, 'dist/entry/worker.js'))) {
+          const source = dirname(createRequire(join(nuxt.options.rootDir, 'package.json')).resolve('tinypool/package.json'))
+          mkdirSync(join(traced, 'dist'), { recursive: true })
+          cpSync(join(source, 'dist'), join(traced, 'dist'), { recursive: true })
+        }
+      })
+    })
+  },
+})

@@ -1,0 +1,70 @@
+// Request bodies of the evaluation service's routes beside POST /api/evaluate (whose body is
+// EvaluateRequestSchema): stored checks, the shift table and the cross-shift check. Used by the
+// routes, the pages and the API docs page.
+import { z } from 'zod'
+import { EvaluateRequestSchema, KinematicsSchema, TheoryEnum } from './evaluate'
+
+/** The largest n for which every shift's falloff is measured exactly (`measure: true`). */
+export const SHIFTS_MEASURE_LIMIT = 8
+
+export const ProcessRequestSchema = z.object({
+  theory: TheoryEnum,
+  spin: z.number().optional(),
+  helicities: z.array(z.number()).min(1).max(64),
+})
+
+/** POST /api/shifts: every [i,j⟩ shift with its falloff exponent and validity. */
+export const ShiftsRequestSchema = ProcessRequestSchema.extend({
+  /** true: measure every exponent exactly (n ≤ SHIFTS_MEASURE_LIMIT); false: CONVENTIONS.md's table. */
+  measure: z.boolean().default(false),
+})
+
+/** POST /api/cross-shift: the same amplitude under every [i,j⟩ shift at one point. */
+export const CrossShiftRequestSchema = ProcessRequestSchema.extend({
+  kinematics: KinematicsSchema.optional(),
+  arithmetic: z.enum(['float', 'exact']).default('float'),
+})
+
+/** POST /api/diagrams/:id/checks: the point and options; the process comes from the diagram. */
+export const CheckRunSchema = EvaluateRequestSchema.pick({ kinematics: true, target: true, arithmetic: true, probeFalloff: true, tree: true })
+
+export type ShiftsRequest = z.output<typeof ShiftsRequestSchema>
+export type CrossShiftRequest = z.output<typeof CrossShiftRequestSchema>
+export type CheckRun = z.output<typeof CheckRunSchema>
+
+export interface ShiftRow {
+  /** 1-based [i, j⟩. */
+  shift: [number, number]
+  /** The large-z exponent k of |A(z)| ~ |z|^k; null where neither the table nor a probe gives one. */
+  exponent: number | null
+  valid: boolean
+  /** Where the exponent comes from. */
+  source: 'table' | 'measured'
+}
+
+export interface ShiftsResponse {
+  theory: string
+  spin?: number
+  n: number
+  helicities: number[]
+  /** The shift POST /api/evaluate uses when none is given. */
+  defaultShift: [number, number]
+  rows: ShiftRow[]
+  ms: number
+}
+
+export interface CrossShiftResponse {
+  theory: string
+  spin?: number
+  n: number
+  arithmetic: 'float' | 'exact'
+  rows: { shift: [number, number]; valid: boolean; value: [number, number] | [string, string] | null }[]
+  /** max |v_a − v_b| / max |v| over the valid shifts (0 with fewer than two). */
+  spread: number
+  /** Every valid shift gives the same value (exactly in exact arithmetic, within the float tolerance otherwise). */
+  agree: boolean
+  tolerance: number | null
+  kinematics: { lambda: unknown[]; lambdaTilde: unknown[] }
+  warnings: string[]
+  ms: number
+}
