@@ -9,5 +9,5 @@ export default defineConfig({
   dialect: 'sqlite',
   schema: './db/schema.ts',
   out: './db/migrations',
-  dbCredentials: { url, authToken: process.env.DATABASE_AUTH_TOKEN },
+  dbCredentials: { url },
 })
