@@ -42,6 +42,14 @@ export const matrix: RouteAccess[] = [
   { file: 'diagrams/[id]/revisions/[version].get.ts', access: 'viewer', scope: 'diagram' },
   { file: 'admin/users/index.get.ts', access: 'admin', scope: 'none' },
   { file: 'admin/users/[id].patch.ts', access: 'admin', scope: 'none', body: {} },
+  // Evaluation service (issue 4).
+  { file: 'evaluate.post.ts', access: 'user', scope: 'none', body: {} },
+  { file: 'catalogue.get.ts', access: 'user', scope: 'none' },
+  { file: 'shifts.post.ts', access: 'user', scope: 'none', body: {} },
+  { file: 'cross-shift.post.ts', access: 'user', scope: 'none', body: {} },
+  { file: 'diagrams/[id]/checks/index.post.ts', access: 'editor', scope: 'diagram', body: {} },
+  { file: 'diagrams/[id]/checks/index.get.ts', access: 'viewer', scope: 'diagram' },
+  { file: 'checks/[id]/index.get.ts', access: 'viewer', scope: 'check' },
   // Collaboration (issue 7). Token and invitation ids in these paths name nothing, so the
   // allowed call would be a correct 404: tests/api/collab*.test.ts cover the allowed cases.
   { file: 'admin/outbox.get.ts', access: 'admin', scope: 'none' },
@@ -61,6 +69,23 @@ export const matrix: RouteAccess[] = [
   { file: 'tokens/index.get.ts', access: 'user', scope: 'none' },
   { file: 'tokens/index.post.ts', access: 'user', scope: 'none', body: {} },
   { file: 'tokens/[id].delete.ts', access: 'user', scope: 'none', skipAllowed: true },
+  // Point sets and batch checks (issue 6).
+  { file: 'projects/[id]/point-sets/index.get.ts', access: 'viewer', scope: 'project' },
+  { file: 'projects/[id]/point-sets/index.post.ts', access: 'editor', scope: 'project', body: {} },
+  { file: 'projects/[id]/point-sets/generate.post.ts', access: 'editor', scope: 'project', body: {} },
+  { file: 'point-sets/[id]/index.get.ts', access: 'viewer', scope: 'point-set' },
+  { file: 'point-sets/[id]/index.delete.ts', access: 'editor', scope: 'point-set' },
+  { file: 'point-sets/[id]/points.get.ts', access: 'viewer', scope: 'point-set' },
+  { file: 'point-sets/[id]/export.get.ts', access: 'viewer', scope: 'point-set' },
+  { file: 'point-sets/[id]/batch-checks.get.ts', access: 'viewer', scope: 'point-set' },
+  { file: 'diagrams/[id]/batch-checks/index.get.ts', access: 'viewer', scope: 'diagram' },
+  { file: 'diagrams/[id]/batch-checks/index.post.ts', access: 'editor', scope: 'diagram', body: {} },
+  { file: 'batch-checks/[id]/index.get.ts', access: 'viewer', scope: 'check' },
+  { file: 'batch-checks/[id]/events.get.ts', access: 'viewer', scope: 'check' },
+  { file: 'batch-checks/[id]/cancel.post.ts', access: 'editor', scope: 'check' },
+  { file: 'checks/[id]/points.get.ts', access: 'viewer', scope: 'check' },
+  { file: 'checks/[id]/points.csv.get.ts', access: 'viewer', scope: 'check' },
+  { file: 'checks/[id]/points.json.get.ts', access: 'viewer', scope: 'check' },
 ]
 
 /** Turns a route file into a request path and method for the given fixture ids. */
@@ -80,3 +105,19 @@ export function requestFor(route: RouteAccess, ids: Ids): { method: string, path
 
 /** Extra fixtures later features need (a check, a point set), created by an owner client. */
 export const fixtureMakers: ((owner: Client, ids: Ids) => Promise<void>)[] = []
+
+// Evaluation service (issue 4): a stored check on ids.diagram, after saving a process into its graph.
+fixtureMakers.push(async (owner, ids) => {
+  const diagram = (await owner.get(`/api/diagrams/${ids.diagram}`)).body
+  await owner.put(`/api/diagrams/${ids.diagram}`, { version: diagram.version, graph: { ...diagram.graph, process: { theory: 'gluon', helicities: [-1, -1, 1, 1] } } })
+  const check = await owner.post(`/api/diagrams/${ids.diagram}/checks`, { kinematics: { kind: 'random', seed: 1 } })
+  if (check.status !== 201) throw new Error(`check fixture: ${check.status} ${JSON.stringify(check.body)}`)
+  ids.check = check.body.id
+})
+
+// Point sets (issue 6): a small generated set in the fixture project (ids.pointSet).
+fixtureMakers.push(async (owner, ids) => {
+  const set = await owner.post(`/api/projects/${ids.project}/point-sets/generate`, { kind: 'physical', n: 4, count: 3, seed: 1 })
+  if (set.status !== 201) throw new Error(`point-set fixture: ${set.status} ${JSON.stringify(set.body)}`)
+  ids.pointSet = set.body.id
+})
