@@ -2,7 +2,7 @@
 // orientation of CONVENTIONS.md "BCFW": the [i,j⟩ shift λ̃_i → λ̃_i + z λ̃_j, λ_j → λ_j − z λ_i;
 // term(L, h) = A_L(…, −P̂^h) A_R(…, P̂^−h) / P², with −P̂ carried by (λ_P, −λ̃_P).
 import { SingularError, type Field } from './field'
-import { det, momentumSum, sandwichOf, type Bispinor, type Kin, type Spinor } from './spinors'
+import { sandwichOf, type Bispinor, type Kin, type Spinor } from './spinors'
 import { defaultShift, isValidShift, vanishes, type Process } from './theories'
 import { threePoint, threePointSurvives, type VertexKind } from './three-point'
 import { PhysicsError } from './errors'

@@ -15,7 +15,7 @@ import {
   toFloatKin,
   type BuiltPoint,
 } from './kinematics'
-import { THEORIES, checkShift, defaultShift, isValidShift, validateProcess, vanishes, type Process } from './theories'
+import { checkShift, defaultShift, isValidShift, validateProcess, vanishes, type Process } from './theories'
 import { bcfw, type SubAmplitude, type Term, type Vertex } from './bcfw'
 import { probeFalloff, type FalloffResult } from './falloff'
 import { decideVerdict, deviationOf } from './verdict'

@@ -1,7 +1,7 @@
 // Kinematics: spinors of real momenta (CONVENTIONS.md), seeded points, RAMBO (Kleiss, Stirling,
 // Ellis, Comput. Phys. Commun. 40 (1986) 359), and validation of given momenta.
 import { describe, expect, it } from 'vitest'
-import { Complex, complexField as C, rationalField as Q } from '../../../shared/physics/field'
+import { complexField as C, rationalField as Q } from '../../../shared/physics/field'
 import { det, momentumSum, outer } from '../../../shared/physics/spinors'
 import {
   conditionRatio,
