@@ -9,7 +9,7 @@ import type { EvaluateResponse, WireTerm } from '~~/shared/schemas/evaluate'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData, NodeKind } from '~~/shared/editor/types'
 import { validateGraph, particleSpin } from '~~/shared/editor/validate'
 import { blockPaths, collapseSpec, compId, expandAllSpecs, expandSpec, specsToGraph, topSpecs, type CompSpec } from '~~/shared/editor/expand'
-import { labelMap, matchTerms, processKey } from '~~/shared/editor/process'
+import { matchTerms, processKey } from '~~/shared/editor/process'
 import { layoutGraph } from '~~/composables/useLayout'
 
 export interface Expansion {
@@ -66,6 +66,8 @@ export const useEditorStore = defineStore('editor', () => {
   /** Two-click shift picking: the first leg label chosen, or null. */
   const shiftPick = ref<number | null>(null)
   const pickingShift = ref(false)
+  /** Bumped when the canvas should fit its view (after an expansion, a load, an import). */
+  const fitToken = ref(0)
 
   const readOnly = computed(() => role.value === 'viewer')
   const validation = computed(() => validateGraph(nodes.value, edges.value, process.value))
@@ -139,6 +141,7 @@ export const useEditorStore = defineStore('editor', () => {
     undoStack.value = []
     redoStack.value = []
     savedJson.value = docJson()
+    fitToken.value++
   }
 
   /** After a successful save: the server's version becomes the base; the draft is dropped. */
@@ -321,14 +324,15 @@ export const useEditorStore = defineStore('editor', () => {
   // ---- expansion ----
   function rebuild(specs: CompSpec[]) {
     if (!tree.value || !process.value) return
-    const g = specsToGraph(tree.value, specs, labelMap(process.value))
+    const g = specsToGraph(tree.value, specs)
     nodes.value = layoutGraph(g.nodes, g.edges)
     edges.value = g.edges
     expansion.value = { key: processKey(process.value), seed: expansion.value?.seed ?? 'structure', specs }
+    fitToken.value++
   }
   /**
-   * Takes the term tree of the process (POST /api/evaluate with tree: true) and lays out its
-   * channel terms. `shift` is the one the server used, in the diagram's labels.
+   * Takes the term tree of the process (POST /api/evaluate with tree: true, in the diagram's
+   * labels: see toLabels) and lays out its channel terms. `shift` is the one the server used.
    */
   function applyExpansion(terms: WireTerm[], shift: [number, number], seed: string, full = false) {
     if (!process.value) return
@@ -440,11 +444,12 @@ export const useEditorStore = defineStore('editor', () => {
       if (t !== undefined) title.value = t
     })
     tree.value = null
+    fitToken.value++
   }
 
   return {
     diagramId, projectId, title, version, role, process, settings, nodes, edges, expansion, tree, selection, selectedEdges,
-    undoStack, redoStack, result, resultKey, highlightTerm, shiftPick, pickingShift,
+    undoStack, redoStack, result, resultKey, highlightTerm, shiftPick, pickingShift, fitToken,
     readOnly, validation, nodeById, expansionStale, termComponents, highlighted, dirty,
     toGraph, load, markSaved, commit, undo, redo, setProcess, setShift, setTitle, pickLeg,
     addNode, connect, updateNodeData, setNodeType, updateEdgeData, flipLine, moveNodes, removeIds, removeSelected, clearCanvas, tidy,

@@ -5,7 +5,6 @@ import type { Process } from '../schemas/graph'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
 import { helicityText, sign } from './types'
 import { absOf, fmtDeviation, fmtReal, phaseOf } from './format'
-import { channelLabels } from './process'
 import { chevronPoints, handleLayout, nodeSize } from './geometry'
 
 /** Colours of tailwind.config.ts (kept in step by hand: the SVG must stand alone). */
@@ -21,7 +20,7 @@ const part = (c: WireComplex | null | undefined, k: 0 | 1) => (c ? (typeof c[k] 
 export function termsCsv(r: EvaluateResponse, p: Process): string {
   const head = ['channel', 'helicity', 'z_re', 'z_im', 'pole_re', 'pole_im', 'value_re', 'value_im', 'abs', 'phase_over_pi']
   const rows = r.terms.map(t => [
-    `{${channelLabels(p, t.left).join(' ')}}`, String(t.helicity),
+    `{${t.left.join(' ')}}`, String(t.helicity),
     part(t.z, 0), part(t.z, 1), part(t.pole, 0), part(t.pole, 1), part(t.value, 0), part(t.value, 1),
     String(absOf(t.value)), String(phaseOf(t.value)),
   ])
@@ -48,7 +47,7 @@ export function termsLatex(r: EvaluateResponse, p: Process): string {
     '\\toprule',
     'channel & $h$ & $\\mathrm{Re}\\,z^*$ & $\\mathrm{Im}\\,z^*$ & $\\mathrm{Re}$ term & $\\mathrm{Im}$ term \\\\',
     '\\midrule',
-    ...r.terms.map(t => `$\\{${channelLabels(p, t.left).join(',')}\\}$ & $${helicityText(t.helicity).replace('−', '-')}$ & ${texComplex(t.z)} & ${texComplex(t.value)} \\\\`),
+    ...r.terms.map(t => `$\\{${t.left.join(',')}\\}$ & $${helicityText(t.helicity).replace('−', '-')}$ & ${texComplex(t.z)} & ${texComplex(t.value)} \\\\`),
     '\\midrule',
     `total & & & & ${texComplex(r.value)} \\\\`,
     ...(r.target ? [`target (${r.target.name}) & & & & ${texComplex(r.target.value)} \\\\`] : []),

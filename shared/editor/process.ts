@@ -1,7 +1,7 @@
 // From the diagram to an evaluation: the process of a hand-built canvas, the request sent to
 // POST /api/evaluate, the colour order, and which channel terms of the shift the canvas holds.
 import type { Process } from '../schemas/graph'
-import type { EvaluateRequestInput, Kinematics, WireTerm } from '../schemas/evaluate'
+import type { EvaluateRequestInput, EvaluateResponse, Kinematics, WireTerm } from '../schemas/evaluate'
 import type { EditorEdge, EditorNode, LegData } from './types'
 import type { Component } from './validate'
 import { helicityAt, isExternal } from './validate'
@@ -49,10 +49,40 @@ export function labelMap(p: Process): (pos: number) => number {
   return pos => order[pos - 1] ?? pos
 }
 
-/** A term's channel in the diagram's labels (sorted). */
-export function channelLabels(p: Process, left: number[]): number[] {
-  const m = labelMap(p)
-  return left.map(m).sort((a, b) => a - b)
+function relabelLegs(x: unknown, order: number[]): unknown {
+  if (Array.isArray(x)) return x.map(y => relabelLegs(y, order))
+  if (x && typeof x === 'object') {
+    const o = x as Record<string, unknown>
+    if (typeof o.label === 'number' && Object.keys(o).length === 1) return { label: order[o.label - 1] ?? o.label }
+    const out: Record<string, unknown> = {}
+    for (const [k, v] of Object.entries(o)) out[k] = k === 'legs' || k === 'leftLegs' || k === 'children' || k === 'left' || k === 'right' || k === 'terms' ? relabelLegs(v, order) : v
+    return out
+  }
+  return x
+}
+
+/**
+ * A response of POST /api/evaluate for evaluateRequest(p) in the diagram's labels: positions in
+ * the colour order become leg labels (as the stored checks already report them).
+ */
+export function toLabels(r: EvaluateResponse, p: Process): EvaluateResponse {
+  const order = orderOf(p)
+  if (order.every((l, k) => l === k + 1)) return r
+  const back = <T>(xs: T[]): T[] => {
+    const out = new Array<T>(xs.length)
+    xs.forEach((x, k) => (out[order[k]! - 1] = x))
+    return out
+  }
+  return {
+    ...r,
+    shift: [order[r.shift[0] - 1]!, order[r.shift[1] - 1]!],
+    terms: r.terms.map(t => ({
+      ...t,
+      left: t.left.map(q => order[q - 1]!).sort((a, b) => a - b),
+      children: t.children ? (relabelLegs(t.children, order) as WireTerm['children']) : null,
+    })),
+    kinematics: { lambda: back(r.kinematics.lambda), lambdaTilde: back(r.kinematics.lambdaTilde) },
+  }
 }
 
 const THEORY_OF_SPIN: Record<number, Process['theory']> = { 0: 'scalar-cubic', 1: 'gluon', 2: 'graviton' }
@@ -152,7 +182,7 @@ export function matchTerms(p: Process, terms: WireTerm[], comps: Component[], no
   const out = new Map<number, string[]>()
   const byId = new Map(nodes.map(n => [n.id, n]))
   const key = (left: number[], h: number) => `${left.join(',')}|${h}`
-  const termByKey = new Map(terms.map((t, k) => [key(channelLabels(p, t.left), t.helicity), k]))
+  const termByKey = new Map(terms.map((t, k) => [key(t.left, t.helicity), k]))
   for (const c of comps) {
     if (!c.nodeIds.some(id => byId.get(id)!.type !== 'leg')) continue
     const tagged = byId.get(c.id)?.data as { term?: number } | undefined
