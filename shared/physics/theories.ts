@@ -22,6 +22,9 @@ export const THEORIES: Record<TheoryName, TheoryInfo> = {
   spin: { name: 'spin', label: 'single species of spin s', colourOrdered: false, limits: { float: 7, exact: 6 }, minLegs: 4 },
 }
 
+/** Largest spin s offered for theory `spin` (the bracket powers grow like 3s). */
+export const MAX_SPIN = 12
+
 /** Limits as a flat list for the catalogue; spin s ≠ 2 is offered at n = 4 only. */
 export const LIMITS = Object.values(THEORIES).map((t) => ({ theory: t.name, float: t.limits.float, exact: t.limits.exact, note: t.name === 'spin' ? 'spin ≠ 2: n = 4 only' : undefined }))
 
@@ -54,6 +57,7 @@ export function validateProcess(theory: TheoryName, helicities: number[], arithm
       throw new PhysicsError('spin', `spin must be an integer, got ${spin}`)
     }
     if (spin < 0) throw new PhysicsError('spin', `spin must be non-negative, got ${spin}`)
+    if (spin > MAX_SPIN) throw new PhysicsError('spin', `spin ${spin} exceeds the limit of ${MAX_SPIN}`)
     if (spin !== 2 && n !== 4) throw new PhysicsError('helicities', `for spin ${spin} only n = 4 (the four-particle test) is offered, got n = ${n}`)
     if (spin % 2 === 1)
       warnings.push(`spin ${spin}: the three-point block is antisymmetric under exchange of two identical legs; Bose symmetry would force its coupling to vanish without structure constants (evaluated as written)`)
