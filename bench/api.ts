@@ -1,0 +1,155 @@
+// Load figures of the evaluation service (issue 4 "Speed and load"): the built server on loopback,
+// driven by autocannon. Run: `npm run bench:api` (after a build; POLEWRIGHT_BENCH_OUTPUT picks
+// another build folder, --quick shortens every run).
+//   1. 6-gluon MHV and NMHV at 32 connections: req/s, p50, p99, errors.
+//   2. p99 of GET /api/auth/me (one user, one connection) while 10-gluon evaluations saturate the pool.
+//   3. One request at a time, end to end: 8-gluon N²MHV and 10-gluon NMHV (no tree).
+import { spawn } from 'node:child_process'
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync, existsSync } from 'node:fs'
+import { createRequire } from 'node:module'
+import { availableParallelism, cpus, tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
+
+// Loaded at run time from the project's node_modules (the bundle of this file lives elsewhere).
+const require = createRequire(join(process.cwd(), 'package.json'))
+const autocannon = require('autocannon') as (opts: Record<string, unknown>) => Promise<AutocannonResult>
+
+interface AutocannonResult {
+  requests: { average: number, total: number }
+  latency: { p50: number, p99: number, average: number, max: number }
+  errors: number
+  timeouts: number
+  non2xx: number
+}
+
+const quick = process.argv.includes('--quick')
+const root = process.cwd()
+const output = process.env.POLEWRIGHT_BENCH_OUTPUT || '.output'
+const entry = resolve(root, output, 'server/index.mjs')
+if (!existsSync(entry)) {
+  console.error(`No build at ${entry}: run "npx nuxt build" first (or set POLEWRIGHT_BENCH_OUTPUT).`)
+  process.exit(2)
+}
+
+const dir = mkdtempSync(join(tmpdir(), 'polewright-bench-api-'))
+const port = 3700 + Math.floor(Math.random() * 200)
+const base = `http://127.0.0.1:${port}`
+const server = spawn(process.execPath, [entry], {
+  cwd: root,
+  stdio: ['ignore', 'ignore', 'inherit'],
+  env: {
+    ...process.env,
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    NODE_ENV: 'production',
+    DATABASE_URL: `file:${join(dir, 'bench.db')}`,
+    NUXT_SESSION_PASSWORD: 'bench-session-password-0123456789-abcdefghijkl',
+    POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'),
+    POLEWRIGHT_SEED: '1',
+  },
+})
+const stop = () => {
+  server.kill('SIGTERM')
+  rmSync(dir, { recursive: true, force: true })
+}
+process.on('exit', stop)
+
+async function waitUp() {
+  for (let i = 0; i < 300; i++) {
+    try {
+      if ((await fetch(`${base}/api/auth/me`)).status > 0) return
+    }
+    catch { /* not up yet */ }
+    await new Promise(r => setTimeout(r, 100))
+  }
+  throw new Error('server did not start')
+}
+
+async function signIn(): Promise<string> {
+  const res = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'ines.varga@example.test', password: 'polewright-demo' }) })
+  if (res.status !== 200) throw new Error(`sign-in failed: ${res.status}`)
+  return res.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
+}
+
+const gluons = (n: number, minus: number) => Array.from({ length: n }, (_, i) => (i < minus ? -1 : 1))
+const body = (helicities: number[], seed = 1) => JSON.stringify({ theory: 'gluon', helicities, kinematics: { kind: 'random', seed } })
+
+let cookie = ''
+const evaluateOpts = (b: string, connections: number, more: Record<string, unknown> = {}) => ({
+  url: `${base}/api/evaluate`,
+  method: 'POST',
+  headers: { 'content-type': 'application/json', cookie },
+  body: b,
+  connections,
+  ...more,
+})
+
+const fmt = (x: number) => (x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x.toFixed(2))
+
+async function main() {
+  await waitUp()
+  cookie = await signIn()
+  const duration = quick ? 3 : 10
+  // Warm the workers' JIT and the request path.
+  await autocannon(evaluateOpts(body(gluons(6, 3)), 4, { amount: quick ? 200 : 1000 }))
+
+  const rows: string[] = []
+  const figures: Record<string, unknown> = { node: process.version, cpus: availableParallelism(), cpu: cpus()[0]?.model, threads: Number(process.env.POLEWRIGHT_EVAL_THREADS) || availableParallelism() }
+
+  for (const [name, h] of [['6-gluon MHV', gluons(6, 2)], ['6-gluon NMHV', gluons(6, 3)]] as const) {
+    const r = await autocannon(evaluateOpts(body(h), 32, { duration }))
+    figures[name] = { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts + r.non2xx }
+    rows.push(`| ${name}, 32 connections, ${duration} s | ${fmt(r.requests.average)} req/s | p50 ${r.latency.p50} ms | p99 ${r.latency.p99} ms | errors ${r.errors + r.timeouts} · non-2xx ${r.non2xx} |`)
+  }
+
+  // 2. Saturate the pool with 10-gluon NMHV evaluations, and meanwhile call /api/auth/me as one user.
+  const load = autocannon(evaluateOpts(body(gluons(10, 3)), 16, { duration: duration + 1 }))
+  await new Promise(r => setTimeout(r, 500))
+  const me = await autocannon({ url: `${base}/api/auth/me`, headers: { cookie }, connections: 1, duration: duration - 1 })
+  const loaded = await load
+  figures['me under load'] = { p50: me.latency.p50, p99: me.latency.p99, max: me.latency.max, errors: me.errors + me.non2xx, loadRps: loaded.requests.average, loadP99: loaded.latency.p99 }
+  rows.push(`| GET /api/auth/me while 10-gluon NMHV saturates the pool (16 connections, ${fmt(loaded.requests.average)} eval/s) | ${fmt(me.requests.average)} req/s | p50 ${me.latency.p50} ms | p99 ${me.latency.p99} ms | errors ${me.errors} · non-2xx ${me.non2xx + loaded.non2xx} |`)
+
+  // 3. One request at a time, end to end on loopback (timed here to the microsecond: autocannon's
+  // histogram counts whole milliseconds).
+  for (const [name, h] of [['8-gluon N²MHV', gluons(8, 4)], ['10-gluon NMHV', gluons(10, 3)]] as const) {
+    const amount = quick ? 100 : 500
+    const b = body(h)
+    const times: number[] = []
+    let engine = 0
+    let verdict = ''
+    for (let k = 0; k < amount + 50; k++) {
+      const t = performance.now()
+      const res = await fetch(`${base}/api/evaluate`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body: b })
+      const json = await res.json() as { ms: number, verdict: string }
+      if (k >= 50) {
+        times.push(performance.now() - t)
+        engine += json.ms
+      }
+      verdict = json.verdict
+    }
+    times.sort((x, y) => x - y)
+    const q = (p: number) => times[Math.min(times.length - 1, Math.floor(p * times.length))]!
+    const mean = times.reduce((a, x) => a + x, 0) / times.length
+    figures[name] = { mean, p50: q(0.5), p99: q(0.99), engineMs: engine / amount, verdict }
+    rows.push(`| ${name}, one at a time (${amount} requests) | mean ${fmt(mean)} ms | p50 ${fmt(q(0.5))} ms | p99 ${fmt(q(0.99))} ms | engine ${fmt(engine / amount)} ms, ${verdict} |`)
+  }
+
+  console.log(`\nPolewright API bench — Node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? '?'}), ${figures.threads} evaluation threads\n`)
+  console.log('| scenario | throughput | p50 | p99 | notes |')
+  console.log('|---|---|---|---|---|')
+  for (const r of rows) console.log(r)
+  mkdirSync(join(root, 'bench/results'), { recursive: true })
+  const file = join(root, 'bench/results', `api-${new Date().toISOString().replace(/[:.]/g, '-')}.json`)
+  writeFileSync(file, JSON.stringify(figures, null, 2))
+  console.log(`\n(figures also in ${file})`)
+}
+
+main().then(() => {
+  stop()
+  process.exit(0)
+}, (e) => {
+  console.error(e)
+  stop()
+  process.exit(1)
+})
