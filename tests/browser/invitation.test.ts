@@ -15,7 +15,7 @@ describe('an invitation followed end to end in the browser', () => {
     await invitee?.close()
   })
 
-  it('the owner invites an address; its e-mail link registers the invitee and joins as editor; the link then is spent', async () => {
+  it('the owner invites an address; its e-mail link leads the invitee through registering to joining as editor; the link then is spent', async () => {
     const lead = await newUser('lead', 'Petra Lindqvist')
     const project = (await lead.post('/api/projects', { name: 'Soft limits of seven gluons' })).body
     const email = uniqueEmail('student')
@@ -36,17 +36,23 @@ describe('an invitation followed end to end in the browser', () => {
     expect(mail.text).toContain('Petra Lindqvist')
     const { path } = linkIn(mail, 'invitations')
 
-    // The invitee opens the link: who invites, to what, as what; the e-mail is prefilled.
+    // The invitee opens the link: who invites, to what, as what; registering keeps the address.
     const page = invitee.page
     await page.goto(path)
     await page.waitForLoadState('networkidle')
     expect(await page.locator('[data-test=invitation-project]').textContent()).toContain('Soft limits of seven gluons')
     expect(await page.locator('[data-test=invitation-summary]').textContent()).toMatch(/Petra Lindqvist.*invites.*as an editor/s)
+    await shot(page, 'invitation-invitee-landing')
+    await Promise.all([page.waitForURL(/\/register\?/), page.click('[data-test=register]')])
+    await page.waitForLoadState('networkidle')
     expect(await page.inputValue('input[name=email]')).toBe(email)
-    await shot(page, 'invitation-invitee-register')
     await page.fill('input[name=name]', 'Sami Roque')
     await page.fill('input[name=password]', 'long-enough-1')
-    await Promise.all([page.waitForURL(new RegExp(`/projects/${project.id}$`)), page.click('button[type=submit]')])
+    await Promise.all([page.waitForURL(new RegExp(`${path}$`)), page.click('button[type=submit]')])
+    await page.waitForLoadState('networkidle')
+    expect(await page.locator('[data-test=accept]').textContent()).toContain('Join as editor')
+    await shot(page, 'invitation-invitee-join')
+    await Promise.all([page.waitForURL(new RegExp(`/projects/${project.id}$`)), page.click('[data-test=accept]')])
     await expect.poll(() => page.locator('[data-test=my-role]').textContent()).toContain('editor')
     await shot(page, 'invitation-invitee-joined')
 
