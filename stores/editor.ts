@@ -9,7 +9,7 @@ import type { EvaluateResponse, WireTerm } from '~~/shared/schemas/evaluate'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData, NodeKind } from '~~/shared/editor/types'
 import { validateGraph, particleSpin } from '~~/shared/editor/validate'
 import { blockPaths, collapseSpec, compId, expandAllSpecs, expandSpec, specsToGraph, topSpecs, type CompSpec } from '~~/shared/editor/expand'
-import { matchTerms, processKey } from '~~/shared/editor/process'
+import { matchTerms, processFromCanvas, processKey } from '~~/shared/editor/process'
 import { layoutGraph } from '~~/composables/useLayout'
 
 export interface Expansion {
@@ -196,8 +196,13 @@ export const useEditorStore = defineStore('editor', () => {
     commit(() => { process.value = p ? structuredClone(p) : undefined })
   }
   function setShift(shift: [number, number] | undefined) {
-    if (!process.value) return
     commit(() => {
+      if (!process.value) {
+        // A hand-built canvas: its legs say what the process is.
+        const got = processFromCanvas(nodes.value)
+        if ('error' in got) return
+        process.value = got.process
+      }
       const p = { ...process.value! }
       if (shift) p.shift = shift
       else delete p.shift

@@ -200,3 +200,6 @@ export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos
   }
   return { nodes, edges }
 }
+
+/** The seed of the point the editor asks for a term tree at (its structure is kinematics-independent). */
+export const STRUCTURE_SEED = 'polewright-structure'

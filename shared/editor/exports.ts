@@ -17,7 +17,7 @@ const csvCell = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` 
 const part = (c: WireComplex | null | undefined, k: 0 | 1) => (c ? (typeof c[k] === 'string' ? (c[k] as string) : String(c[k])) : '')
 
 /** The term table as CSV: one row per channel term, then the total and the target. */
-export function termsCsv(r: EvaluateResponse, p: Process): string {
+export function termsCsv(r: EvaluateResponse, _p?: Process): string {
   const head = ['channel', 'helicity', 'z_re', 'z_im', 'pole_re', 'pole_im', 'value_re', 'value_im', 'abs', 'phase_over_pi']
   const rows = r.terms.map(t => [
     `{${t.left.join(' ')}}`, String(t.helicity),

@@ -4,7 +4,7 @@ import { useEditorStore } from '~~/stores/editor'
 import { evaluate } from '~~/shared/physics/index'
 import type { Process } from '~~/shared/schemas/graph'
 import { GraphSchema } from '~~/shared/schemas/graph'
-import { processFromCanvas, matchTerms, componentChannels } from '~~/shared/editor/process'
+import { processFromCanvas, matchTerms, componentChannels, toLabels, evaluateRequest } from '~~/shared/editor/process'
 import { validateGraph } from '~~/shared/editor/validate'
 import { blockPaths } from '~~/shared/editor/expand'
 import type { LegData } from '~~/shared/editor/types'
@@ -169,8 +169,10 @@ describe('editor store', () => {
     const p: Process = { theory: 'gluon', helicities: [-1, 1, -1, 1], order: [1, 3, 2, 4], shift: [1, 3] }
     s.load(doc(p))
     // Positions: (1, 3, 2, 4) → helicities (−, −, +, +), shift positions [1, 2].
-    const r = evaluate({ theory: 'gluon', helicities: [-1, -1, 1, 1], shift: [1, 2], kinematics: { kind: 'random', seed: 1 }, tree: true, target: 'none' })
-    s.applyExpansion(r.terms, [1, 3], 'structure')
+    const req = evaluateRequest(p, { kinematics: { kind: 'random', seed: 1 }, tree: true, target: 'none' })
+    expect(req).toMatchObject({ helicities: [-1, -1, 1, 1], shift: [1, 2] })
+    const r = evaluate(req)
+    s.applyExpansion(toLabels(r, p).terms, [1, 3], 'structure')
     const labels = s.nodes.filter(n => n.type === 'leg').map(n => (n.data as unknown as LegData))
     for (const l of labels) expect(l.helicity).toBe(p.helicities[l.label - 1])
     expect(s.validation.errorCount).toBe(0)

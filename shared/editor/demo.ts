@@ -1,0 +1,22 @@
+// A process expanded into its channel terms and laid out, as the editor's Expand command does it,
+// computed by the engine directly (the demo seed runs without a browser or an HTTP round trip).
+import type { Graph, Process } from '../schemas/graph'
+import { GRAPH_SCHEMA_VERSION } from '../schemas/graph'
+import { evaluate } from '../physics/index'
+import { expandAllSpecs, specsToGraph, STRUCTURE_SEED, topSpecs } from './expand'
+import { evaluateRequest, processKey, toLabels } from './process'
+import { layoutGraph } from './layout'
+
+export function expandedGraph(process: Process, full = false): Graph {
+  const res = toLabels(evaluate(evaluateRequest(process, { kinematics: { kind: 'random', seed: STRUCTURE_SEED }, target: 'none', tree: true })), process)
+  const p: Process = { ...process, shift: res.shift }
+  const specs = full ? expandAllSpecs(res.terms, topSpecs(res.terms)) : topSpecs(res.terms)
+  const g = specsToGraph(res.terms, specs)
+  return {
+    schemaVersion: GRAPH_SCHEMA_VERSION,
+    process: p,
+    settings: { expansion: { key: processKey(p), seed: STRUCTURE_SEED, specs } },
+    nodes: layoutGraph(g.nodes, g.edges),
+    edges: g.edges,
+  }
+}

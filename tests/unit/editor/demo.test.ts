@@ -1,0 +1,22 @@
+import { describe, expect, it } from 'vitest'
+import { expandedGraph } from '~~/shared/editor/demo'
+import { GraphSchema, type Process } from '~~/shared/schemas/graph'
+import { validateGraph } from '~~/shared/editor/validate'
+import type { EditorNode } from '~~/shared/editor/types'
+
+describe('demo diagrams: expanded and laid out', () => {
+  it.each<[string, Process, boolean]>([
+    ['five gluons MHV', { theory: 'gluon', helicities: [-1, -1, 1, 1, 1], shift: [1, 2] }, true],
+    ['six gluons alternating', { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], shift: [1, 2] }, false],
+    ['four gravitons', { theory: 'graviton', helicities: [-2, -2, 2, 2], shift: [1, 2] }, true],
+    ['bad shift', { theory: 'gluon', helicities: [-1, -1, 1, 1], shift: [3, 1] }, true],
+  ])('%s: a valid graph with no problem on any node', (_, p, full) => {
+    const g = expandedGraph(p, full)
+    expect(GraphSchema.safeParse(g).success).toBe(true)
+    expect(g.nodes.length).toBeGreaterThan(0)
+    expect(g.process?.shift).toEqual(p.shift)
+    const v = validateGraph(g.nodes as EditorNode[], g.edges, g.process)
+    expect(v.errorCount).toBe(0)
+    if (full) expect(g.nodes.some(n => n.type === 'block')).toBe(false)
+  })
+})
