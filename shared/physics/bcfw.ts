@@ -283,10 +283,33 @@ function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[]): T {
     if (minus === 2) return parkeTaylorMhv(F, k, m0, m1)
     if (n - minus === 2) return parkeTaylorAntiMhv(F, k, p0, p1)
     if (minus < 2 || n - minus < 2) return F.zero
-    return bcfwSum(ctx, k, h, cheapestShift(h).shift, undefined, false).value
+    return subSum(ctx, k, h, cheapestShift(h).shift)
   }
   if (vanishes(p, h)) return F.zero
-  return bcfwSum(ctx, k, h, defaultShift(p, h), undefined, false).value
+  return subSum(ctx, k, h, defaultShift(p, h))
+}
+
+/**
+ * A sub-amplitude by BCFW under the chosen shift. Its value does not depend on the (valid) shift,
+ * so when that shift meets a spurious singularity — a pole or bracket of its own terms vanishing
+ * exactly, which small rationals can hit by accident — the other valid shifts are tried in turn.
+ */
+function subSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], first: [number, number]): T {
+  try {
+    return bcfwSum(ctx, k, h, first, undefined, false).value
+  } catch (e) {
+    if (!(e instanceof SingularError)) throw e
+    const n = h.length
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+      if (i === j || (i === first[0] && j === first[1]) || !isValidShift(ctx.p, h, i, j)) continue
+      try {
+        return bcfwSum(ctx, k, h, [i, j], undefined, false).value
+      } catch (e2) {
+        if (!(e2 instanceof SingularError)) throw e2
+      }
+    }
+    throw e
+  }
 }
 
 const gluonProcess: Process = { theory: 'gluon', s: 1, colourOrdered: true }

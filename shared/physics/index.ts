@@ -183,7 +183,14 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       }
     }
     let falloff: FalloffResult | null = null
-    if (req.probeFalloff) falloff = probeFalloff(p, helicities, i, j)
+    if (req.probeFalloff) {
+      try {
+        falloff = probeFalloff(p, helicities, i, j)
+      } catch (e) {
+        if (!(e instanceof SingularError)) throw e
+        warnings.push(`probeFalloff: ${e.what}; the falloff was not measured`)
+      }
+    }
     if (singular) {
       warnings.push(`singular point: ${singular.endsWith('vanishes') ? singular : `${singular} vanishes`} at this point`)
       value = null
