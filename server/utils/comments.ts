@@ -71,3 +71,22 @@ function excerpt(body: string) {
   const flat = body.replace(/\s+/g, ' ').trim()
   return flat.length > 80 ? `${flat.slice(0, 79)}…` : flat
 }
+
+/** Demo review comments (invented people and words), once per demo project. */
+export async function seedDemoComments(projectId: number, userIds: number[]) {
+  const db = useDB()
+  if (await db.select({ id: tables.comments.id }).from(tables.comments).where(eq(tables.comments.projectId, projectId)).get()) return
+  const [ines, tomas, mira] = userIds
+  const diagrams = await db.select({ id: tables.diagrams.id, title: tables.diagrams.title }).from(tables.diagrams).where(eq(tables.diagrams.projectId, projectId))
+  const byTitle = (start: string) => diagrams.find(d => d.title.startsWith(start))
+  const notes: { diagram?: { id: number, title: string }, userId?: number, body: string }[] = [
+    { diagram: byTitle('Five gluons'), userId: tomas, body: 'Against Parke–Taylor at a handful of seeded points: agrees every time. Only one channel survives this shift, as expected for adjacent negative helicities.' },
+    { diagram: byTitle('Five gluons'), userId: mira, body: 'Could we also run it at physical kinematics before it goes into the draft? I would like to see $\\langle 1 2\\rangle^4$ over the Parke–Taylor denominator checked there too.' },
+    { diagram: byTitle('Bad shift'), userId: ines, body: 'Cautionary example for the students: under this shift the amplitude does not fall off at large $z$, so the residue sum misses a boundary term. Keep it out of the draft.' },
+  ]
+  for (const n of notes) {
+    if (!n.diagram || !n.userId) continue
+    const row = await db.insert(tables.comments).values({ projectId, diagramId: n.diagram.id, userId: n.userId, body: n.body }).returning().get()
+    await audit(projectId, n.userId, 'comment.create', 'comment', row.id, { diagramId: n.diagram.id, checkId: null, title: n.diagram.title, excerpt: excerpt(n.body) })
+  }
+}
