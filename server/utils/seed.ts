@@ -2,6 +2,7 @@
 // Idempotent: running it twice changes nothing.
 import { and, eq } from 'drizzle-orm'
 import type { Graph } from '../../shared/schemas/graph'
+import { expandedGraph } from '../../shared/editor/demo'
 import type { ProjectRole } from '../../shared/types/db'
 
 export const DEMO_PASSWORD = 'polewright-demo'
@@ -15,12 +16,15 @@ export const demoPeople = [
 
 export const DEMO_PROJECT = 'Brackenridge amplitudes group: tree-level checks'
 
-/** Demo diagrams: process documents; the editor lays out their channels when opened and expanded. */
+/**
+ * Demo diagrams, laid out as the editor's Expand leaves them (the engine computes the term tree
+ * here at start-up). The bad shift [3,1⟩ is [+,−⟩: its residue sum misses a boundary term.
+ */
 export const demoDiagrams: { title: string, graph: Graph }[] = [
-  { title: 'Five gluons, MHV (−−+++) under [1,2⟩', graph: { schemaVersion: 1, process: { theory: 'gluon', helicities: [-1, -1, 1, 1, 1], shift: [1, 2] }, nodes: [], edges: [] } },
-  { title: 'Six gluons, alternating (−+−+−+)', graph: { schemaVersion: 1, process: { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], shift: [2, 3] }, nodes: [], edges: [] } },
-  { title: 'Four gravitons: consistency test', graph: { schemaVersion: 1, process: { theory: 'graviton', helicities: [-2, -2, 2, 2], shift: [1, 2] }, nodes: [], edges: [] } },
-  { title: 'Bad shift: four gluons under [+,−⟩', graph: { schemaVersion: 1, process: { theory: 'gluon', helicities: [-1, -1, 1, 1], shift: [3, 1] }, nodes: [], edges: [] } },
+  { title: 'Five gluons, MHV (−−+++) under [1,2⟩', graph: expandedGraph({ theory: 'gluon', helicities: [-1, -1, 1, 1, 1], shift: [1, 2] }, true) },
+  { title: 'Six gluons, alternating (−+−+−+)', graph: expandedGraph({ theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], shift: [1, 2] }) },
+  { title: 'Four gravitons: consistency test', graph: expandedGraph({ theory: 'graviton', helicities: [-2, -2, 2, 2], shift: [1, 2] }, true) },
+  { title: 'Bad shift: four gluons under [+,−⟩', graph: expandedGraph({ theory: 'gluon', helicities: [-1, -1, 1, 1], shift: [3, 1] }, true) },
 ]
 
 export async function seedDemo() {
@@ -53,6 +57,7 @@ export async function seedDemo() {
     await db.insert(tables.diagramRevisions).values({ diagramId: row.id, version: 1, title: row.title, graph: row.graph, savedBy: ownerId, note: 'demo' })
   }
   // Later features add their demo data below (point sets, checks), each idempotent.
+  await seedDemoPointSet(project.id, ownerId)
   await seedDemoComments(project.id, ids)
   return { projectId: project.id, userIds: ids }
 }
