@@ -170,7 +170,8 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
         terms = r.terms
       } catch (e) {
         if (!(e instanceof SingularError)) throw e
-        singular = e.what
+        // Not a physical pole (checked above): a zero met by this shift's terms.
+        singular = `${e.what.replace(/ vanishes$/, '')} vanishes under the shift [${i + 1}, ${j + 1}⟩ (another valid shift may avoid it)`
       }
     }
     let targetValue: T | null = null
@@ -192,7 +193,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       }
     }
     if (singular) {
-      warnings.push(`singular point: ${singular.endsWith('vanishes') ? singular : `${singular} vanishes`} at this point`)
+      warnings.push(`singular point: ${/vanishes/.test(singular) ? singular : `${singular} vanishes`}`)
       value = null
     }
     const deviation = value !== null && targetValue !== null ? deviationOf(F, value, targetValue, terms.map((t) => t.value)) : null

@@ -2,7 +2,7 @@
 //   angle  (h1+h2+h3 < 0): ⟨12⟩^(h3−h1−h2) ⟨23⟩^(h1−h2−h3) ⟨31⟩^(h2−h3−h1)
 //   square (h1+h2+h3 > 0): σ [12]^(h1+h2−h3) [23]^(h2+h3−h1) [31]^(h3+h1−h2)
 // σ = −1 for gluons, (−1)^s for spin s (gravitons: σ² = +1), the cubic scalar A3 = 1.
-import type { Field } from './field'
+import { SingularError, type Field } from './field'
 import { PhysicsError } from './errors'
 import { angleOf, squareOf, type Kin } from './spinors'
 import type { Process } from './theories'
@@ -19,6 +19,12 @@ function exponent(x: number): number {
   return x
 }
 
+/** b^e for a bracket b; a vanishing bracket in a denominator is a singular point, named. */
+function powBracket<T>(F: Field<T>, b: T, e: number, name: string): T {
+  if (e < 0 && F.isZero(b)) throw new SingularError(`the bracket ${name} of a three-point block vanishes`)
+  return F.pow(b, exponent(e))
+}
+
 /**
  * The little-group formula for any helicities (integer or half-integer, as long as the bracket
  * exponents are integers), of the given kind, times a coupling.
@@ -30,14 +36,14 @@ export function threePointFormula<T>(F: Field<T>, k: Kin<T>, h: readonly number[
   if (kind === 'angle') {
     const L = k.lambda
     v = F.mul(
-      F.mul(F.pow(angleOf(F, L[a]!, L[b]!), exponent(h3 - h1 - h2)), F.pow(angleOf(F, L[b]!, L[c]!), exponent(h1 - h2 - h3))),
-      F.pow(angleOf(F, L[c]!, L[a]!), exponent(h2 - h3 - h1)),
+      F.mul(powBracket(F, angleOf(F, L[a]!, L[b]!), h3 - h1 - h2, '⟨12⟩'), powBracket(F, angleOf(F, L[b]!, L[c]!), h1 - h2 - h3, '⟨23⟩')),
+      powBracket(F, angleOf(F, L[c]!, L[a]!), h2 - h3 - h1, '⟨31⟩'),
     )
   } else {
     const L = k.lambdaTilde
     v = F.mul(
-      F.mul(F.pow(squareOf(F, L[a]!, L[b]!), exponent(h1 + h2 - h3)), F.pow(squareOf(F, L[b]!, L[c]!), exponent(h2 + h3 - h1))),
-      F.pow(squareOf(F, L[c]!, L[a]!), exponent(h3 + h1 - h2)),
+      F.mul(powBracket(F, squareOf(F, L[a]!, L[b]!), h1 + h2 - h3, '[12]'), powBracket(F, squareOf(F, L[b]!, L[c]!), h2 + h3 - h1, '[23]')),
+      powBracket(F, squareOf(F, L[c]!, L[a]!), h3 + h1 - h2, '[31]'),
     )
     if (sigma < 0) v = F.neg(v)
   }
