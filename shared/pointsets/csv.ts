@@ -25,6 +25,13 @@ function readRows(text: string): Row[] {
   const lines = text.split('\n')
   const rows: Row[] = []
   let failure: PointFileError | null = null
+  // Rows come in order: track the line number incrementally (a scan from the start per row is quadratic).
+  let seenOffset = 0
+  let seenLine = 1
+  const lineAt = (offset: number) => {
+    for (; seenOffset < offset; seenOffset++) if (text.charCodeAt(seenOffset) === 10) seenLine++
+    return seenLine
+  }
   Papa.parse<string[]>(text, {
     delimiter: ',',
     comments: '#',
@@ -41,7 +48,7 @@ function readRows(text: string): Row[] {
       }
       const fields = r.data
       if (fields.length === 1 && fields[0]!.trim() === '') return
-      const line = lineColumn(text, Math.max(0, r.meta.cursor - 1)).line
+      const line = lineAt(Math.max(0, r.meta.cursor - 1))
       rows.push({ fields, line, lineText: (lines[line - 1] ?? '').replace(/\r$/, '') })
     },
   })

@@ -2,23 +2,14 @@
 // by the engine's own seeded points (shared/physics/kinematics): `physical` = RAMBO with the
 // chosen centre-of-mass energy, legs 1, 2 incoming along ±z and crossed to outgoing; `random` =
 // a complex point. Both are redrawn until well-conditioned (API.md), as the engine does.
-import { z } from 'zod'
 import { complexField as F } from '../physics/field'
 import { momentumOfBispinor, physicalPoint, randomPoint, type Momentum } from '../physics/kinematics'
 import { outer, type Kin } from '../physics/spinors'
 import type { Complex } from '../physics/field'
 import { minInvariantRatio } from './invariants'
-import { MAX_POINTS, type PointData, type WireSpinor } from './types'
+import type { PointData, WireSpinor } from './types'
+import type { GenerateInput } from './schemas'
 
-export const GenerateSchema = z.object({
-  name: z.string().trim().min(1, { error: 'must not be empty' }).max(200).optional(),
-  kind: z.enum(['physical', 'random'], { error: 'must be physical or random' }),
-  n: z.number().int({ error: 'must be a whole number' }).min(4, { error: 'needs at least 4 legs' }).max(16, { error: 'at most 16 legs' }),
-  count: z.number().int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).max(MAX_POINTS, { error: `at most ${MAX_POINTS} points per point set` }),
-  seed: z.number().int({ error: 'must be a whole number' }).min(0).max(2 ** 31 - 1),
-  energy: z.number().positive({ error: 'must be positive' }).max(1e12).optional(),
-})
-export type GenerateInput = z.infer<typeof GenerateSchema>
 
 /** The seed of point i of a generated set. */
 export const pointSeed = (seed: number, i: number) => `${seed}:${i}`

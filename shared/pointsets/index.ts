@@ -13,8 +13,7 @@ export { parseJson, toJsonFile, JsonPointFileSchema, JsonPointSchema } from './j
 export { parseLhe, PARTICLE_FIELDS } from './lhe'
 export type { LheMeta } from './lhe'
 export { validatePoint, validatePoints, momentumViolations } from './validate'
-export { generatePoint, generatePoints, GenerateSchema, pointSeed } from './generate'
-export type { GenerateInput } from './generate'
+export { generatePoint, generatePoints, pointSeed } from './generate'
 export { kinOf, invariantMatrix, minInvariantRatio } from './invariants'
 
 /** The format of an upload: the `format` field if given, else the file name's ending, else the content. */
@@ -38,3 +37,5 @@ export function parseFile(format: UploadFormat, text: string): ParsedFile & { n?
   if (format === 'json') return parseJson(text)
   return parseLhe(text)
 }
+export * from './schemas'
+export * from './plots'

@@ -42,3 +42,49 @@ export interface ParsedFile {
 /** Per upload at most this many points and this many bytes. */
 export const MAX_POINTS = 10_000
 export const MAX_BYTES = 10 * 1024 * 1024
+
+/** A point set as the API returns it. */
+export interface PointSetView {
+  id: number
+  projectId: number
+  name: string
+  source: 'csv' | 'json' | 'lhe' | 'physical' | 'random'
+  n: number
+  count: number
+  seed: number | null
+  energy: number | null
+  kinematics: 'momenta' | 'spinors'
+  meta: Record<string, unknown>
+  createdBy: number
+  createdAt: string | Date
+}
+
+/** The answer of an upload. */
+export interface UploadResponse {
+  pointSet: PointSetView
+  report: { format: UploadFormat, read: number, stored: number, rejectedCount: number, rejected: Rejection[] }
+}
+
+/** Progress of a batch check (SSE `progress`/`end` events and GET /api/batch-checks/:id). */
+export interface BatchProgressView {
+  id: number
+  status: 'queued' | 'running' | 'done' | 'failed' | 'cancelled'
+  done: number
+  total: number
+  rate: number | null
+  etaSeconds: number | null
+  elapsedMs: number | null
+  counts: Record<string, number>
+  message?: string
+}
+
+/** A batch check as the lists show it. */
+export interface BatchCheckItem {
+  id: number
+  status: string
+  verdict: string | null
+  done: number
+  total: number
+  createdAt: string
+  request: { process?: { theory: string, helicities: number[], shift?: number[] }, pointSetName?: string }
+}

@@ -54,3 +54,19 @@ describe('generated point sets', () => {
     expect(r.error!.issues[0]!.path).toEqual([field])
   })
 })
+
+describe('plot data', () => {
+  it('bins log10 deviations in half decades and counts exact zeros apart', async () => {
+    const { deviationHistogram, deviationScatter } = await import('../../../shared/pointsets')
+    const h = deviationHistogram([1e-15, 3e-15, 2e-13, 0, null, 9.9e-10])
+    expect(h.zeros).toBe(1)
+    expect(h.lo).toBe(-15)
+    expect(h.hi).toBe(-9)
+    expect(h.bins).toHaveLength(12)
+    expect(h.bins[0]).toEqual({ from: -15, to: -14.5, count: 2 })
+    expect(h.bins.reduce((a, b) => a + b.count, 0)).toBe(4)
+    expect(h.bins.at(-1)!.count).toBe(1)
+    const s = deviationScatter({ idx: [0, 1, 2], deviation: [1e-12, 0, 1e-10], minInvariant: [0.01, 0.5, 1e-4], verdict: ['agrees', 'agrees', 'agrees'] })
+    expect(s).toEqual([{ x: -2, y: -12, idx: 0, verdict: 'agrees' }, { x: -4, y: -10, idx: 2, verdict: 'agrees' }])
+  })
+})

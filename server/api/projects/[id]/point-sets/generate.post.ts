@@ -1,0 +1,20 @@
+// A seeded set: N physical points (RAMBO, energy) or N random complex points; point i uses the
+// seed "<seed>:<i>", so the set is reproducible from its stored seed.
+import { GenerateSchema, generatePoints } from '../../../../../shared/pointsets'
+
+export default defineEventHandler(async (event) => {
+  const { project, user } = await requireProjectRole(event, routeId(event), 'editor')
+  const body = await readValid(event, GenerateSchema)
+  const energy = body.kind === 'physical' ? body.energy ?? 1 : null
+  const name = body.name ?? (body.kind === 'physical'
+    ? `${body.count} physical points, n = ${body.n}, √s = ${energy}, seed ${body.seed}`
+    : `${body.count} random complex points, n = ${body.n}, seed ${body.seed}`)
+  const set = await storePointSet({
+    projectId: project.id, userId: user.id, name, source: body.kind, n: body.n, seed: body.seed, energy,
+    meta: { kinematics: body.kind === 'physical' ? 'momenta' : 'spinors', seedRule: '<seed>:<index>' },
+    points: generatePoints({ ...body, energy: energy ?? undefined }),
+  })
+  await audit(project.id, user.id, 'pointset.generate', 'point-set', set.id, { name: set.name, count: set.count, seed: body.seed })
+  setResponseStatus(event, 201)
+  return pointSetView(set)
+})

@@ -1,0 +1,62 @@
+// Browser: an editor uploads an event file, runs a batch check over it, and sees the progress,
+// the summary and the deviation histogram. Screenshots: tests/screenshots/pointsets-*.png.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { mkdtempSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { openBrowser, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
+import { demo, signIn } from '../helpers/api'
+import { generatePoints, toCsv } from '../../shared/pointsets'
+
+let b: BrowserSession
+beforeAll(async () => {
+  b = await openBrowser()
+})
+afterAll(async () => {
+  await b?.close()
+})
+
+describe('point sets in the browser', () => {
+  it('uploads a file, runs a batch and draws the histogram', async () => {
+    const owner = await signIn(demo.owner)
+    const project = (await owner.get('/api/projects')).body.find((p: { name: string }) => p.name.startsWith('Brackenridge'))
+    // A five-gluon CSV of 400 invented RAMBO points, as a user would upload it.
+    const dir = mkdtempSync(join(tmpdir(), 'pw-upload-'))
+    const file = join(dir, 'five-gluon-points.csv')
+    writeFileSync(file, toCsv([...generatePoints({ kind: 'physical', n: 5, count: 400, seed: 77, energy: 13 })].map((data, idx) => ({ idx, data }))))
+
+    const { page, errors } = b
+    await signInBrowser(page, demo.editor, demo.password)
+    await page.goto(`/projects/${project.id}/point-sets`)
+    await page.waitForLoadState('networkidle')
+    await expect(page.locator('[data-test=point-set-list]').textContent()).resolves.toContain('Five-gluon phase-space points')
+    await page.setInputFiles('[data-test=upload-form] input[type=file]', file)
+    await page.fill('[data-test=upload-form] input[name=name]', 'Five gluons at 13, uploaded in the browser')
+    await page.click('[data-test=upload-form] button[type=submit]')
+    await page.waitForSelector('[data-test=upload-result]')
+    expect(await page.locator('[data-test=upload-result]').textContent()).toMatch(/Stored 400 of 400 points/)
+    await shot(page, 'pointsets-list')
+
+    await page.click('[data-test=upload-result] a')
+    await page.waitForURL(/\/point-sets\/\d+$/)
+    await page.waitForLoadState('networkidle')
+    await page.check('input[name=show-invariants]')
+    await page.waitForSelector('[data-test=invariants]')
+    await shot(page, 'pointsets-points')
+    // The five-gluon MHV demo diagram is offered for a five-leg set.
+    const option = await page.locator('[data-test=batch-form] select[name=diagram] option', { hasText: 'Five gluons, MHV' }).first().getAttribute('value')
+    await page.selectOption('[data-test=batch-form] select[name=diagram]', option!)
+    await Promise.all([page.waitForURL(/\/batch-checks\/\d+$/), page.click('[data-test=batch-form] button[type=submit]')])
+    await page.waitForSelector('[data-test=batch-progress]')
+    await page.waitForFunction(() => document.querySelector('[data-test=batch-status]')?.textContent === 'done', null, { timeout: 60_000 })
+    await page.waitForSelector('[data-test=deviation-histogram] canvas')
+    await page.waitForSelector('[data-test=deviation-scatter] canvas')
+    expect(await page.locator('[data-test=batch-done]').textContent()).toMatch(/400 \/ 400 points/)
+    expect(await page.locator('[data-test=batch-summary]').textContent()).toMatch(/agrees\s*400/)
+    await page.waitForTimeout(300)
+    await shot(page, 'pointsets-batch')
+    await page.locator('[data-test=batch-rows]').scrollIntoViewIfNeeded()
+    await shot(page, 'pointsets-batch-rows')
+    expect(errors).toEqual([])
+  })
+})
