@@ -80,7 +80,7 @@ export async function seedDemoComments(projectId: number, userIds: number[]) {
   const diagrams = await db.select({ id: tables.diagrams.id, title: tables.diagrams.title }).from(tables.diagrams).where(eq(tables.diagrams.projectId, projectId))
   const byTitle = (start: string) => diagrams.find(d => d.title.startsWith(start))
   const notes: { diagram?: { id: number, title: string }, userId?: number, body: string }[] = [
-    { diagram: byTitle('Five gluons'), userId: tomas, body: 'Against Parke–Taylor at a handful of seeded points: agrees every time. Only one channel survives this shift, as expected for adjacent negative helicities.' },
+    { diagram: byTitle('Five gluons'), userId: tomas, body: 'Against Parke–Taylor at a handful of seeded points: agrees every time. Only one channel contributes under this shift.' },
     { diagram: byTitle('Five gluons'), userId: mira, body: 'Could we also run it at physical kinematics before it goes into the draft? I would like to see $\\langle 1 2\\rangle^4$ over the Parke–Taylor denominator checked there too.' },
     { diagram: byTitle('Bad shift'), userId: ines, body: 'Cautionary example for the students: under this shift the amplitude does not fall off at large $z$, so the residue sum misses a boundary term. Keep it out of the draft.' },
   ]

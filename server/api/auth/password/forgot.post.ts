@@ -26,7 +26,7 @@ async function issueReset(email: string, origin: string) {
     subject: 'Reset your Polewright password',
     paragraphs: [
       `Hello ${user.name},`,
-      `someone (hopefully you) asked to reset the password of the Polewright account ${user.email}. Open the link to choose a new one. It works once and expires in one hour.`,
+      `Someone (hopefully you) asked to reset the password of the Polewright account ${user.email}. Open the link to choose a new one. It works once and expires in one hour.`,
       'When the new password is set, every session of this account, on every device, is signed out.',
     ],
     action: { label: 'Choose a new password', url: `${origin}/password/reset/${token}` },
