@@ -286,7 +286,56 @@ function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[]): T {
     return subSum(ctx, k, h, cheapestShift(h).shift)
   }
   if (vanishes(p, h)) return F.zero
-  return subSum(ctx, k, h, defaultShift(p, h))
+  return subSum(ctx, k, h, p.colourOrdered ? defaultShift(p, h) : cheapestSubsetShift(p, h))
+}
+
+const subsetCostMemo = new Map<string, { cost: number; types: [number, number] }>()
+
+/**
+ * Speed, for theories with channels over all subsets (gravitons): the amplitude is symmetric, so
+ * the number of terms below a shift depends only on the counts of minus and plus legs and on the
+ * helicities of the two shifted legs. Of the valid types [−,−⟩, [−,+⟩, [+,+⟩ the one with the fewest
+ * terms (memoized per counts) is used, on the first legs of those helicities.
+ */
+function subsetCost(p: Process, minus: number, plus: number): { cost: number; types: [number, number] } {
+  const key = `${p.theory}:${p.s}:${minus}:${plus}`
+  const hit = subsetCostMemo.get(key)
+  if (hit) return hit
+  const n = minus + plus
+  const h = [...Array<number>(minus).fill(-p.s), ...Array<number>(plus).fill(p.s)]
+  let best = { cost: Infinity, types: [-1, 1] as [number, number] }
+  if (n === 3) best = { cost: 0, types: best.types }
+  else if (vanishes(p, h)) best = { cost: 0, types: best.types }
+  else {
+    for (const types of [[-1, -1], [-1, 1], [1, 1]] as [number, number][]) {
+      const i = types[0] < 0 ? 0 : minus
+      const j = types[1] < 0 ? (types[0] < 0 ? 1 : 0) : types[0] > 0 ? minus + 1 : minus
+      if (i >= n || j >= n || (types[0] < 0 && types[1] < 0 && minus < 2) || (types[0] > 0 && types[1] > 0 && plus < 2)) continue
+      if (!isValidShift(p, h, i, j)) continue
+      let cost = 0
+      for (const { L, R } of channels(n, i, j, false)) {
+        for (const x of [p.s, -p.s]) {
+          const hL = [...L.map((t) => h[t]!), x]
+          const hR = [...R.map((t) => h[t]!), -x]
+          if (!sideSurvives(p, hL, 'angle') || !sideSurvives(p, hR, 'square')) continue
+          const c = (hh: number[]) => (hh.length === 3 ? 0 : subsetCost(p, hh.filter((y) => y < 0).length, hh.filter((y) => y > 0).length).cost)
+          cost += 1 + c(hL) + c(hR)
+        }
+      }
+      if (cost < best.cost) best = { cost, types }
+    }
+  }
+  subsetCostMemo.set(key, best)
+  return best
+}
+
+function cheapestSubsetShift(p: Process, h: number[]): [number, number] {
+  let minus = 0
+  for (const x of h) if (x < 0) minus++
+  const { types } = subsetCost(p, minus, h.length - minus)
+  const i = h.findIndex((x) => Math.sign(x) === types[0])
+  const j = h.findIndex((x, t) => t !== i && Math.sign(x) === types[1])
+  return i >= 0 && j >= 0 && isValidShift(p, h, i, j) ? [i, j] : defaultShift(p, h)
 }
 
 /**
