@@ -198,3 +198,9 @@ describe('bad input: typed errors naming the field', () => {
     expect(zodIssuePath({ path: ['helicities', 0] })).toBe('helicities[0]')
   })
 })
+
+describe('limits', () => {
+  it('a very long helicity list is a 422 naming the limit, not a schema failure', () => {
+    expect(() => evaluate({ theory: 'gluon', helicities: Array(100).fill(1), kinematics: { kind: 'random', seed: 1 } })).toThrow(/^helicities: 100 legs exceed the limit of 12/)
+  })
+})
