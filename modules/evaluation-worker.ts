@@ -1,11 +1,11 @@
 // Bundles the evaluation worker (server/workers/evaluate.ts with the whole engine) into its own
 // file: Nitro bundles server code into chunks, but a worker thread needs a file to start from.
 // Build: <server output>/workers/evaluate.mjs, found by server/utils/pool.ts next to index.mjs.
-// Dev: <buildDir>/workers/evaluate.mjs, rebuilt on change, its path in runtimeConfig.
+// Dev: <buildDir>/workers/evaluate.mjs, rebuilt when the engine changes, its path in runtimeConfig.
 import { existsSync, cpSync, mkdirSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { dirname, join, resolve } from 'node:path'
-import { build, context, type BuildOptions } from 'esbuild'
+import { build, type BuildOptions } from 'esbuild'
 import { defineNuxtModule } from '@nuxt/kit'
 
 export default defineNuxtModule({
@@ -25,17 +25,25 @@ export default defineNuxtModule({
     })
 
     if (nuxt.options.dev) {
+      // One-shot builds (no long-lived esbuild service across Nuxt's restarts): at start, and
+      // again when a file the worker bundles changes. Workers started later load the new file.
       const outfile = join(nuxt.options.buildDir, 'workers/evaluate.mjs')
       nuxt.options.runtimeConfig.evaluationWorker = outfile
-      let dispose: (() => Promise<void>) | undefined
+      const sources = ['shared/physics/', 'shared/schemas/', 'server/workers/'].map(d => resolve(nuxt.options.rootDir, d))
+      let pending: Promise<unknown> | null = null
+      const rebuild = () => {
+        pending ??= build(options(outfile))
+          .catch(e => console.warn('[polewright] evaluation worker build failed:', (e as Error).message))
+          .finally(() => (pending = null))
+        return pending
+      }
       nuxt.hook('nitro:build:before', async () => {
-        if (dispose) return
-        const ctx = await context(options(outfile))
-        await ctx.rebuild()
-        await ctx.watch()
-        dispose = () => ctx.dispose()
+        await rebuild()
       })
-      nuxt.hook('close', async () => dispose?.())
+      nuxt.hook('builder:watch', async (_event, path) => {
+        const abs = resolve(nuxt.options.rootDir, path)
+        if (sources.some(d => abs.startsWith(d))) await rebuild()
+      })
       return
     }
 
