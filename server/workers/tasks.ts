@@ -23,6 +23,7 @@ import {
   type Field,
 } from '../../shared/physics/index'
 import { TARGETS } from '../../shared/physics/targets/index'
+import { MAX_SPIN } from '../../shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
 import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
 import {
@@ -265,10 +266,10 @@ const HELICITY_INFO: Record<string, string> = {
 }
 
 const FORMULA_SYNTAX = [
-  { form: '<i j>', meaning: 'angle bracket ⟨ij⟩' },
-  { form: '[i j]', meaning: 'square bracket [ij]' },
-  { form: 's(i,j,…)', meaning: 'Mandelstam invariant (p_i + p_j + …)²' },
-  { form: '<i|j+k|l]', meaning: 'sandwich ⟨i|(p_j + p_k)|l]' },
+  { form: '<1 2>', meaning: 'angle bracket ⟨12⟩ (also <12> and <1,2> for n ≤ 9)' },
+  { form: '[1 2]', meaning: 'square bracket [12]' },
+  { form: 's(1,2,3)', meaning: 'Mandelstam invariant (p₁ + p₂ + p₃)² (also s(123) for n ≤ 9)' },
+  { form: '<1|2+3|4]', meaning: 'sandwich ⟨1|(p₂ + p₃)|4] (also written [4|2+3|1>)' },
   { form: '+ - * / ^', meaning: 'arithmetic; ^ takes integer exponents' },
   { form: '( )', meaning: 'grouping' },
   { form: '2, 1/3, 0.5', meaning: 'numbers (decimals are exact rationals in exact mode)' },
@@ -292,6 +293,7 @@ function catalogue() {
       helicities: t.name === 'spin' ? null : t.name === 'scalar-cubic' ? [0] : [-s, s],
       helicityRule: HELICITY_INFO[t.name],
       needsSpin: t.name === 'spin',
+      ...(t.name === 'spin' ? { maxSpin: MAX_SPIN } : {}),
       minLegs: t.minLegs,
       limits: t.limits,
       targets: [...TARGETS.filter((x) => x.theories.includes(t.name)).map((x) => x.name), 'formula', 'none'],
