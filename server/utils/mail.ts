@@ -50,14 +50,6 @@ export async function sendMail(mail: Mail) {
   }
 }
 
-/**
- * Sends without making the caller wait: used where the response time must not reveal whether
- * a message was sent at all (password reset for an unknown address).
- */
-export function sendMailInBackground(mail: Mail) {
-  void sendMail(mail)
-}
-
 export function appUrl(event: H3Event): string {
   return (process.env.APP_URL || getRequestURL(event).origin).replace(/\/+$/, '')
 }
