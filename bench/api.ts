@@ -4,11 +4,11 @@
 //   1. 6-gluon MHV and NMHV at 32 connections: req/s, p50, p99, errors.
 //   2. p99 of GET /api/auth/me (one user, one connection) while 10-gluon evaluations saturate the pool.
 //   3. One request at a time, end to end: 8-gluon N²MHV and 10-gluon NMHV (no tree).
-import { spawn } from 'node:child_process'
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync, existsSync } from 'node:fs'
+import { mkdirSync, writeFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
-import { availableParallelism, cpus, tmpdir } from 'node:os'
-import { join, resolve } from 'node:path'
+import { availableParallelism, cpus, loadavg } from 'node:os'
+import { join } from 'node:path'
+import { signInDemo, startBuiltServer } from './server'
 
 // Loaded at run time from the project's node_modules (the bundle of this file lives elsewhere).
 const require = createRequire(join(process.cwd(), 'package.json'))
@@ -24,52 +24,7 @@ interface AutocannonResult {
 
 const quick = process.argv.includes('--quick')
 const root = process.cwd()
-const output = process.env.POLEWRIGHT_BENCH_OUTPUT || '.output'
-const entry = resolve(root, output, 'server/index.mjs')
-if (!existsSync(entry)) {
-  console.error(`No build at ${entry}: run "npx nuxt build" first (or set POLEWRIGHT_BENCH_OUTPUT).`)
-  process.exit(2)
-}
-
-const dir = mkdtempSync(join(tmpdir(), 'polewright-bench-api-'))
-const port = 3700 + Math.floor(Math.random() * 200)
-const base = `http://127.0.0.1:${port}`
-const server = spawn(process.execPath, [entry], {
-  cwd: root,
-  stdio: ['ignore', 'ignore', 'inherit'],
-  env: {
-    ...process.env,
-    PORT: String(port),
-    HOST: '127.0.0.1',
-    NODE_ENV: 'production',
-    DATABASE_URL: `file:${join(dir, 'bench.db')}`,
-    NUXT_SESSION_PASSWORD: 'bench-session-password-0123456789-abcdefghijkl',
-    POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'),
-    POLEWRIGHT_SEED: '1',
-  },
-})
-const stop = () => {
-  server.kill('SIGTERM')
-  rmSync(dir, { recursive: true, force: true })
-}
-process.on('exit', stop)
-
-async function waitUp() {
-  for (let i = 0; i < 300; i++) {
-    try {
-      if ((await fetch(`${base}/api/auth/me`)).status > 0) return
-    }
-    catch { /* not up yet */ }
-    await new Promise(r => setTimeout(r, 100))
-  }
-  throw new Error('server did not start')
-}
-
-async function signIn(): Promise<string> {
-  const res = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'ines.varga@example.test', password: 'polewright-demo' }) })
-  if (res.status !== 200) throw new Error(`sign-in failed: ${res.status}`)
-  return res.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
-}
+let base = ''
 
 const gluons = (n: number, minus: number) => Array.from({ length: n }, (_, i) => (i < minus ? -1 : 1))
 const body = (helicities: number[], seed = 1) => JSON.stringify({ theory: 'gluon', helicities, kinematics: { kind: 'random', seed } })
@@ -87,14 +42,15 @@ const evaluateOpts = (b: string, connections: number, more: Record<string, unkno
 const fmt = (x: number) => (x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x.toFixed(2))
 
 async function main() {
-  await waitUp()
-  cookie = await signIn()
+  const server = await startBuiltServer('api')
+  base = server.base
+  cookie = await signInDemo(base)
   const duration = quick ? 3 : 10
   // Warm the workers' JIT and the request path.
   await autocannon(evaluateOpts(body(gluons(6, 3)), 4, { amount: quick ? 200 : 1000 }))
 
   const rows: string[] = []
-  const figures: Record<string, unknown> = { node: process.version, cpus: availableParallelism(), cpu: cpus()[0]?.model, threads: Number(process.env.POLEWRIGHT_EVAL_THREADS) || availableParallelism() }
+  const figures: Record<string, unknown> = { loadBefore: loadavg()[0], node: process.version, cpus: availableParallelism(), cpu: cpus()[0]?.model, threads: Number(process.env.POLEWRIGHT_EVAL_THREADS) || availableParallelism() }
 
   for (const [name, h] of [['6-gluon MHV', gluons(6, 2)], ['6-gluon NMHV', gluons(6, 3)]] as const) {
     const r = await autocannon(evaluateOpts(body(h), 32, { duration }))
@@ -135,7 +91,7 @@ async function main() {
     rows.push(`| ${name}, one at a time (${amount} requests) | mean ${fmt(mean)} ms | p50 ${fmt(q(0.5))} ms | p99 ${fmt(q(0.99))} ms | engine ${fmt(engine / amount)} ms, ${verdict} |`)
   }
 
-  console.log(`\nPolewright API bench — Node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? '?'}), ${figures.threads} evaluation threads\n`)
+  console.log(`\nPolewright API bench — Node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? '?'}), ${figures.threads} evaluation threads, load average ${loadavg()[0]!.toFixed(1)} at the end (${Number(figures.loadBefore).toFixed(1)} at the start)\n`)
   console.log('| scenario | throughput | p50 | p99 | notes |')
   console.log('|---|---|---|---|---|')
   for (const r of rows) console.log(r)
@@ -145,11 +101,7 @@ async function main() {
   console.log(`\n(figures also in ${file})`)
 }
 
-main().then(() => {
-  stop()
-  process.exit(0)
-}, (e) => {
+main().then(() => process.exit(0), (e) => {
   console.error(e)
-  stop()
   process.exit(1)
 })
