@@ -192,9 +192,15 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
         warnings.push(`probeFalloff: ${e.what}; the falloff was not measured`)
       }
     }
+    if (!singular && F.kind === 'float') {
+      // A double that overflowed (or became NaN) cannot go on the wire as a number.
+      const bad = (x: T | null) => x !== null && !Number.isFinite(F.abs(x))
+      if (bad(value) || bad(targetValue)) singular = `a non-finite intermediate (the point's scale overflows double precision; rescale the momenta)`
+    }
     if (singular) {
-      warnings.push(`singular point: ${/vanishes/.test(singular) ? singular : `${singular} vanishes`}`)
+      warnings.push(`singular point: ${/vanishes|non-finite/.test(singular) ? singular : `${singular} vanishes`}`)
       value = null
+      if (targetValue !== null && F.kind === 'float' && !Number.isFinite(F.abs(targetValue))) targetValue = null
     }
     const deviation = value !== null && targetValue !== null ? deviationOf(F, value, targetValue, terms.map((t) => t.value)) : null
     const verdict = decideVerdict({

@@ -204,3 +204,12 @@ describe('limits', () => {
     expect(() => evaluate({ theory: 'gluon', helicities: Array(100).fill(1), kinematics: { kind: 'random', seed: 1 } })).toThrow(/^helicities: 100 legs exceed the limit of 12/)
   })
 })
+
+describe('overflow', () => {
+  it('momenta at 1e200 overflow doubles: a singular point, never NaN on the wire', () => {
+    const r = evaluate({ theory: 'gluon', helicities: [-1, 1, -1, 1, 1, 1], kinematics: { kind: 'momenta', momenta: physicalMomenta(6, 1, 1e200) } })
+    expect(r.verdict).toBe('singular point')
+    expect(r.value).toBeNull()
+    expect(JSON.stringify(r)).not.toMatch(/NaN|null,null/)
+  })
+})
