@@ -54,7 +54,7 @@ function record(line: string, lineNo: number, names: string[], what: string): Re
 
 const isOptional = (t: string) => t.startsWith('#') || t.startsWith('<')
 
-export interface LheMeta {
+export type LheMeta = {
   version: string | null
   beams: { id: [number, number], energy: [number, number] } | null
   processes: { id: number, crossSection: number, error: number }[]

@@ -10,7 +10,7 @@ const lhe = readFileSync(resolve(import.meta.dirname, '../fixtures/gluons.lhe'),
 
 async function upload(client: Client, projectId: number, filename: string, text: string | Uint8Array, fields: Record<string, string> = {}) {
   const form = new FormData()
-  form.append('file', new Blob([text]), filename)
+  form.append('file', new Blob([text as BlobPart]), filename)
   for (const [k, v] of Object.entries(fields)) form.append(k, v)
   const res = await fetch(`${baseURL()}/api/projects/${projectId}/point-sets`, { method: 'POST', headers: { cookie: client.cookie }, body: form })
   return { status: res.status, body: await res.json() as any }

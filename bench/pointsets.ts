@@ -1,0 +1,125 @@
+// Batch-check throughput (issue 6 "Speed"): the built server on loopback evaluates a six-gluon NMHV
+// process (−−−+++) over a generated set of 10,000 physical points (RAMBO) in its worker pool,
+// streaming progress over SSE; we time it end to end and sample the server's resident memory.
+// Run: `npm run bench -- pointsets` or `node bench/run.mjs pointsets [--points=N]` after a build
+// (POLEWRIGHT_BENCH_OUTPUT picks another build folder). Aim: 10,000 points in under 10 s on 2 cores.
+import { spawn } from 'node:child_process'
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs'
+import { availableParallelism, cpus, tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
+
+const arg = (name: string, def: number) => Number(process.argv.find(a => a.startsWith(`--${name}=`))?.split('=')[1] ?? def)
+const POINTS = arg('points', 10_000)
+const root = process.cwd()
+const output = process.env.POLEWRIGHT_BENCH_OUTPUT || '.output'
+const entry = resolve(root, output, 'server/index.mjs')
+if (!existsSync(entry)) {
+  console.error(`No build at ${entry}: run "npx nuxt build" first (or set POLEWRIGHT_BENCH_OUTPUT).`)
+  process.exit(2)
+}
+const dir = mkdtempSync(join(tmpdir(), 'polewright-bench-ps-'))
+const port = 3500 + Math.floor(Math.random() * 150)
+const base = `http://127.0.0.1:${port}`
+const server = spawn(process.execPath, [entry], {
+  cwd: root,
+  stdio: ['ignore', 'ignore', 'inherit'],
+  env: {
+    ...process.env, PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production',
+    DATABASE_URL: `file:${join(dir, 'bench.db')}`,
+    NUXT_SESSION_PASSWORD: 'bench-session-password-0123456789-abcdefghijkl',
+    POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'),
+    POLEWRIGHT_SEED: '1',
+  },
+})
+process.on('exit', () => {
+  server.kill('SIGTERM')
+  rmSync(dir, { recursive: true, force: true })
+})
+
+/** Resident memory of the server process (all its threads), MB: now and the peak so far. */
+function memory() {
+  const status = readFileSync(`/proc/${server.pid}/status`, 'utf8')
+  const kb = (key: string) => Number(new RegExp(`${key}:\\s+(\\d+)`).exec(status)?.[1] ?? 0)
+  return { rss: kb('VmRSS') / 1024, peak: kb('VmHWM') / 1024 }
+}
+
+/** CPU seconds the server process (all threads) has used so far. */
+function cpuSeconds() {
+  const f = readFileSync(`/proc/${server.pid}/stat`, 'utf8').split(') ')[1]!.split(' ')
+  return (Number(f[11]) + Number(f[12])) / 100
+}
+
+let cookie = ''
+async function api(method: string, path: string, body?: unknown) {
+  const res = await fetch(base + path, { method, headers: { 'content-type': 'application/json', cookie }, body: body === undefined ? undefined : JSON.stringify(body) })
+  const set = res.headers.getSetCookie()
+  if (set.length) cookie = set.map(c => c.split(';')[0]).join('; ')
+  const json = await res.json()
+  if (res.status >= 300) throw new Error(`${method} ${path}: ${res.status} ${JSON.stringify(json)}`)
+  return json
+}
+
+for (let i = 0; ; i++) {
+  try {
+    if ((await fetch(`${base}/api/auth/me`)).status > 0) break
+  }
+  catch { /* not up yet */ }
+  if (i > 300) throw new Error('server did not start')
+  await new Promise(r => setTimeout(r, 100))
+}
+await api('POST', '/api/auth/login', { email: 'ines.varga@example.test', password: 'polewright-demo' })
+const project = (await api('GET', '/api/projects'))[0]
+const diagram = await api('POST', `/api/projects/${project.id}/diagrams`, {
+  title: 'Bench: six gluons, NMHV', graph: { schemaVersion: 1, nodes: [], edges: [], process: { theory: 'gluon', helicities: [-1, -1, -1, 1, 1, 1], shift: [1, 2] } },
+})
+
+async function run(points: number, seed: number) {
+  const t0 = performance.now()
+  const set = await api('POST', `/api/projects/${project.id}/point-sets/generate`, { kind: 'physical', n: 6, count: points, seed, energy: 1 })
+  const tGen = performance.now() - t0
+  const before = memory()
+  const cpu0 = cpuSeconds()
+  const t1 = performance.now()
+  const check = await api('POST', `/api/diagrams/${diagram.id}/batch-checks`, { pointSetId: set.id })
+  const res = await fetch(`${base}/api/batch-checks/${check.id}/events`, { headers: { cookie } })
+  const reader = res.body!.getReader()
+  const dec = new TextDecoder()
+  let buf = ''
+  let events = 0
+  let peak = before.rss
+  let last: { status: string, done: number, total: number, rate: number | null, etaSeconds: number | null } | null = null
+  const sampler = setInterval(() => (peak = Math.max(peak, memory().rss)), 50)
+  for (;;) {
+    const { done, value } = await reader.read()
+    if (done) break
+    buf += dec.decode(value, { stream: true })
+    let k: number
+    while ((k = buf.indexOf('\n\n')) >= 0) {
+      const data = /^data: (.*)$/m.exec(buf.slice(0, k))?.[1]
+      buf = buf.slice(k + 2)
+      if (!data) continue
+      last = JSON.parse(data)
+      events++
+      if (events % 8 === 0 || last!.status !== 'running') process.stdout.write(`  ${last!.done.toString().padStart(6)}/${last!.total}  ${last!.status.padEnd(9)} ${last!.rate ?? '—'} points/s, ${last!.etaSeconds ?? '—'} s left\n`)
+    }
+  }
+  clearInterval(sampler)
+  const wall = performance.now() - t1
+  const cpu = cpuSeconds() - cpu0
+  const view = await api('GET', `/api/batch-checks/${check.id}`)
+  return { points, tGen, wall, serverMs: view.durationMs, events, counts: view.summary.counts, median: view.summary.median, worst: view.summary.worst?.deviation, before: before.rss, peak, cpu, status: last?.status }
+}
+
+console.log(`load average at start: ${readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ')}`)
+console.log(`Batch checks: six-gluon NMHV (−−−+++), physical points, Berends–Giele target; ${availableParallelism()} cores (${cpus()[0]?.model ?? '?'})`)
+console.log('warm-up (200 points, starts the worker threads)')
+await run(200, 1)
+const small = await run(2_000, 2)
+const big = await run(POINTS, 3)
+const fmt = (r: typeof big) => `${r.points.toLocaleString('en-US')} points: ${(r.wall / 1000).toFixed(2)} s end to end (${(r.points / (r.wall / 1000)).toFixed(0)} points/s; server ${(r.serverMs / 1000).toFixed(2)} s), ${r.events} progress events, `
+  + `server CPU ${(1000 * r.cpu / r.points).toFixed(2)} ms per point (all threads), server RSS ${r.before.toFixed(0)} → peak ${r.peak.toFixed(0)} MB; generating the set took ${(r.tGen / 1000).toFixed(2)} s`
+console.log(`\n${fmt(small)}\n${fmt(big)}`)
+console.log(`verdicts (${POINTS}): ${JSON.stringify(big.counts)}; median deviation ${big.median?.toExponential(2)}, worst ${big.worst?.toExponential(2)}`)
+console.log(`memory: the ${POINTS.toLocaleString('en-US')}-point run peaked ${(big.peak - big.before).toFixed(0)} MB above its start, the 2,000-point run ${(small.peak - small.before).toFixed(0)} MB (results are written per chunk of 250)`)
+console.log(big.wall < 10_000 ? 'PASS: under 10 s' : 'MISS: over 10 s')
+process.exit(0)
