@@ -143,6 +143,17 @@ describe('invitations by e-mail', () => {
     expect((await invitee.post(`/api/invitations/${secondLink.token}/accept`)).body.role).toBe('editor')
   })
 
+  it('two accepts of one link at the same moment: one joins, the other gets 410', async () => {
+    const { owner, project } = await projectWithRoles()
+    const { email, token } = await invite(owner, project.id, 'editor')
+    const invitee = await register(email)
+    const other = await newUser('racer')
+    const results = await Promise.all([invitee.post(`/api/invitations/${token}/accept`), other.post(`/api/invitations/${token}/accept`)])
+    expect(results.map(r => r.status).sort()).toEqual([200, 410])
+    const members = (await owner.get(`/api/projects/${project.id}/members`)).body.map((m: { email: string }) => m.email)
+    expect(members.filter((m: string) => m === email || m === other.email)).toHaveLength(1)
+  })
+
   it('an unknown or mangled token → 404 naming the token', async () => {
     const res = await new Client().get('/api/invitations/not-a-real-token')
     expect(res.status).toBe(404)
