@@ -3,7 +3,7 @@ import type { z } from 'zod'
 import { describeIssues } from '../../shared/schemas/common'
 
 const statusMessages: Record<number, string> = {
-  400: 'Bad Request', 401: 'Unauthorized', 403: 'Forbidden', 404: 'Not Found', 409: 'Conflict',
+  400: 'Bad Request', 401: 'Unauthorized', 403: 'Forbidden', 404: 'Not Found', 409: 'Conflict', 410: 'Gone',
   413: 'Payload Too Large', 422: 'Unprocessable Entity', 429: 'Too Many Requests', 503: 'Service Unavailable',
 }
 
