@@ -79,6 +79,20 @@ describe('response shape (API.md "Response 200")', () => {
     expect(res.body.falloff).toBeNull()
   })
 
+  it('a singular point is a 200 with verdict "singular point", value null and a warning naming it', async () => {
+    // λ1 = λ2, so ⟨12⟩ = 0 and s12 = ⟨12⟩[21] = 0; Σ λ_i λ̃_i = 0 exactly (checked by hand).
+    const kinematics = {
+      kind: 'exact-spinors',
+      lambda: [['1', '0'], ['1', '0'], ['0', '1'], ['1', '1']],
+      lambdaTilde: [['0', '1'], ['-1', '-3'], ['-1', '-2'], ['1', '2']],
+    }
+    const res = await ev({ theory: 'gluon', helicities: [-1, -1, 1, 1], kinematics, arithmetic: 'exact' })
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    expect(res.body.verdict).toBe('singular point')
+    expect(res.body.value).toBeNull()
+    expect(res.body.warnings.some((w: string) => /singular point/.test(w))).toBe(true)
+  })
+
   it('a vanishing helicity class gives value 0 and target 0, verdict agrees', async () => {
     const res = await ev({ theory: 'gluon', helicities: [-1, 1, 1, 1, 1], kinematics: { kind: 'random', seed: 3 } })
     expect(res.body.verdict).toBe('agrees')
