@@ -41,5 +41,7 @@ server.on('error', (e) => {
   process.exit(1)
 })
 server.listen(port, '127.0.0.1', () => console.log(`[mail] catching SMTP on 127.0.0.1:${port} into ${dir}`))
+// Started with an IPC channel (the dev server's plugin): stop when that parent goes away.
+if (process.send) process.on('disconnect', () => process.exit(0))
 process.on('SIGTERM', () => server.close(() => process.exit(0)))
 process.on('SIGINT', () => server.close(() => process.exit(0)))
