@@ -353,7 +353,9 @@ async function runBatch(checkId: number, pointSetId: number, total: number, plan
   const row = await db.update(tables.checks).set({ status, done, summary, verdict: summary.verdict, durationMs })
     .where(eq(tables.checks.id, checkId)).returning().get()
   live.delete(checkId)
+  // A row deleted meanwhile (its diagram or project went away) still ends the streams.
   if (row) emit(progressOf(row))
+  else emit({ ...(l.last ?? { id: checkId, done, total, rate: null, etaSeconds: null, elapsedMs: null, counts: l.counts }), status: 'failed', message: 'the check was deleted while it ran' })
 }
 
 /** The point labels (names in the uploaded file) of some points of a set. */

@@ -75,6 +75,8 @@ function fileError(e: unknown): never {
   throw e
 }
 
+const VALIDATE_SLICE = 500
+
 export interface UploadResult {
   format: UploadFormat
   n: number
@@ -86,7 +88,7 @@ export interface UploadResult {
 }
 
 /** Parses and validates an uploaded file; refuses the whole file when nothing is readable or valid. */
-export function checkUpload(text: string, filename: string | undefined, format?: UploadFormat, n?: number): UploadResult {
+export async function checkUpload(text: string, filename: string | undefined, format?: UploadFormat, n?: number): Promise<UploadResult> {
   let parsed: ReturnType<typeof parseFile>
   let fmt: UploadFormat
   try {
@@ -96,8 +98,16 @@ export function checkUpload(text: string, filename: string | undefined, format?:
   catch (e) {
     fileError(e)
   }
-  const legs = n ?? parsed.n
-  const { n: setN, valid, rejected } = validatePoints(parsed.points, legs)
+  const setN = n ?? parsed.n ?? (parsed.points[0] ? (parsed.points[0].momenta ?? parsed.points[0].lambda!).length : 0)
+  // Validated in slices, yielding to the event loop between them so other requests are served.
+  const valid: PointData[] = []
+  const rejected: Rejection[] = []
+  for (let from = 0; from < parsed.points.length; from += VALIDATE_SLICE) {
+    const part = validatePoints(parsed.points.slice(from, from + VALIDATE_SLICE), setN)
+    valid.push(...part.valid)
+    rejected.push(...part.rejected)
+    if (from + VALIDATE_SLICE < parsed.points.length) await new Promise(resolve => setImmediate(resolve))
+  }
   const allRejected = [...parsed.rejected, ...rejected]
   const read = parsed.points.length + parsed.rejected.length
   if (!valid.length) {
@@ -182,7 +192,7 @@ export async function seedDemoPointSet(projectId: number, ownerId: number) {
   if (exists) return
   const points = [...generatePoints({ kind: 'physical', n: 5, count: 40, seed: 2026, energy: 91.2 })]
   const csv = toCsv(points.map((data, idx) => ({ idx, data: { ...data, label: `ev${String(idx + 1).padStart(3, '0')}` } })))
-  const result = checkUpload(csv, 'brackenridge-5g.csv', 'csv')
+  const result = await checkUpload(csv, 'brackenridge-5g.csv', 'csv')
   const set = await storePointSet({
     projectId, userId: ownerId, name: DEMO_POINT_SET, source: 'csv', n: result.n,
     meta: { ...result.meta, filename: 'brackenridge-5g.csv', read: result.read, rejected: 0 }, points: result.valid,

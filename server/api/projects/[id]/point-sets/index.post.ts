@@ -3,7 +3,7 @@
 export default defineEventHandler(async (event) => {
   const { project, user } = await requireProjectRole(event, routeId(event), 'editor')
   const upload = await readPointUpload(event)
-  const result = checkUpload(upload.text, upload.filename, upload.format, upload.n)
+  const result = await checkUpload(upload.text, upload.filename, upload.format, upload.n)
   const name = upload.name ?? result.name ?? (upload.filename || `Uploaded ${result.format.toUpperCase()} points`)
   const set = await storePointSet({
     projectId: project.id, userId: user.id, name, source: result.format, n: result.n,
