@@ -7,8 +7,13 @@ export default defineEventHandler(async (event) => {
   const req = await readValid(event, EvaluateRequestSchema)
   precheckProcess(req)
   try {
+    const t0 = performance.now()
     const { value, thread } = await runInPool<EvaluateResponse>({ kind: 'evaluate', req }, poolOptions(event))
-    setResponseHeader(event, 'x-evaluation-thread', String(thread))
+    // Where the time went: the engine itself, and the whole hand-off (queue + transfer + engine).
+    setResponseHeaders(event, {
+      'x-evaluation-thread': String(thread),
+      'server-timing': `engine;dur=${value.ms}, pool;dur=${(performance.now() - t0).toFixed(3)}`,
+    })
     return value
   }
   catch (e) {

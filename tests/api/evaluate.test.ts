@@ -52,6 +52,7 @@ describe('response shape (API.md "Response 200")', () => {
   it('runs in a worker thread, not on the request thread', async () => {
     const res = await ev({ theory: 'gluon', helicities: MHV5, kinematics: { kind: 'random', seed: 8 } })
     expect(Number(res.headers.get('x-evaluation-thread'))).toBeGreaterThan(0)
+    expect(res.headers.get('server-timing')).toMatch(/^engine;dur=[\d.]+, pool;dur=[\d.]+$/)
   })
 
   it('tree: true gives each term its children; the default keeps the hand-off lean', async () => {
