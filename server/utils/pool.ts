@@ -64,7 +64,9 @@ function getPool(): Tinypool | null {
     return pool
   }
   const threads = threadCount()
-  pool = new Tinypool({ filename, minThreads: threads, maxThreads: threads, idleTimeout: 60_000, maxQueue: 10_000 })
+  // A worker that outgrows its heap is terminated (its request gets 503), never the server.
+  const heapMb = Number(process.env.POLEWRIGHT_WORKER_HEAP_MB) || 1024
+  pool = new Tinypool({ filename, minThreads: threads, maxThreads: threads, idleTimeout: 60_000, maxQueue: 10_000, resourceLimits: { maxOldGenerationSizeMb: heapMb } })
   return pool
 }
 
