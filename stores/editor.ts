@@ -247,6 +247,8 @@ export const useEditorStore = defineStore('editor', () => {
     const a = nodeById.value.get(c.source)
     const b = nodeById.value.get(c.target)
     if (!a || !b) return null
+    // Two external legs never meet without a vertex between them.
+    if (a.type === 'leg' && b.type === 'leg') return null
     const dup = edges.value.some(e => (e.source === c.source && e.sourceHandle === c.sourceHandle && e.target === c.target && e.targetHandle === c.targetHandle)
       || (e.source === c.target && e.sourceHandle === c.targetHandle && e.target === c.source && e.targetHandle === c.sourceHandle))
     if (dup) return null

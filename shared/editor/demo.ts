@@ -16,7 +16,7 @@ export function expandedGraph(process: Process, full = false): Graph {
     schemaVersion: GRAPH_SCHEMA_VERSION,
     process: p,
     settings: { expansion: { key: processKey(p), seed: STRUCTURE_SEED, specs } },
-    nodes: layoutGraph(g.nodes, g.edges),
-    edges: g.edges,
+    nodes: layoutGraph(g.nodes, g.edges) as Graph['nodes'],
+    edges: g.edges as Graph['edges'],
   }
 }

@@ -5,6 +5,7 @@
 // that Block (A_L = Σ_t term_t, so A_L·A_R/P² = Σ_t term_t·A_R/P²). Collapsing merges them back.
 import type { WireLeg, WireSubAmplitude, WireTerm, WireVertex } from '../schemas/evaluate'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData, VertexData } from './types'
+import { bestRotation } from './geometry'
 
 export interface CompSpec {
   /** Index of the top-level term. */
@@ -190,6 +191,23 @@ export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos
           lineEnds.set(l.line, list)
         }
       })
+    }
+    // Turn each node so a line's end faces its partner: the first end (left in the layout) on the right.
+    const want = new Map<string, (('left' | 'right') | null)[]>()
+    for (const [, ends] of lineEnds) {
+      if (ends.length !== 2) continue
+      ends.forEach((e, k) => {
+        const x = shown.find(s => s.id === e.id)!
+        const list = want.get(e.id) ?? x.legs.map(() => null)
+        list[e.slot] = k === 0 ? 'right' : 'left'
+        want.set(e.id, list)
+      })
+    }
+    for (const nd of nodes) {
+      const w = want.get(nd.id)
+      if (!w) continue
+      const rot = bestRotation(nd.type, w.length, w)
+      if (rot) nd.data = { ...nd.data, rot }
     }
     for (const [line, ends] of lineEnds) {
       if (ends.length !== 2) continue

@@ -24,35 +24,67 @@ export function chevronPoints(w = ANGLE_SIZE.width, h = ANGLE_SIZE.height, notch
   return [[0, 0], [w - notch, 0], [w, h / 2], [w - notch, h], [0, h], [notch, h / 2]]
 }
 
+/** The side of each handle position (before rotation), for choosing a rotation. */
+export function baseSides(type: EditorNode['type'], k: number): ('left' | 'right')[] {
+  if (type === 'leg') return ['right']
+  if (type === 'angle' || type === 'square') return ['left', 'right', 'right']
+  return Array.from({ length: k }, (_, t) => (t < Math.ceil(k / 2) ? 'left' : 'right'))
+}
+
 /**
  * Handle offsets (relative to the node's top-left) and their side. Vertex slots h0, h1, h2 go
  * around the node in cyclic order: left, upper right, lower right. Block slots: first half down
- * the left side, the rest down the right side (so the cyclic order runs round the card).
+ * the left side, the rest up the right side (so the cyclic order runs round the card). `data.rot`
+ * rotates slots round these positions (the cyclic order stays), so a line can face its partner.
  */
 export function handleLayout(n: Pick<EditorNode, 'type' | 'data'>): { id: string, x: number, y: number, side: 'left' | 'right' | 'top' | 'bottom' }[] {
   const { width: w, height: h } = nodeSize(n)
   if (n.type === 'leg') return [{ id: 'p', x: w / 2, y: h / 2, side: 'right' }]
+  const rot = Number((n.data as { rot?: number }).rot ?? 0) || 0
+  let base: { x: number, y: number, side: 'left' | 'right' }[]
   if (n.type === 'angle') {
-    return [
-      { id: 'h0', x: 14, y: h / 2, side: 'left' },
-      { id: 'h1', x: w - 7, y: h / 4, side: 'right' },
-      { id: 'h2', x: w - 7, y: (3 * h) / 4, side: 'right' },
+    base = [
+      { x: 14, y: h / 2, side: 'left' },
+      { x: w - 7, y: h / 4, side: 'right' },
+      { x: w - 7, y: (3 * h) / 4, side: 'right' },
     ]
   }
-  if (n.type === 'square') {
-    return [
-      { id: 'h0', x: 0, y: h / 2, side: 'left' },
-      { id: 'h1', x: w, y: h / 4, side: 'right' },
-      { id: 'h2', x: w, y: (3 * h) / 4, side: 'right' },
+  else if (n.type === 'square') {
+    base = [
+      { x: 0, y: h / 2, side: 'left' },
+      { x: w, y: h / 4, side: 'right' },
+      { x: w, y: (3 * h) / 4, side: 'right' },
     ]
   }
-  const k = handleCount(n as EditorNode)
-  const left = Math.ceil(k / 2)
-  const out: { id: string, x: number, y: number, side: 'left' | 'right' }[] = []
-  for (let t = 0; t < k; t++) {
-    const onLeft = t < left
-    const row = onLeft ? t : k - 1 - t
-    out.push({ id: `h${t}`, x: onLeft ? 0 : w, y: 40 + row * BLOCK_ROW + BLOCK_ROW / 2, side: onLeft ? 'left' : 'right' })
+  else {
+    const k = handleCount(n as EditorNode)
+    const left = Math.ceil(k / 2)
+    base = []
+    for (let t = 0; t < k; t++) {
+      const onLeft = t < left
+      const row = onLeft ? t : k - 1 - t
+      base.push({ x: onLeft ? 0 : w, y: 40 + row * BLOCK_ROW + BLOCK_ROW / 2, side: onLeft ? 'left' : 'right' })
+    }
   }
-  return out
+  const k = base.length
+  return base.map((_, t) => ({ id: `h${t}`, ...base[(((t + rot) % k) + k) % k]! }))
+}
+
+/** The slot each handle position shows, after rotation (for labelling a block's rows). */
+export function slotAtPosition(n: Pick<EditorNode, 'type' | 'data'>, position: number, k: number): number {
+  const rot = Number((n.data as { rot?: number }).rot ?? 0) || 0
+  return (((position - rot) % k) + k) % k
+}
+
+/** The rotation that puts the most slots on the side they want (ties: the smallest rotation). */
+export function bestRotation(type: EditorNode['type'], k: number, want: (('left' | 'right') | null)[]): number {
+  const sides = baseSides(type, k)
+  let best = 0
+  let bestScore = -1
+  for (let rot = 0; rot < k; rot++) {
+    let score = 0
+    want.forEach((w, t) => { if (w && sides[(t + rot) % k] === w) score++ })
+    if (score > bestScore) { best = rot; bestScore = score }
+  }
+  return best
 }

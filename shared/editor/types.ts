@@ -6,6 +6,8 @@ export type NodeKind = 'leg' | 'angle' | 'square' | 'block'
 
 /** Where a generated node sits in the term tree: component id and path of its sub-amplitude. */
 export interface Origin {
+  /** Visual rotation of the slots round the node (the cyclic order stays). */
+  rot?: number
   /** Component id (one connected term of the residue sum). */
   comp?: string
   /** Index of the top-level term of the expansion. */

@@ -67,6 +67,17 @@ describe('editor store', () => {
     expect(s.edges).toHaveLength(5)
   })
 
+  it('refuses to glue a leg to a leg, or a handle to itself', () => {
+    const s = useEditorStore()
+    s.load(doc())
+    const a = s.addNode('leg', { x: 0, y: 0 })
+    const b = s.addNode('leg', { x: 0, y: 0 })
+    expect(s.connect({ source: a, target: b, sourceHandle: 'p', targetHandle: 'p' })).toBeNull()
+    const v = s.addNode('angle', { x: 0, y: 0 })
+    expect(s.connect({ source: v, target: v, sourceHandle: 'h0', targetHandle: 'h1' })).toBeNull()
+    expect(s.edges).toHaveLength(0)
+  })
+
   it('a viewer changes nothing', () => {
     const s = useEditorStore()
     s.load({ ...doc(), role: 'viewer' })
