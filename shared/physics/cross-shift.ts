@@ -2,7 +2,9 @@
 // valid shifts agree; at n = 4 this is the four-particle test (Benincasa & Cachazo,
 // arXiv:0705.4305; higher spins McGady & Rodina, arXiv:1311.2938 — references from memory):
 // spin 1, 3, 4 without colour give different residue sums under different shifts.
-import { SingularError, type Field } from './field'
+import { Complex, SingularError, complexField, type Field } from './field'
+import { ddField } from './targets/berends-giele'
+import { fromDoubleDouble, toDoubleDouble } from './kinematics'
 import type { Kin } from './spinors'
 import { bcfw } from './bcfw'
 import { isValidShift, type Process } from './theories'
@@ -24,6 +26,12 @@ export interface CrossShiftResult<T> {
 }
 
 export function crossShift<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], tolerance = 1e-9): CrossShiftResult<T> {
+  if ((F as unknown) === complexField && !p.colourOrdered) {
+    // gravity-like theories in doubles: evaluate in double-double (see toDoubleDouble), report doubles
+    const r = crossShift(ddField, p, toDoubleDouble(k as unknown as Kin<Complex>), h, tolerance)
+    const rows = r.rows.map((x) => ({ ...x, value: x.value === null ? null : (fromDoubleDouble(x.value) as unknown as T) }))
+    return { rows, spread: r.spread, agree: r.agree }
+  }
   const n = h.length
   const rows: CrossShiftRow<T>[] = []
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {

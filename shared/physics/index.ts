@@ -12,6 +12,7 @@ import {
   pointFromSpinors,
   randomPoint,
   rationalPoint,
+  toDoubleDouble,
   toFloatKin,
   type BuiltPoint,
 } from './kinematics'
@@ -20,6 +21,7 @@ import { bcfw, type SubAmplitude, type Term, type Vertex } from './bcfw'
 import { probeFalloff, type FalloffResult } from './falloff'
 import { decideVerdict, deviationOf } from './verdict'
 import { applicableTargets, autoTarget, evaluateTarget, type TargetName } from './targets/index'
+import { ddField } from './targets/berends-giele'
 import { compileFormula, type CompiledFormula } from './formula'
 import {
   EvaluateRequestSchema,
@@ -153,7 +155,12 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   const target = resolveTarget(req.target, theory, helicities, req.spin)
   const point = buildPoint(req.kinematics, n, arithmetic)
   warnings.push(...point.warnings)
-  const body = point.F.kind === 'exact' ? run(point.F as Field<Fraction>, point.kin as Kin<Fraction>) : run(point.F as Field<Complex>, point.kin as Kin<Complex>)
+  const body =
+    point.F.kind === 'exact'
+      ? run(point.F as Field<Fraction>, point.kin as Kin<Fraction>)
+      : p.colourOrdered
+        ? run(point.F as Field<Complex>, point.kin as Kin<Complex>)
+        : run(ddField, toDoubleDouble(point.kin as Kin<Complex>)) // gravity-like: see toDoubleDouble
   return { ...body, ms: Math.round((performance.now() - t0) * 1000) / 1000 }
 
   function run<T>(F: Field<T>, k: Kin<T>): Omit<EvaluateResponse, 'ms'> {
