@@ -59,4 +59,15 @@ describe('point sets in the browser', () => {
     await shot(page, 'pointsets-batch-rows')
     expect(errors).toEqual([])
   })
+
+  it('documents the routes on the API page', async () => {
+    const { page, errors } = b
+    await page.goto('/docs/api#point-sets')
+    await page.waitForLoadState('networkidle')
+    const section = page.locator('[data-test=docs-point-sets]')
+    await section.scrollIntoViewIfNeeded()
+    expect(await section.textContent()).toMatch(/POST\s*\/api\/diagrams\/:id\/batch-checks/)
+    await shot(page, 'pointsets-docs')
+    expect(errors).toEqual([])
+  })
 })
