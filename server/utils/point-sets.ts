@@ -21,7 +21,7 @@ export function pointSetView(row: PointSetRow): PointSetView {
     count: row.count,
     seed: row.seed,
     energy: row.energy,
-    kinematics: meta.kinematics === 'spinors' ? 'spinors' : 'momenta',
+    kinematics: meta.kinematics === 'spinors' || meta.kinematics === 'mixed' ? meta.kinematics : 'momenta',
     meta,
     createdBy: row.createdBy,
     createdAt: row.createdAt,

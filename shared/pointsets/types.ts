@@ -53,7 +53,8 @@ export interface PointSetView {
   count: number
   seed: number | null
   energy: number | null
-  kinematics: 'momenta' | 'spinors'
+  /** `mixed`: a JSON upload with both kinds of points. */
+  kinematics: 'momenta' | 'spinors' | 'mixed'
   meta: Record<string, unknown>
   createdBy: number
   createdAt: string | Date

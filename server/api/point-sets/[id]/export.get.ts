@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const { format } = parseWith(getQuery(event), ExportQuerySchema, 'query')
   const view = pointSetView(pointSet)
   if (format === 'csv' && view.kinematics !== 'momenta') {
-    throw fieldError(422, 'format', 'this point set holds complex spinors; the CSV layout holds real momenta only, so export it as JSON')
+    throw fieldError(422, 'format', `this point set holds ${view.kinematics === 'mixed' ? 'some points as complex spinors' : 'complex spinors'}; the CSV layout holds real momenta only, so export it as JSON`)
   }
   const all: { idx: number, data: PointData }[] = []
   for (let from = 0; from < pointSet.count; from += PAGE) all.push(...await pointsInRange(pointSet.id, from, from + PAGE))
