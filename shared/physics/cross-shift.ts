@@ -26,8 +26,8 @@ export interface CrossShiftResult<T> {
 }
 
 export function crossShift<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], tolerance = 1e-9): CrossShiftResult<T> {
-  if ((F as unknown) === complexField && !p.colourOrdered) {
-    // gravity-like theories in doubles: evaluate in double-double (see toDoubleDouble), report doubles
+  if ((F as unknown) === complexField && p.theory !== 'gluon') {
+    // gravitons, spin s and the cubic scalar in doubles: evaluate in double-double (see toDoubleDouble), report doubles
     const r = crossShift(ddField, p, toDoubleDouble(k as unknown as Kin<Complex>), h, tolerance)
     const rows = r.rows.map((x) => ({ ...x, value: x.value === null ? null : (fromDoubleDouble(x.value) as unknown as T) }))
     return { rows, spread: r.spread, agree: r.agree }

@@ -158,9 +158,9 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   const body =
     point.F.kind === 'exact'
       ? run(point.F as Field<Fraction>, point.kin as Kin<Fraction>)
-      : p.colourOrdered
-        ? run(point.F as Field<Complex>, point.kin as Kin<Complex>)
-        : run(ddField, toDoubleDouble(point.kin as Kin<Complex>)) // gravity-like: see toDoubleDouble
+      : p.theory === 'gluon'
+        ? run(point.F as Field<Complex>, point.kin as Kin<Complex>) // doubles measured ≤ 1e-11 off
+        : run(ddField, toDoubleDouble(point.kin as Kin<Complex>)) // see toDoubleDouble
   return { ...body, ms: Math.round((performance.now() - t0) * 1000) / 1000 }
 
   function run<T>(F: Field<T>, k: Kin<T>): Omit<EvaluateResponse, 'ms'> {
