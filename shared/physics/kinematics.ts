@@ -125,11 +125,13 @@ export function randomPoint(n: number, seed: number | string): Kin<Complex> {
 /**
  * A seeded exact point: real rationals p/q (|p| ≤ 20, 1 ≤ q ≤ 6), split signature, last two λ̃
  * solved. With |p| ≤ 9, q ≤ 4 about 3 in 1000 (point, shift) pairs at n = 6, 7 met an exact
- * spurious zero of some BCFW term; with this range none of 10 800 did (measured).
+ * spurious zero of some BCFW term; with this range none of 10 800 did (measured). A smaller
+ * `range` gives smaller numbers (faster exact arithmetic) where a retry is cheap.
  */
-export function rationalPoint(n: number, seed: number | string): Kin<Fraction> {
+export function rationalPoint(n: number, seed: number | string, range: { numerator: number; denominator: number } = { numerator: 20, denominator: 6 }): Kin<Fraction> {
   const rng = rngOf(`rational:${String(seed)}`)
-  const r = () => new Fraction(Math.floor(rng() * 41) - 20, 1 + Math.floor(rng() * 6))
+  const { numerator: pm, denominator: qm } = range
+  const r = () => new Fraction(Math.floor(rng() * (2 * pm + 1)) - pm, 1 + Math.floor(rng() * qm))
   const draw = (): Kin<Fraction> => ({
     lambda: Array.from({ length: n }, () => [r(), r()] as Spinor<Fraction>),
     lambdaTilde: Array.from({ length: n }, (_, i) => (i < n - 2 ? [r(), r()] : [new Fraction(0), new Fraction(0)]) as Spinor<Fraction>),
