@@ -6,6 +6,8 @@ import { randomPoint, rationalPoint } from '../shared/physics/kinematics'
 import { bcfw } from '../shared/physics/bcfw'
 import { defaultShift, processOf, THEORIES } from '../shared/physics/theories'
 import { berendsGiele } from '../shared/physics/targets/berends-giele'
+import { evaluate } from '../shared/physics/index'
+import type { EvaluateRequestInput } from '../shared/schemas/evaluate'
 
 const quick = process.argv.includes('--quick')
 const gc = (globalThis as { gc?: () => void }).gc
@@ -72,4 +74,32 @@ for (let n = 4; n <= 12; n++) {
   }
 }
 console.log(rows.join('\n'))
+
+// evaluate() end to end for the other theories and the falloff probe (median of 3 calls)
+const ev: [string, EvaluateRequestInput][] = [
+  ['8 cubic scalars, float (double-double)', { theory: 'scalar-cubic', helicities: Array(8).fill(0), kinematics: { kind: 'random', seed: 1 } }],
+  ['8 cubic scalars, exact', { theory: 'scalar-cubic', helicities: Array(8).fill(0), kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact' }],
+  ['6 gravitons NMHV, float (double-double) vs KLT', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2], kinematics: { kind: 'random', seed: 1 } }],
+  ['6 gravitons NMHV, exact vs KLT', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact' }],
+  ['7 gravitons NMHV, float (double-double)', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2, 2], kinematics: { kind: 'random', seed: 1 }, target: 'none' }],
+  ['7 gravitons MHV, float vs Hodges', { theory: 'graviton', helicities: [-2, 2, -2, 2, 2, 2, 2], kinematics: { kind: 'random', seed: 1 } }],
+  ['8-gluon NMHV with the term tree', { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1, 1, 1], kinematics: { kind: 'random', seed: 1 }, tree: true }],
+  ['9-gluon N²MHV exact + falloff probe', { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1, -1, 1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', probeFalloff: true }],
+  ['12-gluon N²MHV float + falloff probe', { theory: 'gluon', helicities: [-1, 1, 1, -1, 1, 1, -1, 1, 1, -1, 1, 1], kinematics: { kind: 'random', seed: 1 }, probeFalloff: true }],
+  ['7 gravitons NMHV float + falloff probe', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2, 2], kinematics: { kind: 'random', seed: 1 }, target: 'none', probeFalloff: true }],
+]
+const evRows = ['| evaluate() request | ms (median of 3) | verdict |', '|---|---|---|']
+for (const [name, req] of ev) {
+  const ms: number[] = []
+  let verdict = ''
+  for (let r = 0; r < (quick ? 1 : 3); r++) {
+    const out = evaluate(req)
+    ms.push(out.ms)
+    verdict = out.verdict
+  }
+  ms.sort((a, b) => a - b)
+  evRows.push(`| ${name} | ${fmt(ms[Math.floor(ms.length / 2)]!)} | ${verdict} |`)
+  console.error(evRows[evRows.length - 1])
+}
+console.log('\n' + evRows.join('\n'))
 console.log(`\npeak RSS ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB; node ${process.version}; load average ${(await import('node:os')).loadavg()[0]!.toFixed(1)} on ${(await import('node:os')).cpus().length} cores; ${quick ? 'quick' : 'full'} run`)
