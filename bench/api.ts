@@ -4,7 +4,7 @@
 //   1. 6-gluon MHV and NMHV at 32 connections: req/s, p50, p99, errors.
 //   2. p99 of GET /api/auth/me (one user, one connection) while 10-gluon evaluations saturate the pool.
 //   3. One request at a time, end to end: 8-gluon N²MHV and 10-gluon NMHV (no tree).
-import { mkdirSync, writeFileSync } from 'node:fs'
+import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { availableParallelism, cpus, loadavg } from 'node:os'
 import { join } from 'node:path'
@@ -39,11 +39,45 @@ const evaluateOpts = (b: string, connections: number, more: Record<string, unkno
   ...more,
 })
 
+/**
+ * CPU time the server has used, ms: its request thread and all other threads (the workers, libuv).
+ * Wall-clock latencies on a shared machine include time spent waiting for a core; CPU time per
+ * request does not, and tells what a quiet machine would see.
+ */
+function serverCpu(pid: number): { main: number, other: number } {
+  const tick = 10 // USER_HZ = 100 on Linux
+  const read = (tid: string) => {
+    const f = readFileSync(`/proc/${pid}/task/${tid}/stat`, 'utf8').split(') ')[1]!.split(' ')
+    return (Number(f[11]) + Number(f[12])) * tick
+  }
+  let main = 0
+  let other = 0
+  for (const tid of readdirSync(`/proc/${pid}/task`)) {
+    try {
+      if (tid === String(pid)) main += read(tid)
+      else other += read(tid)
+    }
+    catch { /* the thread ended */ }
+  }
+  return { main, other }
+}
+
+let serverPid = 0
+async function measured<T extends { requests: { total: number } } | number>(run: () => Promise<T>): Promise<{ result: T, cpu: string, cpuPer: { main: number, other: number } }> {
+  const a = serverCpu(serverPid)
+  const result = await run()
+  const b = serverCpu(serverPid)
+  const n = typeof result === 'number' ? result : result.requests.total
+  const cpuPer = { main: (b.main - a.main) / n, other: (b.other - a.other) / n }
+  return { result, cpu: `server CPU per request: request thread ${fmt(cpuPer.main)} ms, workers ${fmt(cpuPer.other)} ms`, cpuPer }
+}
+
 const fmt = (x: number) => (x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x.toFixed(2))
 
 async function main() {
   const server = await startBuiltServer('api')
   base = server.base
+  serverPid = server.child.pid!
   cookie = await signInDemo(base)
   const duration = quick ? 3 : 10
   // Warm the workers' JIT and the request path.
@@ -53,9 +87,9 @@ async function main() {
   const figures: Record<string, unknown> = { loadBefore: loadavg()[0], node: process.version, cpus: availableParallelism(), cpu: cpus()[0]?.model, threads: Number(process.env.POLEWRIGHT_EVAL_THREADS) || availableParallelism() }
 
   for (const [name, h] of [['6-gluon MHV', gluons(6, 2)], ['6-gluon NMHV', gluons(6, 3)]] as const) {
-    const r = await autocannon(evaluateOpts(body(h), 32, { duration }))
-    figures[name] = { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts + r.non2xx }
-    rows.push(`| ${name}, 32 connections, ${duration} s | ${fmt(r.requests.average)} req/s | p50 ${r.latency.p50} ms | p99 ${r.latency.p99} ms | errors ${r.errors + r.timeouts} · non-2xx ${r.non2xx} |`)
+    const { result: r, cpu, cpuPer } = await measured(() => autocannon(evaluateOpts(body(h), 32, { duration })))
+    figures[name] = { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts + r.non2xx, cpuPer }
+    rows.push(`| ${name}, 32 connections, ${duration} s | ${fmt(r.requests.average)} req/s | p50 ${r.latency.p50} ms | p99 ${r.latency.p99} ms | errors ${r.errors + r.timeouts} · non-2xx ${r.non2xx}; ${cpu} |`)
   }
 
   // 2. Saturate the pool with 10-gluon NMHV evaluations, and meanwhile call /api/auth/me as one user.
@@ -74,21 +108,26 @@ async function main() {
     const times: number[] = []
     let engine = 0
     let verdict = ''
-    for (let k = 0; k < amount + 50; k++) {
-      const t = performance.now()
-      const res = await fetch(`${base}/api/evaluate`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body: b })
-      const json = await res.json() as { ms: number, verdict: string }
-      if (k >= 50) {
+    const warm = async () => {
+      for (let k = 0; k < 50; k++) await (await fetch(`${base}/api/evaluate`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body: b })).json()
+    }
+    await warm()
+    const { cpu, cpuPer } = await measured(async () => {
+      for (let k = 0; k < amount; k++) {
+        const t = performance.now()
+        const res = await fetch(`${base}/api/evaluate`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body: b })
+        const json = await res.json() as { ms: number, verdict: string }
         times.push(performance.now() - t)
         engine += json.ms
+        verdict = json.verdict
       }
-      verdict = json.verdict
-    }
+      return amount
+    })
     times.sort((x, y) => x - y)
     const q = (p: number) => times[Math.min(times.length - 1, Math.floor(p * times.length))]!
     const mean = times.reduce((a, x) => a + x, 0) / times.length
-    figures[name] = { mean, p50: q(0.5), p99: q(0.99), engineMs: engine / amount, verdict }
-    rows.push(`| ${name}, one at a time (${amount} requests) | mean ${fmt(mean)} ms | p50 ${fmt(q(0.5))} ms | p99 ${fmt(q(0.99))} ms | engine ${fmt(engine / amount)} ms, ${verdict} |`)
+    figures[name] = { mean, p50: q(0.5), p99: q(0.99), engineMs: engine / amount, verdict, cpuPer }
+    rows.push(`| ${name}, one at a time (${amount} requests) | mean ${fmt(mean)} ms | p50 ${fmt(q(0.5))} ms | p99 ${fmt(q(0.99))} ms | engine ${fmt(engine / amount)} ms, ${verdict}; ${cpu} |`)
   }
 
   console.log(`\nPolewright API bench — Node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? '?'}), ${figures.threads} evaluation threads, load average ${loadavg()[0]!.toFixed(1)} at the end (${Number(figures.loadBefore).toFixed(1)} at the start)\n`)
