@@ -73,8 +73,8 @@ function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, nu
   return bcfw(Q, p, k, h, alt).value
 }
 
-/** Least-squares slope of ln|A| against ln z, and the spread of the two-point slopes. */
-function fit(xs: number[], ys: number[]): { slope: number; spread: number } {
+/** Least-squares slope of y against x (ln|A| against ln z), and the spread of the two-point slopes. */
+export function fit(xs: number[], ys: number[]): { slope: number; spread: number } {
   const m = xs.length
   const mx = xs.reduce((a, b) => a + b, 0) / m
   const my = ys.reduce((a, b) => a + b, 0) / m

@@ -256,7 +256,7 @@ export { THEORIES, LIMITS, validateProcess, processOf, isValidShift, defaultShif
 export type { TheoryName, Process } from './theories'
 export { bcfw, bcfwValue, channels } from './bcfw'
 export { threePoint, threePointFormula, boseSymmetry } from './three-point'
-export { probeFalloff, falloffTable } from './falloff'
+export { probeFalloff, falloffTable, fit as fitSlope } from './falloff'
 export type { FalloffRow, FalloffResult } from './falloff'
 export { crossShift } from './cross-shift'
 export type { CrossShiftResult, CrossShiftRow } from './cross-shift'
