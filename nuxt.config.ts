@@ -66,4 +66,9 @@ export default defineNuxtConfig({
     },
   },
   typescript: { strict: true },
+  routeRules: {
+    // Point-file uploads: the route itself refuses files over 10 MB with a message naming the field;
+    // the global 12 MB cap would answer first with a bare 413, so it is raised here as a backstop only.
+    '/api/projects/*/point-sets': { security: { requestSizeLimiter: { maxRequestSizeInBytes: 4_000_000, maxUploadFileRequestInBytes: 64_000_000, throwError: true } } },
+  },
 })

@@ -92,6 +92,10 @@ describe('uploads', () => {
     const big = await upload(ctx.editor, pid, 'big.csv', new Uint8Array(10 * 1024 * 1024 + 10).fill(32))
     expect(big.status).toBe(413)
     expect(big.body.message).toMatch(/^file: .*the limit is 10.0 MB/)
+    // Far over the cap: refused on the declared length, before the body is read, still naming the field.
+    const huge = await upload(ctx.editor, pid, 'huge.csv', new Uint8Array(13 * 1024 * 1024).fill(32))
+    expect(huge.status).toBe(413)
+    expect(huge.body.message).toMatch(/^file: the upload is 13.0 MB; the limit is 10.0 MB/)
   })
 
   it('names the field for a missing file and a bad form field', async () => {
