@@ -28,7 +28,8 @@ import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/f
 import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
 import {
   CrossShiftRequestSchema,
-  SHIFTS_MEASURE_LIMIT,
+  SHIFTS_MEASURE_LIMITS,
+  shiftsMeasureLimit,
   ShiftsRequestSchema,
   type CrossShiftResponse,
   type ShiftRow,
@@ -199,8 +200,9 @@ function shifts(input: unknown): ShiftsResponse {
   const n = req.helicities.length
   const table = falloffTable(req.theory, req.helicities, req.spin)
   const needsProbe = req.measure || table.some((r) => r.exponent === null)
-  if (needsProbe && n > SHIFTS_MEASURE_LIMIT)
-    throw new PhysicsError('helicities', `${n} legs exceed the limit of ${SHIFTS_MEASURE_LIMIT} for measuring the falloff of every shift exactly`)
+  const limit = shiftsMeasureLimit(req.theory)
+  if (needsProbe && n > limit)
+    throw new PhysicsError('helicities', `${n} legs exceed the limit of ${limit} for measuring the falloff of every shift exactly (${req.theory})`)
   const rows: ShiftRow[] = table.map((r) => {
     if (!req.measure && r.exponent !== null) return { shift: r.shift, exponent: r.exponent, valid: r.valid, source: 'table' }
     const f = probeFalloff(p, req.helicities, r.shift[0] - 1, r.shift[1] - 1)
@@ -319,7 +321,7 @@ function catalogue() {
     shifts: {
       notation: '[i,j⟩: λ̃_i → λ̃_i + z λ̃_j, λ_j → λ_j − z λ_i',
       defaultRule: 'gluons, gravitons and spin s: [i, i+1⟩ with i the first negative-helicity leg ([1,2⟩ with none); cubic scalar: [1,3⟩',
-      measureLimit: SHIFTS_MEASURE_LIMIT,
+      measureLimits: SHIFTS_MEASURE_LIMITS,
     },
   }
 }

@@ -4,8 +4,16 @@
 import { z } from 'zod'
 import { EvaluateRequestSchema, KinematicsSchema, TheoryEnum } from './evaluate'
 
-/** The largest n for which every shift's falloff is measured exactly (`measure: true`). */
-export const SHIFTS_MEASURE_LIMIT = 8
+/**
+ * The largest n for which every shift's falloff is measured exactly (`measure: true`): n(n−1)
+ * shifts × probe points × an exact recursion each; above these it takes longer than a request's
+ * time budget on two cores.
+ */
+export const SHIFTS_MEASURE_LIMITS = { 'gluon': 7, 'graviton': 6, 'scalar-cubic': 8, 'spin': 6 } as const
+
+export function shiftsMeasureLimit(theory: keyof typeof SHIFTS_MEASURE_LIMITS): number {
+  return SHIFTS_MEASURE_LIMITS[theory]
+}
 
 export const ProcessRequestSchema = z.object({
   theory: TheoryEnum,
@@ -15,7 +23,7 @@ export const ProcessRequestSchema = z.object({
 
 /** POST /api/shifts: every [i,j⟩ shift with its falloff exponent and validity. */
 export const ShiftsRequestSchema = ProcessRequestSchema.extend({
-  /** true: measure every exponent exactly (n ≤ SHIFTS_MEASURE_LIMIT); false: CONVENTIONS.md's table. */
+  /** true: measure every exponent exactly (n ≤ SHIFTS_MEASURE_LIMITS[theory]); false: CONVENTIONS.md's table. */
   measure: z.boolean().default(false),
 })
 
