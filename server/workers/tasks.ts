@@ -299,6 +299,7 @@ function catalogue() {
       minLegs: t.minLegs,
       limits: t.limits,
       targets: [...TARGETS.filter((x) => x.theories.includes(t.name)).map((x) => x.name), 'formula', 'none'],
+      ...(t.name === 'spin' ? { targetsNote: 'hodges and klt apply to spin 2 only; for any other s, auto means none' } : {}),
     }
   })
   return {
