@@ -54,7 +54,9 @@ export function parseJson(text: string): ParsedFile & { n?: number, name?: strin
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!
     const path = formatPath(issue.path)
-    throw new PointFileError(null, null, `${path ? `${path}: ` : ''}${issue.message}`)
+    const at = offsetOfPath(text, issue.path)
+    const where = at === null ? { line: null, column: null } : lineColumn(text, at)
+    throw new PointFileError(where.line, where.column, `${path ? `${path}: ` : ''}${issue.message}`)
   }
   const points: PointData[] = parsed.data.points.map((p, i) => ({
     label: p.label === undefined ? String(i + 1) : String(p.label),
@@ -77,4 +79,91 @@ export function toJsonFile(name: string, n: number, points: { idx: number, data:
       ...(d.codes ? { codes: d.codes } : {}),
     })),
   }
+}
+
+/**
+ * Where the value at a path starts in a JSON text that parses (so a schema error can name its line
+ * and column too); null when the path leads nowhere (e.g. a missing key: then its parent).
+ */
+export function offsetOfPath(text: string, path: readonly PropertyKey[]): number | null {
+  let i = 0
+  const ws = () => {
+    while (i < text.length && /\s/.test(text[i]!)) i++
+  }
+  const skipString = () => {
+    i++
+    while (i < text.length && text[i] !== '"') i += text[i] === '\\' ? 2 : 1
+    i++
+  }
+  const skipValue = (): void => {
+    ws()
+    const c = text[i]
+    if (c === '"') return skipString()
+    if (c === '{' || c === '[') {
+      const close = c === '{' ? '}' : ']'
+      i++
+      ws()
+      if (text[i] === close) {
+        i++
+        return
+      }
+      for (;;) {
+        if (c === '{') {
+          ws()
+          skipString()
+          ws()
+          i++ // the colon
+        }
+        skipValue()
+        ws()
+        if (text[i++] === close) return
+      }
+    }
+    while (i < text.length && !/[\s,\]}]/.test(text[i]!)) i++
+  }
+  let found = 0
+  ws()
+  for (const seg of path) {
+    ws()
+    const c = text[i]
+    if (typeof seg === 'number' && c === '[') {
+      i++
+      for (let k = 0; k < seg; k++) {
+        skipValue()
+        ws()
+        if (text[i] !== ',') return found
+        i++
+      }
+      ws()
+      if (text[i] === ']') return found
+    }
+    else if (typeof seg === 'string' && c === '{') {
+      i++
+      let hit = false
+      for (;;) {
+        ws()
+        if (text[i] !== '"') return found
+        const start = i
+        skipString()
+        const key = JSON.parse(text.slice(start, i)) as string
+        ws()
+        i++ // the colon
+        ws()
+        if (key === seg) {
+          hit = true
+          break
+        }
+        skipValue()
+        ws()
+        if (text[i] !== ',') return found
+        i++
+      }
+      if (!hit) return found
+    }
+    else return found
+    ws()
+    found = i
+  }
+  ws()
+  return i
 }
