@@ -110,10 +110,12 @@ try {
       if (performance.now() - t0 > 30_000) throw new Error('timeout')
     }
     await frame()
-    return { ms: performance.now() - t0, nodes: document.querySelectorAll('.vue-flow__node').length }
+    const pinia = (document.querySelector('#__nuxt') as unknown as { __vue_app__: { config: { globalProperties: { $pinia: { state: { value: { editor: { lastLayoutMs: number } } } } } } } }).__vue_app__.config.globalProperties.$pinia
+    return { ms: performance.now() - t0, nodes: document.querySelectorAll('.vue-flow__node').length, layout: pinia.state.value.editor.lastLayoutMs }
   }, sel)
   const cold: number[] = []
   const warm: number[] = []
+  const layoutMs: number[] = []
   let shown = 0
   for (let k = 0; k < 5; k++) {
     // Back to the channel terms (fetches the tree), then expand fully: cold the first time, then warm.
@@ -123,6 +125,7 @@ try {
     const r = await clickAndWait('[data-test=expand-full]')
     shown = r.nodes
     warm.push(r.ms)
+    layoutMs.push(r.layout)
   }
   // Cold: a fresh page load, the tree not yet in memory, so the click fetches it from the server.
   for (let k = 0; k < 3; k++) {
@@ -133,15 +136,17 @@ try {
     const r = await clickAndWait('[data-test=expand-full]')
     cold.push(r.ms)
   }
-  console.log(`  chromium: click "Expand fully" → ${shown} nodes rendered: cold (term tree from the server) ${median(cold).toFixed(0)} ms, warm ${median(warm).toFixed(0)} ms (medians of ${cold.length} and ${warm.length})`)
+  console.log(`  chromium: click "Expand fully" → ${shown} nodes rendered: cold (term tree from the server) ${median(cold).toFixed(0)} ms, warm ${median(warm).toFixed(0)} ms, of which expand + layout ${median(layoutMs).toFixed(0)} ms (medians of ${cold.length} and ${warm.length})`)
 
   // ---- 2. panning with 300+ nodes ----
-  const big = expandedGraph({ theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1, -1, 1], shift: [1, 2] }, true)
+  // Copies of the fully expanded 8-gluon NMHV canvas, stacked, until there are 300 nodes or more.
+  const big = expandedGraph(NMHV8, true)
   const copies = Math.max(1, Math.ceil(300 / big.nodes.length))
+  const height = Math.max(...big.nodes.map(n => n.position.y)) + 160
   const nodes = []
   const edges = []
   for (let c = 0; c < copies; c++) {
-    const dy = c * 1800
+    const dy = c * height
     nodes.push(...big.nodes.map(n => ({ ...n, id: `k${c}${n.id}`, position: { x: n.position.x, y: n.position.y + dy } })))
     edges.push(...big.edges.map(e => ({ ...e, id: `k${c}${e.id}`, source: `k${c}${e.source}`, target: `k${c}${e.target}` })))
   }
@@ -173,7 +178,7 @@ try {
   }
   const rendered = await page.locator('.vue-flow__node').count()
   const best = runs.sort((a, b) => b.fps - a.fps)[1]!
-  console.log(`panning ${nodes.length} nodes (${rendered} in the DOM: only visible elements are rendered beyond 200), mouse drag of 120 steps: ${best.fps.toFixed(0)} frames/s, frame time p95 ${best.p95.toFixed(1)} ms, worst ${best.worst.toFixed(1)} ms (median run of 3)`)
+  console.log(`panning ${nodes.length} nodes (${rendered} in the DOM), mouse drag of 120 steps: ${best.fps.toFixed(0)} frames/s, frame time p95 ${best.p95.toFixed(1)} ms, worst ${best.worst.toFixed(1)} ms (median run of 3)`)
 }
 finally {
   await ctx.close()

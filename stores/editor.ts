@@ -68,6 +68,8 @@ export const useEditorStore = defineStore('editor', () => {
   const pickingShift = ref(false)
   /** Bumped when the canvas should fit its view (after an expansion, a load, an import). */
   const fitToken = ref(0)
+  /** Milliseconds of the last expand + layout (for the benchmark). */
+  const lastLayoutMs = ref(0)
 
   const readOnly = computed(() => role.value === 'viewer')
   const validation = computed(() => validateGraph(nodes.value, edges.value, process.value))
@@ -331,8 +333,11 @@ export const useEditorStore = defineStore('editor', () => {
   // ---- expansion ----
   function rebuild(specs: CompSpec[]) {
     if (!tree.value || !process.value) return
+    const t0 = performance.now()
     const g = specsToGraph(tree.value, specs)
     nodes.value = layoutGraph(g.nodes, g.edges)
+    // Read by the browser benchmark (bench/editor.ts).
+    lastLayoutMs.value = performance.now() - t0
     edges.value = g.edges
     expansion.value = { key: processKey(process.value), seed: expansion.value?.seed ?? 'structure', specs }
     fitToken.value++
@@ -456,7 +461,7 @@ export const useEditorStore = defineStore('editor', () => {
 
   return {
     diagramId, projectId, title, version, role, process, settings, nodes, edges, expansion, tree, selection, selectedEdges,
-    undoStack, redoStack, result, resultKey, highlightTerm, shiftPick, pickingShift, fitToken,
+    undoStack, redoStack, result, resultKey, highlightTerm, shiftPick, pickingShift, fitToken, lastLayoutMs,
     readOnly, validation, nodeById, expansionStale, termComponents, highlighted, dirty,
     toGraph, load, markSaved, commit, undo, redo, setProcess, setShift, setTitle, pickLeg,
     addNode, connect, updateNodeData, setNodeType, updateEdgeData, flipLine, moveNodes, removeIds, removeSelected, clearCanvas, tidy,

@@ -70,7 +70,8 @@ export function layoutPositions(nodes: EditorNode[], edges: EditorEdge[], opts: 
       const [a, b] = orient(e, byId)
       g.setEdge(a, b)
     }
-    layout(g)
+    // No incremental re-layout state: each call lays out a fresh graph (and is faster without it).
+    layout(g, { useDynamic: false })
     let minX = Infinity
     let minY = Infinity
     let maxX = -Infinity
