@@ -138,12 +138,23 @@ function progressOf(row: CheckRow, l?: Live): BatchProgress {
   }
 }
 
-/** A batch left "running" by a previous server process is marked failed on first sight. */
+/** When this server process started: a batch created since then has its runner here. */
+const PROCESS_STARTED = Date.now()
+
+/**
+ * A batch left queued or running by a previous server process is marked failed on first sight.
+ * Only rows created before this process started qualify (created_at has whole seconds), so a
+ * row read just before its runner here finished is never mistaken for one.
+ */
 async function settleOrphan(row: CheckRow): Promise<CheckRow> {
   if (row.kind !== 'batch' || TERMINAL.has(row.status) || live.has(row.id)) return row
+  if (new Date(row.createdAt).getTime() >= PROCESS_STARTED - 1000) {
+    return (await useDB().select().from(tables.checks).where(eq(tables.checks.id, row.id)).get()) ?? row
+  }
   const summary = { ...(await batchSummary(row.id)), message: `interrupted: the server restarted while the batch ran; ${row.done} of ${row.total} points were stored` }
-  return (await useDB().update(tables.checks).set({ status: 'failed', summary, verdict: summary.verdict })
-    .where(eq(tables.checks.id, row.id)).returning().get()) ?? row
+  const updated = await useDB().update(tables.checks).set({ status: 'failed', summary, verdict: summary.verdict })
+    .where(and(eq(tables.checks.id, row.id), inArray(tables.checks.status, ['queued', 'running']))).returning().get()
+  return updated ?? (await useDB().select().from(tables.checks).where(eq(tables.checks.id, row.id)).get()) ?? row
 }
 
 export async function batchView(row: CheckRow) {

@@ -257,7 +257,7 @@ describe('batch checks', () => {
     expect((await ctx.editor.del(`/api/point-sets/${set.id}`)).status).toBe(204)
     expect((await ctx.viewer.get(`/api/point-sets/${set.id}`)).status).toBe(404)
     const after = (await ctx.viewer.get(`/api/batch-checks/${chk.id}`)).body
-    expect(after).toMatchObject({ status: 'done', pointSetId: null })
+    expect(after, JSON.stringify(after)).toMatchObject({ status: 'done', pointSetId: null })
     expect((await ctx.viewer.get(`/api/checks/${chk.id}/points`)).body.total).toBe(5)
   })
 })
