@@ -60,6 +60,45 @@ describe('point sets in the browser', () => {
     expect(errors).toEqual([])
   })
 
+  it('shows a running batch with its progress, and cancels it from the page', async () => {
+    const owner = await signIn(demo.owner)
+    const project = (await owner.get('/api/projects')).body.find((p: { name: string }) => p.name.startsWith('Brackenridge'))
+    const set = (await owner.post(`/api/projects/${project.id}/point-sets/generate`, { kind: 'physical', n: 8, count: 6000, seed: 8, name: 'Eight legs, 6000 points' })).body
+    const diagram = (await owner.post(`/api/projects/${project.id}/diagrams`, { title: 'Eight gluons, NMHV', graph: { schemaVersion: 1, nodes: [], edges: [], process: { theory: 'gluon', helicities: [-1, -1, -1, 1, 1, 1, 1, 1] } } })).body
+    const check = (await owner.post(`/api/diagrams/${diagram.id}/batch-checks`, { pointSetId: set.id })).body
+    const { page, errors } = b
+    await page.goto(`/projects/${project.id}/batch-checks/${check.id}`)
+    await page.waitForFunction(() => /running/.test(document.querySelector('[data-test=batch-status]')?.textContent ?? ''), null, { timeout: 30_000 })
+    await page.waitForSelector('[data-test=batch-live-counts]', { timeout: 30_000 })
+    await shot(page, 'pointsets-running')
+    await page.click('[data-test=cancel]')
+    await page.waitForFunction(() => document.querySelector('[data-test=batch-status]')?.textContent === 'cancelled', null, { timeout: 30_000 })
+    expect(await page.locator('[data-test=batch-progress]').textContent()).toMatch(/cancelled after \d+ of 6000 points/)
+    expect(errors).toEqual([])
+  })
+
+  it('gives a viewer the pages without the forms', async () => {
+    const viewer = await openBrowser()
+    try {
+      const owner = await signIn(demo.owner)
+      const project = (await owner.get('/api/projects')).body.find((p: { name: string }) => p.name.startsWith('Brackenridge'))
+      const set = (await owner.get(`/api/projects/${project.id}/point-sets`)).body.find((s: { name: string }) => s.name.startsWith('Five-gluon phase-space'))
+      await signInBrowser(viewer.page, demo.viewer, demo.password)
+      await viewer.page.goto(`/projects/${project.id}/point-sets`)
+      await viewer.page.waitForLoadState('networkidle')
+      expect(await viewer.page.locator('[data-test=upload-form]').count()).toBe(0)
+      await viewer.page.goto(`/projects/${project.id}/point-sets/${set.id}`)
+      await viewer.page.waitForLoadState('networkidle')
+      expect(await viewer.page.locator('[data-test=point]').count()).toBe(20)
+      expect(await viewer.page.locator('[data-test=delete-set]').count()).toBe(0)
+      expect(await viewer.page.locator('[data-test=batch-form]').count()).toBe(0)
+      expect(viewer.errors).toEqual([])
+    }
+    finally {
+      await viewer.close()
+    }
+  })
+
   it('documents the routes on the API page', async () => {
     const { page, errors } = b
     await page.goto('/docs/api#point-sets')
