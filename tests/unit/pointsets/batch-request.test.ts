@@ -6,12 +6,13 @@ import { requestFor, codeMismatch } from '../../../server/utils/batch'
 import { evaluateInOrder } from '../../../server/workers/tasks'
 import { evaluate } from '../../../shared/physics/index'
 import { generatePoint } from '../../../shared/pointsets'
+import type { Process } from '../../../shared/schemas/graph'
 
 describe('batch requests', () => {
-  it.each([
-    [{ theory: 'gluon' as const, helicities: [-1, 1, -1, 1, 1], order: [1, 3, 2, 5, 4], shift: [1, 3] as [number, number] }],
-    [{ theory: 'gluon' as const, helicities: [-1, -1, 1, 1, 1, 1], order: [2, 1, 3, 4, 6, 5] }],
-    [{ theory: 'graviton' as const, helicities: [-2, -2, 2, 2], order: [1, 3, 2, 4] }],
+  it.each<[Process & { order: number[] }]>([
+    [{ theory: 'gluon', helicities: [-1, 1, -1, 1, 1], order: [1, 3, 2, 5, 4], shift: [1, 3] }],
+    [{ theory: 'gluon', helicities: [-1, -1, 1, 1, 1, 1], order: [2, 1, 3, 4, 6, 5] }],
+    [{ theory: 'graviton', helicities: [-2, -2, 2, 2], order: [1, 3, 2, 4] }],
   ])('a colour order gives what the single check gives (%#)', (process) => {
     const point = generatePoint('physical', process.helicities.length, 5, 0, 3)
     const res = evaluate(requestFor({ process, target: 'auto' }, point))
