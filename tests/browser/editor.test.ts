@@ -89,6 +89,18 @@ describe('diagram editor', () => {
     await expect.poll(() => page.locator('[data-test=falloff-plot] canvas').count(), { timeout: 30_000 }).toBe(1)
     await expect.poll(() => page.locator('[data-test=cross-shift]').textContent()).toContain('valid shifts agree')
     await shot(page, 'editor-six-gluon-agrees')
+    // The run of the saved process is stored as a Check and listed beside the diagram.
+    expect(await page.locator('[data-test=stored-as]').textContent()).toMatch(/stored as check #\d+/)
+    await page.click('[data-test=tab-checks]')
+    await expect.poll(() => page.locator('[data-test=checks] li').count()).toBeGreaterThan(0)
+    await expect.poll(() => page.locator('[data-test=checks] li').first().textContent()).toContain('agrees')
+    await page.click('[data-test=tab-revisions]')
+    await expect.poll(() => page.locator('[data-test=revisions] li').count()).toBeGreaterThan(0)
+    await page.click('[data-test=tab-comments]')
+    await page.waitForLoadState('networkidle')
+    await page.click('[data-test=tab-check]')
+    await expect.poll(() => page.locator('[data-test=kinematics]').count()).toBe(1)
+    await page.click('[data-test=tab-inspect]')
     // Fully expanded: only three-point vertices remain.
     await page.click('[data-test=expand-full]')
     await expect.poll(() => page.locator('[data-test=block]').count()).toBe(0)
