@@ -102,8 +102,8 @@ export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shif
       const [l, r] = a.x <= b.x ? [d.helicity, th] : [th, d.helicity]
       const mx = (a.x + b.x) / 2
       const my = (a.y + b.y) / 2
-      out.push(`<rect x="${mx - 17}" y="${my - 10}" width="34" height="20" rx="10" fill="#fff" stroke="${PALETTE.inkSoft}"/>`)
-      out.push(`<text x="${mx}" y="${my + 4}" font-size="12" text-anchor="middle" fill="${PALETTE.ink}">${sign(l)}|${sign(r)}</text>`)
+      out.push(`<rect x="${mx - 20}" y="${my - 10}" width="40" height="20" rx="10" fill="#fff" stroke="${PALETTE.inkSoft}"/>`)
+      out.push(`<text x="${mx}" y="${my + 4}" font-size="12" text-anchor="middle" fill="${PALETTE.ink}">${helicityText(l)}|${helicityText(r)}</text>`)
     }
   }
   for (const n of nodes) {
