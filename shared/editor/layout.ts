@@ -53,7 +53,7 @@ function orient(e: EditorEdge, byId: Map<string, EditorNode>): [string, string] 
 
 /** Top-left positions for every node. */
 export function layoutPositions(nodes: EditorNode[], edges: EditorEdge[], opts: LayoutOptions = {}): Map<string, { x: number, y: number }> {
-  const { maxRowWidth = 1500, gap = 70, nodesep = 26, ranksep = 56, origin = { x: 0, y: 0 } } = opts
+  const { maxRowWidth = 1500, gap = 70, nodesep = 28, ranksep = 78, origin = { x: 0, y: 0 } } = opts
   const byId = new Map(nodes.map(n => [n.id, n]))
   const out = new Map<string, { x: number, y: number }>()
   let x = origin.x
