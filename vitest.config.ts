@@ -9,7 +9,7 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', sequence: { groupOrder: 0 } },
       },
       {
         resolve: { alias },
@@ -22,6 +22,8 @@ export default defineConfig({
           hookTimeout: 120_000,
           testTimeout: 120_000,
           maxWorkers: 2,
+          // Runs after the unit project, so the server does not compete with the engine tests.
+          sequence: { groupOrder: 1 },
         },
       },
     ],
