@@ -15,7 +15,7 @@ export function commentView(row: CommentRow, authorName: string | null, me: { id
     author: { id: row.userId, name: authorName ?? 'a former member' },
     createdAt: row.createdAt,
     updatedAt: row.updatedAt,
-    edited: row.updatedAt.getTime() - row.createdAt.getTime() > 1000,
+    edited: row.updatedAt.getTime() > row.createdAt.getTime(),
     canEdit: row.userId === me.id,
     canDelete: row.userId === me.id || me.role === 'owner',
   }
@@ -39,8 +39,10 @@ export async function createComment(event: H3Event, access: ProjectAccess, targe
   // Viewers may comment, so requireProjectRole(…, 'viewer') did not check the token's scope.
   requireWriteScope(access.auth)
   const { body } = await readValid(event, CommentBodySchema)
+  // Both stamps in milliseconds and equal, so any later edit shows as one.
+  const now = new Date()
   const row = await useDB().insert(tables.comments).values({
-    projectId: access.project.id, diagramId: target.diagramId, checkId: target.checkId, userId: access.user.id, body,
+    projectId: access.project.id, diagramId: target.diagramId, checkId: target.checkId, userId: access.user.id, body, createdAt: now, updatedAt: now,
   }).returning().get()
   await audit(access.project.id, access.user.id, 'comment.create', 'comment', row.id, {
     diagramId: target.diagramId, checkId: target.checkId, title: target.title, excerpt: excerpt(body),
