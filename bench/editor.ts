@@ -4,17 +4,15 @@
 //      functions in node, and end to end in chromium (click → every node rendered), cold (term tree
 //      from the server) and warm (tree in memory).
 //   2. Panning a canvas of 300+ nodes by mouse drag in chromium: frame rate and frame-time p95.
-import { spawn } from 'node:child_process'
-import { mkdtempSync, rmSync, existsSync } from 'node:fs'
 import { createRequire } from 'node:module'
-import { tmpdir } from 'node:os'
-import { join, resolve } from 'node:path'
+import { join } from 'node:path'
 import { evaluate } from '../shared/physics/index'
 import { expandAllSpecs, specsToGraph, topSpecs, STRUCTURE_SEED } from '../shared/editor/expand'
 import { evaluateRequest, toLabels } from '../shared/editor/process'
 import { layoutGraph } from '../shared/editor/layout'
 import { expandedGraph } from '../shared/editor/demo'
 import type { Process } from '../shared/schemas/graph'
+import { startBuiltServer } from './server'
 
 const require = createRequire(join(process.cwd(), 'package.json'))
 const { chromium } = require('playwright-core') as typeof import('playwright-core')
@@ -45,33 +43,8 @@ const NMHV8: Process = { theory: 'gluon', helicities: [-1, -1, -1, 1, 1, 1, 1, 1
 }
 
 // ---- the server and the browser ----
-const root = process.cwd()
-const output = process.env.POLEWRIGHT_BENCH_OUTPUT || '.output'
-const entry = resolve(root, output, 'server/index.mjs')
-if (!existsSync(entry)) {
-  console.error(`No build at ${entry}: run "npx nuxt build" first (or set POLEWRIGHT_BENCH_OUTPUT).`)
-  process.exit(2)
-}
-const dir = mkdtempSync(join(tmpdir(), 'polewright-bench-editor-'))
-const port = 3700 + Math.floor(Math.random() * 200)
-const base = `http://127.0.0.1:${port}`
-const server = spawn(process.execPath, [entry], {
-  cwd: root,
-  stdio: ['ignore', 'ignore', 'inherit'],
-  env: {
-    ...process.env, PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production',
-    DATABASE_URL: `file:${join(dir, 'bench.db')}`,
-    NUXT_SESSION_PASSWORD: 'bench-session-password-0123456789-abcdefghijkl',
-    POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'), POLEWRIGHT_SEED: '1',
-  },
-})
-for (let i = 0; i < 300; i++) {
-  try {
-    if ((await fetch(`${base}/api/auth/me`)).status > 0) break
-  }
-  catch { /* not up */ }
-  await new Promise(r => setTimeout(r, 100))
-}
+const server = await startBuiltServer('editor')
+const { base, dir } = server
 const ctx = await chromium.launchPersistentContext(join(dir, 'profile'), {
   executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
   args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run'],
@@ -182,6 +155,5 @@ try {
 }
 finally {
   await ctx.close()
-  server.kill('SIGTERM')
-  rmSync(dir, { recursive: true, force: true })
+  server.stop()
 }

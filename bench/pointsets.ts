@@ -3,38 +3,13 @@
 // streaming progress over SSE; we time it end to end and sample the server's resident memory.
 // Run: `npm run bench -- pointsets` or `node bench/run.mjs pointsets [--points=N]` after a build
 // (POLEWRIGHT_BENCH_OUTPUT picks another build folder). Aim: 10,000 points in under 10 s on 2 cores.
-import { spawn } from 'node:child_process'
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs'
-import { availableParallelism, cpus, tmpdir } from 'node:os'
-import { join, resolve } from 'node:path'
+import { readFileSync } from 'node:fs'
+import { availableParallelism, cpus } from 'node:os'
+import { signInDemo, startBuiltServer } from './server'
 
 const arg = (name: string, def: number) => Number(process.argv.find(a => a.startsWith(`--${name}=`))?.split('=')[1] ?? def)
 const POINTS = arg('points', 10_000)
-const root = process.cwd()
-const output = process.env.POLEWRIGHT_BENCH_OUTPUT || '.output'
-const entry = resolve(root, output, 'server/index.mjs')
-if (!existsSync(entry)) {
-  console.error(`No build at ${entry}: run "npx nuxt build" first (or set POLEWRIGHT_BENCH_OUTPUT).`)
-  process.exit(2)
-}
-const dir = mkdtempSync(join(tmpdir(), 'polewright-bench-ps-'))
-const port = 3500 + Math.floor(Math.random() * 150)
-const base = `http://127.0.0.1:${port}`
-const server = spawn(process.execPath, [entry], {
-  cwd: root,
-  stdio: ['ignore', 'ignore', 'inherit'],
-  env: {
-    ...process.env, PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production',
-    DATABASE_URL: `file:${join(dir, 'bench.db')}`,
-    NUXT_SESSION_PASSWORD: 'bench-session-password-0123456789-abcdefghijkl',
-    POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'),
-    POLEWRIGHT_SEED: '1',
-  },
-})
-process.on('exit', () => {
-  server.kill('SIGTERM')
-  rmSync(dir, { recursive: true, force: true })
-})
+const { base, child: server } = await startBuiltServer('ps')
 
 /** Resident memory of the server process (all its threads), MB: now and the peak so far. */
 function memory() {
@@ -62,15 +37,7 @@ async function api(method: string, path: string, body?: unknown) {
   return json
 }
 
-for (let i = 0; ; i++) {
-  try {
-    if ((await fetch(`${base}/api/auth/me`)).status > 0) break
-  }
-  catch { /* not up yet */ }
-  if (i > 300) throw new Error('server did not start')
-  await new Promise(r => setTimeout(r, 100))
-}
-await api('POST', '/api/auth/login', { email: 'ines.varga@example.test', password: 'polewright-demo' })
+cookie = await signInDemo(base)
 const project = (await api('GET', '/api/projects'))[0]
 const diagram = await api('POST', `/api/projects/${project.id}/diagrams`, {
   title: 'Bench: six gluons, NMHV', graph: { schemaVersion: 1, nodes: [], edges: [], process: { theory: 'gluon', helicities: [-1, -1, -1, 1, 1, 1], shift: [1, 2] } },

@@ -5,7 +5,8 @@ import { existsSync, mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 
-export interface BenchServer { base: string, child: ChildProcess, stop: () => void }
+/** dir: the temporary folder (database; free for other scratch files), removed by stop(). */
+export interface BenchServer { base: string, child: ChildProcess, dir: string, stop: () => void }
 
 export async function startBuiltServer(tag: string, env: Record<string, string> = {}): Promise<BenchServer> {
   const root = process.cwd()
@@ -41,7 +42,7 @@ export async function startBuiltServer(tag: string, env: Record<string, string> 
   for (let i = 0; i < 300; i++) {
     if (child.exitCode !== null) throw new Error('the server exited early')
     try {
-      if ((await fetch(`${base}/api/auth/me`)).status > 0) return { base, child, stop }
+      if ((await fetch(`${base}/api/auth/me`)).status > 0) return { base, child, dir, stop }
     }
     catch { /* not up yet */ }
     await new Promise(r => setTimeout(r, 100))
