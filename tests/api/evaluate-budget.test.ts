@@ -24,7 +24,7 @@ describe('time budget and responsiveness', () => {
     expect(m.body.email).toBe(other.email)
     expect(x.status).toBe(422)
     expect(x.body.message).toContain('limit of 12')
-    for (const s of [s1, s2]) {
+    for (const s of [s1!, s2!]) {
       expect(s.status).toBe(503)
       expect(s.body.message).toBe('the evaluation exceeded its time budget of 800 ms')
     }
