@@ -3,6 +3,8 @@
 // measure large-z behaviour, so the shifted point is an exact rational point; it stays on shell
 // and momentum-conserving, so A(z) there comes from the recursion under another, valid shift).
 import type { WireComplex } from '../schemas/evaluate'
+// the module, not physics/index (which re-exports it as fitSlope), so the page bundles no more of the engine
+import { fit as fitSlope } from '../physics/falloff'
 
 export interface FalloffPoints {
   shift: [number, number]
@@ -62,22 +64,8 @@ export function log10Abs(c: WireComplex): number {
   return hi + 0.5 * Math.log10(1 + 10 ** (2 * (lo - hi)))
 }
 
-/** Least-squares slope of y against x. */
-export function slopeOf(xs: number[], ys: number[]): number {
-  const m = xs.length
-  const mx = xs.reduce((a, b) => a + b, 0) / m
-  const my = ys.reduce((a, b) => a + b, 0) / m
-  let sxy = 0
-  let sxx = 0
-  for (let t = 0; t < m; t++) {
-    sxy += (xs[t]! - mx) * (ys[t]! - my)
-    sxx += (xs[t]! - mx) ** 2
-  }
-  return sxy / sxx
-}
-
 export function falloffFit(points: FalloffPoints['points']): { slope: number, exponent: number } {
   const tail = points.slice(-4)
-  const slope = slopeOf(tail.map(p => p.log10z), tail.map(p => p.log10abs))
+  const { slope } = fitSlope(tail.map(p => p.log10z), tail.map(p => p.log10abs))
   return { slope, exponent: Math.round(slope) }
 }
