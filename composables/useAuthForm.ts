@@ -4,26 +4,18 @@ import type { z } from 'zod'
 export function useAuthForm<S extends z.ZodType>(schema: S, url: string, initial: Record<string, string>) {
   const route = useRoute()
   const form = reactive({ ...initial })
-  const { errors, formError, validate, fromServer } = useFormErrors()
-  const busy = ref(false)
+  const { errors, formError, validate, busy, send } = useFormErrors()
   const { refresh } = useMe()
 
   async function submit() {
     const body = validate(schema, form)
     if (!body) return
-    busy.value = true
-    try {
+    await send(async () => {
       await $fetch(url, { method: 'POST', body: body as Record<string, unknown> })
       await refresh()
       const next = route.query.next
       await navigateTo(typeof next === 'string' && next.startsWith('/') && !next.startsWith('//') ? next : '/projects')
-    }
-    catch (e) {
-      fromServer(e)
-    }
-    finally {
-      busy.value = false
-    }
+    })
   }
 
   return { form, errors, formError, busy, submit }

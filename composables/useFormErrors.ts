@@ -28,5 +28,20 @@ export function useFormErrors() {
     else formError.value = message
   }
 
-  return { errors, formError, validate, fromServer }
+  const busy = ref(false)
+  /** Runs a form's request with `busy` set meanwhile; a refusal goes through fromServer. */
+  async function send(request: () => Promise<unknown>) {
+    busy.value = true
+    try {
+      await request()
+    }
+    catch (e) {
+      fromServer(e)
+    }
+    finally {
+      busy.value = false
+    }
+  }
+
+  return { errors, formError, validate, fromServer, busy, send }
 }
