@@ -44,15 +44,42 @@ export async function currentAuth(event: H3Event): Promise<AuthContext | null> {
     result = { user: pick(row.user), via: 'token', scope: row.token.scope, tokenId: row.token.id }
   }
   else {
-    const session = await getUserSession(event)
-    if (session.user) {
-      const row = await db.select().from(tables.users).where(eq(tables.users.id, session.user.id)).get()
-      if (!row || row.disabled || row.sessionVersion !== session.user.sv) await clearUserSession(event)
+    const raw = getCookie(event, sessionCookieName())
+    const sessionUser = await unsealedUser(event, raw)
+    if (sessionUser) {
+      const row = await db.select().from(tables.users).where(eq(tables.users.id, sessionUser.id)).get()
+      if (!row || row.disabled || row.sessionVersion !== sessionUser.sv) {
+        if (raw) unsealed.delete(raw)
+        await clearUserSession(event)
+      }
       else result = { user: pick(row), via: 'session', scope: 'read-write' }
     }
   }
   event.context.auth = result
   return result
+}
+
+// Unsealing the cookie costs more than the user lookup, so a sealed value seen recently is
+// remembered briefly. The user row is still read on every request, so a disable or a reset
+// (session version bump) takes effect at the next request as before.
+const unsealed = new Map<string, { id: number, sv: number, at: number }>()
+const UNSEALED_TTL_MS = 30_000
+
+function sessionCookieName(): string {
+  return (useRuntimeConfig().session as { name?: string } | undefined)?.name || 'nuxt-session'
+}
+
+async function unsealedUser(event: H3Event, raw: string | undefined) {
+  const hit = raw ? unsealed.get(raw) : undefined
+  if (hit && Date.now() - hit.at < UNSEALED_TTL_MS) return hit
+  const session = await getUserSession(event)
+  if (!session.user) return null
+  const entry = { id: session.user.id, sv: session.user.sv, at: Date.now() }
+  if (raw) {
+    if (unsealed.size >= 10_000) unsealed.clear()
+    unsealed.set(raw, entry)
+  }
+  return entry
 }
 
 function pick(row: typeof tables.users.$inferSelect): AuthUser {
