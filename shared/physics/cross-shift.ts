@@ -3,7 +3,7 @@
 // arXiv:0705.4305; higher spins McGady & Rodina, arXiv:1311.2938 — references from memory):
 // spin 1, 3, 4 without colour give different residue sums under different shifts.
 import { Complex, SingularError, complexField, type Field } from './field'
-import { ddField } from './targets/berends-giele'
+import { ddField } from './double-double'
 import { fromDoubleDouble, toDoubleDouble } from './kinematics'
 import type { Kin } from './spinors'
 import { bcfw } from './bcfw'

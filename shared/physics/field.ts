@@ -16,6 +16,21 @@ export class SingularError extends Error {
   }
 }
 
+/** a^k for integer k by repeated squaring, shared by the floating fields. */
+export function intPow<T>(a: T, k: number, one: T, mul: (x: T, y: T) => T, inv: (x: T) => T, isZero: (x: T) => boolean): T {
+  if (!Number.isInteger(k)) throw new RangeError(`non-integer power ${k}`)
+  if (k < 0 && isZero(a)) throw new SingularError('zero to a negative power')
+  let base = k < 0 ? inv(a) : a
+  let e = Math.abs(k)
+  let acc = one
+  while (e > 0) {
+    if (e & 1) acc = mul(acc, base)
+    e >>= 1
+    if (e > 0) base = mul(base, base)
+  }
+  return acc
+}
+
 export interface Field<T> {
   readonly kind: Arithmetic
   readonly zero: T
@@ -79,19 +94,7 @@ export const complexField: Field<Complex> = {
     return cdiv(a, b)
   },
   neg: (a) => mkComplex(-a.re, -a.im),
-  pow: (a, k) => {
-    if (!Number.isInteger(k)) throw new RangeError(`non-integer power ${k}`)
-    if (k < 0 && a.re === 0 && a.im === 0) throw new SingularError('zero to a negative power')
-    let base = k < 0 ? cdiv(C1, a) : a
-    let e = Math.abs(k)
-    let acc = C1
-    while (e > 0) {
-      if (e & 1) acc = cmul(acc, base)
-      e >>= 1
-      if (e > 0) base = cmul(base, base)
-    }
-    return acc
-  },
+  pow: (a, k) => intPow(a, k, C1, cmul, x => cdiv(C1, x), x => x.re === 0 && x.im === 0),
   isZero: (a) => a.re === 0 && a.im === 0,
   abs: (a) => Math.sqrt(a.re * a.re + a.im * a.im),
   equals: (a, b) => a.re === b.re && a.im === b.im,

@@ -21,7 +21,7 @@ import { bcfw, type SubAmplitude, type Term, type Vertex } from './bcfw'
 import { probeFalloff, type FalloffResult } from './falloff'
 import { decideVerdict, deviationOf } from './verdict'
 import { applicableTargets, autoTarget, evaluateTarget, type TargetName } from './targets/index'
-import { ddField } from './targets/berends-giele'
+import { ddField } from './double-double'
 import { compileFormula, type CompiledFormula } from './formula'
 import {
   EvaluateRequestSchema,

@@ -5,7 +5,7 @@ import seedrandom from 'seedrandom'
 import { Complex, Fraction, complexField, parseRational, rationalField, type Field } from './field'
 import { angleOf, det, momentumSum, type Bispinor, type Kin, type Spinor } from './spinors'
 import { PhysicsError, fmtSize } from './errors'
-import { ddField, ddOf, type DD } from './targets/berends-giele'
+import { ddField, ddOf, type DD } from './double-double'
 
 export type Momentum = [number, number, number, number]
 

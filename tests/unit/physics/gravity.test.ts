@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest'
 import { Fraction, complexField as C, rationalField as Q } from '../../../shared/physics/field'
 import { fromDoubleDouble, randomPoint, rationalPoint, solveLastTwo, toDoubleDouble } from '../../../shared/physics/kinematics'
-import { ddField } from '../../../shared/physics/targets/berends-giele'
+import { ddField } from '../../../shared/physics/double-double'
 import { bcfwValue, bcfw } from '../../../shared/physics/bcfw'
 import { processOf, isValidShift } from '../../../shared/physics/theories'
 import { hodges } from '../../../shared/physics/targets/hodges'

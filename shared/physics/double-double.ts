@@ -1,0 +1,121 @@
+// Complex double-double numbers as a Field: each part is an unevaluated sum hi + lo of two
+// doubles (Dekker, Numer. Math. 18 (1971) 224; Knuth's two-sum), about 32 significant digits.
+// Used where double precision cancels too strongly (gravitons, the cubic scalar, Berends–Giele).
+import { SingularError, intPow, type Field } from './field'
+
+/** A complex double-double: re = rh + rl, im = ih + il. */
+export interface DD {
+  rh: number
+  rl: number
+  ih: number
+  il: number
+}
+
+let H = 0
+let L = 0
+const SPLIT = 134217729 // 2^27 + 1
+
+/** (H, L) = a·b exactly enough: Dekker's product with the cross terms of the low parts. */
+function ddMul(ah: number, al: number, bh: number, bl: number): void {
+  const p = ah * bh
+  let t = SPLIT * ah
+  const a1 = t - (t - ah)
+  const a2 = ah - a1
+  t = SPLIT * bh
+  const b1 = t - (t - bh)
+  const b2 = bh - b1
+  const e = a1 * b1 - p + a1 * b2 + a2 * b1 + a2 * b2 + (ah * bl + al * bh)
+  H = p + e
+  L = e - (H - p)
+}
+
+/** (H, L) = a + b (Knuth's two-sum of the high parts, then the low parts). */
+function ddAdd(ah: number, al: number, bh: number, bl: number): void {
+  const s = ah + bh
+  const bb = s - ah
+  const e = ah - (s - bb) + (bh - bb) + al + bl
+  H = s + e
+  L = e - (H - s)
+}
+
+/** (H, L) = a / b: one Newton correction of the double quotient. */
+function ddDiv(ah: number, al: number, bh: number, bl: number): void {
+  const q1 = ah / bh
+  ddMul(q1, 0, bh, bl)
+  ddAdd(ah, al, -H, -L)
+  const q2 = H / bh
+  H = q1 + q2
+  L = q2 - (H - q1)
+}
+
+export function ddOf(re: number, im: number): DD {
+  return { rh: re, rl: 0, ih: im, il: 0 }
+}
+
+function ddC(rh: number, rl: number, ih: number, il: number): DD {
+  return { rh, rl, ih, il }
+}
+
+function ddCAdd(x: DD, y: DD): DD {
+  ddAdd(x.rh, x.rl, y.rh, y.rl)
+  const rh = H, rl = L
+  ddAdd(x.ih, x.il, y.ih, y.il)
+  return ddC(rh, rl, H, L)
+}
+
+function ddCNeg(x: DD): DD {
+  return ddC(-x.rh, -x.rl, -x.ih, -x.il)
+}
+
+function ddCMul(x: DD, y: DD): DD {
+  ddMul(x.rh, x.rl, y.rh, y.rl)
+  const a1 = H, a2 = L
+  ddMul(x.ih, x.il, y.ih, y.il)
+  ddAdd(a1, a2, -H, -L)
+  const rh = H, rl = L
+  ddMul(x.rh, x.rl, y.ih, y.il)
+  const b1 = H, b2 = L
+  ddMul(x.ih, x.il, y.rh, y.rl)
+  ddAdd(b1, b2, H, L)
+  return ddC(rh, rl, H, L)
+}
+
+function ddCIsZero(x: DD): boolean {
+  return x.rh === 0 && x.rl === 0 && x.ih === 0 && x.il === 0
+}
+
+function ddCInv(y: DD): DD {
+  ddMul(y.rh, y.rl, y.rh, y.rl)
+  const a1 = H, a2 = L
+  ddMul(y.ih, y.il, y.ih, y.il)
+  ddAdd(a1, a2, H, L)
+  const dh = H, dl = L
+  ddDiv(y.rh, y.rl, dh, dl)
+  const rh = H, rl = L
+  ddDiv(-y.ih, -y.il, dh, dl)
+  return ddC(rh, rl, H, L)
+}
+
+const DD0 = ddOf(0, 0)
+const DD1 = ddOf(1, 0)
+
+/** Complex double-double arithmetic as a Field (kind float: it rounds, just much less). */
+export const ddField: Field<DD> = {
+  kind: 'float',
+  zero: DD0,
+  one: DD1,
+  fromInt: (n) => ddOf(n, 0),
+  add: ddCAdd,
+  sub: (a, b) => ddCAdd(a, ddCNeg(b)),
+  mul: ddCMul,
+  div: (a, b, what = 'division by zero') => {
+    if (ddCIsZero(b)) throw new SingularError(what)
+    return ddCMul(a, ddCInv(b))
+  },
+  neg: ddCNeg,
+  pow: (a, k) => intPow(a, k, DD1, ddCMul, ddCInv, ddCIsZero),
+  isZero: ddCIsZero,
+  abs: (a) => Math.hypot(a.rh + a.rl, a.ih + a.il),
+  equals: (a, b) => a.rh === b.rh && a.rl === b.rl && a.ih === b.ih && a.il === b.il,
+  toWire: (a) => [a.rh + a.rl, a.ih + a.il],
+}
