@@ -92,8 +92,9 @@ describe('diagram editor', () => {
     // The run of the saved process is stored as a Check and listed beside the diagram.
     expect(await page.locator('[data-test=stored-as]').textContent()).toMatch(/stored as check #\d+/)
     await page.click('[data-test=tab-checks]')
-    await expect.poll(() => page.locator('[data-test=checks] li').count()).toBeGreaterThan(0)
-    await expect.poll(() => page.locator('[data-test=checks] li').first().textContent()).toContain('agrees')
+    // The list is fetched when the tab opens; on a loaded CI machine that can take longer than a second.
+    await expect.poll(() => page.locator('[data-test=checks] li').count(), { timeout: 15_000 }).toBeGreaterThan(0)
+    await expect.poll(() => page.locator('[data-test=checks] li').first().textContent(), { timeout: 15_000 }).toContain('agrees')
     await page.click('[data-test=tab-revisions]')
     await expect.poll(() => page.locator('[data-test=revisions] li').count()).toBeGreaterThan(0)
     await page.click('[data-test=tab-comments]')
