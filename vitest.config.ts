@@ -21,7 +21,9 @@ export default defineConfig({
           globalSetup: ['tests/setup/server.ts'],
           hookTimeout: 120_000,
           testTimeout: 120_000,
-          maxWorkers: 2,
+          // One file at a time: the browser tests wait on the server's two evaluation threads, and a
+          // batch check in a parallel file could starve them on a 2-core machine.
+          maxWorkers: 1,
           // Runs after the unit project, so the server does not compete with the engine tests.
           sequence: { groupOrder: 1 },
         },
