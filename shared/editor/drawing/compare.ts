@@ -53,8 +53,9 @@ function times(k: number): string {
 }
 
 /** Whether `parts` (all standing for one amplitude) add up to it exactly once. */
-function cover(p: Process, parts: DrawnPart[], where: string, lineName: (e: string) => string): Problem[] {
+function cover(p: Process, parts: DrawnPart[], context: string, lineName: (e: string) => string): Problem[] {
   if (parts.length === 1 && parts[0]!.kind !== 'term') return []
+  const where = `${context}, sub-amplitude (${parts[0]!.legs.map(l => legName(l, lineName)).join(', ')})`
   const keys = parts.map(partKey)
   const distinct = new Set(keys)
   if (distinct.size < keys.length) {
@@ -96,8 +97,8 @@ function cover(p: Process, parts: DrawnPart[], where: string, lineName: (e: stri
 
 /** The (A_L, A_R) pairs drawn for one channel must add up to A_L · A_R once. */
 function coverPairs(p: Process, g: Extract<DrawnPart, { kind: 'term' }>[], where: string, lineName: (e: string) => string): Problem[] {
-  const wl = `the left side of ${where}`
-  const wr = `the right side of ${where}`
+  const wl = where
+  const wr = where
   if (g.length === 1) return [...cover(p, [g[0]!.left], wl, lineName), ...cover(p, [g[0]!.right], wr, lineName)]
   const attempt = (by: 'left' | 'right'): Problem[] => {
     const other = by === 'left' ? 'right' : 'left'
