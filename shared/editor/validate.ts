@@ -155,12 +155,12 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       if (hs.every(h => h !== null)) {
         const hv = hs as number[]
         const sum = hv[0]! + hv[1]! + hv[2]!
-        const txt = `(${hv.map(sign).join(',')})`
+        const txt = () => `(${hv.map(sign).join(',')})`
         const allSame = hv.every(h => h > 0) || hv.every(h => h < 0)
-        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
-        else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
-        else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
-        else if (sum === 0 && s !== 0 && s !== null) addKind(node.id, `helicities ${txt} sum to 0: only scalars have such a vertex`)
+        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt()}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
+        else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt()} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
+        else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt()} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
+        else if (sum === 0 && s !== 0 && s !== null) addKind(node.id, `helicities ${txt()} sum to 0: only scalars have such a vertex`)
       }
     }
     else if (node.type === 'block') {
