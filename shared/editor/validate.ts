@@ -95,6 +95,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
 
   // Edges at each (node, handle).
   const at = new Map<string, EditorEdge[]>()
+  const handlesOf = new Map<string, (string | null | undefined)[]>()
   const key = (id: string, h: string | null | undefined) => `${id}\u0000${h ?? ''}`
   for (const e of edges) {
     if (!nodes.has(e.source) || !nodes.has(e.target)) continue
@@ -103,6 +104,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       const list = at.get(key(id, h)) ?? []
       list.push(e)
       at.set(key(id, h), list)
+      ;(handlesOf.get(id) ?? handlesOf.set(id, []).get(id)!).push(h)
     }
     const a = nodes.get(e.source)!
     const b = nodes.get(e.target)!
@@ -145,6 +147,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other })
     }
     slots[node.id] = info
+    // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
+    const own = new Set(handleIds(node))
+    for (const h of handlesOf.get(node.id) ?? []) if (!own.has(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
     const open = info.filter(x => x.edges.length === 0).length
     const crowded = info.filter(x => x.edges.length > 1)
     const total = info.length
