@@ -129,6 +129,23 @@ export function randomPoint(n: number, seed: number | string): Kin<Complex> {
  * `range` gives smaller numbers (faster exact arithmetic) where a retry is cheap.
  */
 export function rationalPoint(n: number, seed: number | string, range: { numerator: number; denominator: number } = { numerator: 20, denominator: 6 }): Kin<Fraction> {
+  // Deterministic and costly (exact conditioning over every channel): remembered. Callers copy
+  // before changing a point, and rationals are immutable.
+  const key = `${n}:${range.numerator}:${range.denominator}:${String(seed)}`
+  let k = rationalPoints.get(key)
+  if (k) {
+    rationalPoints.delete(key)
+    rationalPoints.set(key, k)
+    return k
+  }
+  k = drawRationalPoint(n, seed, range)
+  if (rationalPoints.size >= 256) rationalPoints.delete(rationalPoints.keys().next().value!)
+  rationalPoints.set(key, k)
+  return k
+}
+const rationalPoints = new Map<string, Kin<Fraction>>()
+
+function drawRationalPoint(n: number, seed: number | string, range: { numerator: number; denominator: number }): Kin<Fraction> {
   const rng = rngOf(`rational:${String(seed)}`)
   const { numerator: pm, denominator: qm } = range
   const r = () => new Fraction(Math.floor(rng() * (2 * pm + 1)) - pm, 1 + Math.floor(rng() * qm))
