@@ -406,9 +406,17 @@ export class LaneField implements Field<Lanes> {
     return out
   }
 
+  // The last divisor and its inverse: formulas often divide several numbers by one value.
+  private lastDivisor: Lanes | null = null
+  private lastInverse: Lanes | null = null
+
   div(a: Lanes, b: Lanes, what = 'division by zero'): Lanes {
-    if (this.isZero(b)) throw new SingularError(what)
-    return this.mul(a, this.inv(b))
+    if (b !== this.lastDivisor) {
+      if (this.isZero(b)) throw new SingularError(what)
+      this.lastInverse = this.inv(b)
+      this.lastDivisor = b
+    }
+    return this.mul(a, this.lastInverse!)
   }
 
   neg(a: Lanes): Lanes {

@@ -4,6 +4,8 @@
 // arXiv:1608.01902). Primes are added until every reconstructed number is confirmed by two more.
 import { Fraction, SingularError } from './field'
 import type { Kin, Spinor } from './spinors'
+import { bcfw, type Term } from './bcfw'
+import type { Process } from './theories'
 import { LaneField, reconstructFrom, type Lanes } from './finite-field'
 
 /** What one pass gives: per computed quantity its residues in every lane, and their structure. */
@@ -126,7 +128,7 @@ export function byPrimes<S>(k: Kin<Fraction>, compute: (F: LaneField, k: Kin<Lan
     if (values) {
       if (opts.key) {
         if (hints.size >= HINTS_MAX) hints.clear()
-        hints.set(opts.key, next - first)
+        hints.set(opts.key, primesNeeded(values) + 1)
       }
       return { shape: shape!, info: info!, values, primes: rows.length, unlucky }
     }
@@ -167,3 +169,30 @@ function reconstructAll(rows: number[][], idx: number[]): Fraction[] | null {
 }
 
 const ZERO = new Fraction(0)
+
+/** Primes (of ≥ 25.99 bits) that Wang's bound needs for these fractions, plus the two that confirm. */
+function primesNeeded(values: Fraction[]): number {
+  let bits = 1
+  for (const f of values) bits = Math.max(bits, f.n.toString(16).length * 4, f.d.toString(16).length * 4)
+  return Math.ceil((2 * bits + 2) / 25.99) + 2
+}
+
+/**
+ * The BCFW value (and, with `terms`, the top-level terms' z, pole and value) exactly, by primes;
+ * null when a pass meets an exact zero (see byPrimes).
+ */
+export function bcfwByPrimes(p: Process, k: Kin<Fraction>, h: number[], shift: [number, number], opts: { terms?: boolean } = {}): { value: Fraction; terms: Term<Fraction>[]; primes: number } | null {
+  const r = byPrimes(
+    k,
+    (F, km) => {
+      const b = bcfw(F, p, km, h, shift)
+      const values = [b.value]
+      if (opts.terms) for (const t of b.terms) values.push(t.z, t.pole, t.value)
+      return { shape: opts.terms ? b.terms.map((t) => `${t.left.join('.')}:${t.helicity}`).join(';') : '', values, info: b.terms }
+    },
+    { key: `bcfw:${p.theory}:${p.s}:${h.join(',')}:${shift.join(',')}:${opts.terms ? 't' : ''}` },
+  )
+  if (!r) return null
+  const terms = opts.terms ? r.info.map((t, s) => ({ left: t.left, helicity: t.helicity, z: r.values[1 + 3 * s]!, pole: r.values[2 + 3 * s]!, value: r.values[3 + 3 * s]!, children: null })) : []
+  return { value: r.values[0]!, terms, primes: r.primes }
+}
