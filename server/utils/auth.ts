@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { createHash, randomBytes } from 'node:crypto'
-import { and, eq, isNull } from 'drizzle-orm'
+import { and, eq, isNull, sql } from 'drizzle-orm'
 
 export interface AuthUser {
   id: number
@@ -47,7 +47,7 @@ export async function currentAuth(event: H3Event): Promise<AuthContext | null> {
     const raw = getCookie(event, sessionCookieName())
     const sessionUser = await unsealedUser(event, raw)
     if (sessionUser) {
-      const row = await db.select().from(tables.users).where(eq(tables.users.id, sessionUser.id)).get()
+      const row = await userById().get({ id: sessionUser.id })
       if (!row || row.disabled || row.sessionVersion !== sessionUser.sv) {
         if (raw) unsealed.delete(raw)
         await clearUserSession(event)
@@ -80,6 +80,16 @@ async function unsealedUser(event: H3Event, raw: string | undefined) {
     unsealed.set(raw, entry)
   }
   return entry
+}
+
+// The session's user row is read on every request: the statement is built once (drizzle's query
+// building cost more than the lookup itself).
+let userStatement: ReturnType<typeof prepareUserById> | undefined
+function prepareUserById() {
+  return useDB().select().from(tables.users).where(eq(tables.users.id, sql.placeholder('id'))).prepare()
+}
+function userById() {
+  return (userStatement ??= prepareUserById())
 }
 
 function pick(row: typeof tables.users.$inferSelect): AuthUser {
