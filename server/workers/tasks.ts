@@ -35,6 +35,9 @@ import {
   type ShiftRow,
   type ShiftsResponse,
 } from '../../shared/schemas/service'
+import { checkDrawing } from '../../shared/editor/drawing/evaluate'
+import type { Process as GraphProcess } from '../../shared/schemas/graph'
+import type { EditorEdge, EditorNode } from '../../shared/editor/types'
 
 export type Task =
   | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[] }
@@ -42,6 +45,8 @@ export type Task =
   | { kind: 'shifts'; req: unknown }
   | { kind: 'crossShift'; req: unknown }
   | { kind: 'catalogue' }
+  /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
+  | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
 
 export interface Failure {
   ok: false
@@ -87,6 +92,12 @@ function dispatch(task: Task): unknown {
       return crossShiftTask(task.req)
     case 'catalogue':
       return catalogue()
+    case 'checkDrawing': {
+      const t0 = performance.now()
+      const res = task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)
+      const out = checkDrawing(res, task.process, task.graph)
+      return { ...out, ms: round3(performance.now() - t0) }
+    }
   }
 }
 

@@ -25,7 +25,7 @@ function exponent(x: number): number {
  */
 function powBracket<T>(F: Field<T>, x: Spinor<T>, y: Spinor<T>, e: number, kind: 'angle' | 'square', name: string): T {
   const b = kind === 'angle' ? angleOf(F, x, y) : squareOf(F, x, y)
-  if (e < 0 && negligible(F, b, spinorSize(F, x) * spinorSize(F, y))) throw new SingularError(`the bracket ${name} of a three-point block vanishes`)
+  if (e < 0 && (F.zeroTolerance === undefined ? F.isZero(b) : negligible(F, b, spinorSize(F, x) * spinorSize(F, y)))) throw new SingularError(`the bracket ${name} of a three-point block vanishes`)
   return F.pow(b, exponent(e))
 }
 
