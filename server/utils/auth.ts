@@ -67,13 +67,8 @@ export async function currentAuth(event: H3Event): Promise<AuthContext | null> {
   return result
 }
 
-<<<<<<< HEAD
-// Read on every request: the statement is built once (drizzle's query building cost about as
-// much as the lookup itself).
-=======
 // The session row and its user are read on every request: the statement is built once (drizzle's
 // query building costs more than the lookup itself).
->>>>>>> security-auth
 let sessionStatement: ReturnType<typeof prepareSessionByHash> | undefined
 function prepareSessionByHash() {
   return useDB().select({ session: tables.sessions, user: tables.users })
