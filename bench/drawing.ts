@@ -3,7 +3,7 @@
 // against the engine's check of the same process (the worker's evaluate task), tree off and on.
 // Aim: the drawn 8-gluon NMHV check costs < 2× the engine's. Run: node bench/run.mjs drawing [--quick]
 import { expandedGraph } from '../shared/editor/demo'
-import { checkDrawing } from '../shared/editor/drawing/evaluate'
+import { checkDrawing, drawingGraph } from '../shared/editor/drawing/evaluate'
 import { validateGraph } from '../shared/editor/validate'
 import type { EditorEdge, EditorNode } from '../shared/editor/types'
 import { evaluate } from '../shared/physics/index'
@@ -48,7 +48,8 @@ for (const c of cases) {
   // The worker tasks the check route hands off, structured-cloned as postMessage would.
   const plain = time(() => runTask(structuredClone({ kind: 'evaluate', req })))
   const tree = time(() => runTask(structuredClone({ kind: 'evaluate', req: { ...req, tree: true } })))
-  const drawn = time(() => runTask(structuredClone({ kind: 'checkDrawing', req, process, graph })))
+  // As the check route hands it off: the graph without positions and layout data.
+  const drawn = time(() => runTask(structuredClone({ kind: 'checkDrawing', req, process, graph: drawingGraph(graph) })))
   const res = evaluate(req)
   const compile = time(() => validateGraph(graph.nodes, graph.edges, process))
   const out = checkDrawing(res, process, graph)

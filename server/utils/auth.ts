@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { createHash, randomBytes } from 'node:crypto'
-import { and, eq, isNull, sql } from 'drizzle-orm'
+import { and, eq, isNull, lt, or, sql } from 'drizzle-orm'
 
 export interface AuthUser {
   id: number
@@ -179,4 +179,14 @@ export async function revokeCredentials(userId: number, opts: { tokens: boolean 
     .where(and(eq(tables.apiTokens.userId, userId), isNull(tables.apiTokens.revokedAt)))
     .returning({ id: tables.apiTokens.id })
   return ended.length
+}
+
+/** Deletes session rows that can no longer be used (ended a week ago, expired, or idle too long). */
+export async function pruneSessions(now = Date.now()) {
+  const s = tables.sessions
+  await useDB().delete(s).where(or(
+    lt(s.revokedAt, new Date(now - 7 * 24 * 3600 * 1000)),
+    lt(s.expiresAt, new Date(now)),
+    lt(s.lastSeenAt, new Date(now - SESSION_IDLE_MS)),
+  ))
 }

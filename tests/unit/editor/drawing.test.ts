@@ -258,3 +258,48 @@ describe('broken drawings disagree and say why', () => {
     expect(validateGraph([], [], p6).drawing.terms).toEqual([])
   })
 })
+
+describe('any edit of a drawing gets an answer, never an exception', () => {
+  it.each<[string, Process, boolean]>([
+    ['6 gluons, fully expanded', { theory: 'gluon', helicities: [M, M, M, P, P, P], shift: [3, 4] }, true],
+    ['7 gluons, top level with Blocks', { theory: 'gluon', helicities: [M, P, M, P, M, P, P], shift: [1, 2] }, false],
+    ['5 gravitons, fully expanded', { theory: 'graviton', helicities: [-2, -2, 2, 2, 2], shift: [1, 2] }, true],
+  ])('%s: random deletions, flips, kind changes and re-wirings are checked without throwing', (_, p, full) => {
+    const base = asG(expandedGraph(p, full))
+    const res = evaluate(evaluateRequest(p, { kinematics: { kind: 'random', seed: 9 } }))
+    let seed = 12345
+    const rnd = (k: number) => {
+      seed = (seed * 1103515245 + 12345) % 2 ** 31
+      return seed % k
+    }
+    const verdicts = new Set<string>()
+    for (let trial = 0; trial < 200; trial++) {
+      let g: G = { nodes: base.nodes.map(n => ({ ...n })), edges: base.edges.map(e => ({ ...e })) }
+      for (let step = 0; step <= rnd(3); step++) {
+        const what = rnd(5)
+        if (what === 0) g = { ...g, edges: g.edges.filter((_, t) => t !== rnd(g.edges.length)) }
+        else if (what === 1) {
+          const lines = g.edges.filter(e => !(e.data as { external?: boolean }).external)
+          if (lines.length) g = flipped(g, lines[rnd(lines.length)]!.id)
+        }
+        else if (what === 2) {
+          const k = rnd(g.nodes.length)
+          g = { ...g, nodes: g.nodes.map((n, t) => (t === k && n.type !== 'leg' ? { ...n, type: n.type === 'angle' ? 'square' : n.type === 'square' ? 'block' : 'angle' } : n)) }
+        }
+        else if (what === 3) {
+          const k = rnd(g.edges.length)
+          const to = g.nodes[rnd(g.nodes.length)]!.id
+          g = { ...g, edges: g.edges.map((e, t) => (t === k ? { ...e, target: to, targetHandle: `h${rnd(3)}` } : e)) }
+        }
+        else g = { ...g, nodes: g.nodes.filter((_, t) => t !== rnd(g.nodes.length)) }
+        const ids = new Set(g.nodes.map(n => n.id))
+        g = { ...g, edges: g.edges.filter(e => ids.has(e.source) && ids.has(e.target)) }
+      }
+      const r = checkDrawing(res, p, g)
+      expect(DrawingResultSchema.safeParse(r.drawing).success).toBe(true)
+      if (!r.drawing!.comparison.complete) expect(r.verdict).not.toBe('agrees')
+      verdicts.add(r.verdict)
+    }
+    expect(verdicts.has('disagrees')).toBe(true)
+  })
+})
