@@ -244,6 +244,8 @@ function crossShiftTask(input: unknown): CrossShiftResponse {
   const r = crossShift(F, p, pt.kin as never, req.helicities, tolerance ?? undefined)
   const singular = r.rows.filter((row) => row.value === null).map((row) => `[${row.shift[0]}, ${row.shift[1]}⟩`)
   if (singular.length) warnings.push(`singular point for the shifts ${singular.join(', ')}: a pole or bracket vanishes at this point`)
+  if (r.test === 'factorisation')
+    warnings.push('every shift of a single scalar species has a boundary term, so consistency was decided by the residues of the sum of all cubic diagrams on every pole')
   return {
     theory: req.theory,
     ...(req.theory === 'spin' ? { spin: req.spin } : {}),
@@ -252,6 +254,8 @@ function crossShiftTask(input: unknown): CrossShiftResponse {
     rows: r.rows.map((row) => ({ shift: row.shift, valid: row.valid, value: row.value === null ? null : (F.toWire(row.value) as [number, number]) })),
     spread: r.spread,
     agree: r.agree,
+    test: r.test,
+    ...(r.poles ? { poles: r.poles } : {}),
     tolerance,
     kinematics: kinToWire(F, pt.kin as never),
     warnings,

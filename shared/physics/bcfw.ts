@@ -1,7 +1,7 @@
 // BCFW on-shell recursion (Britto, Cachazo, Feng, Witten, PRL 94 (2005) 181602) with the signs and
 // orientation of CONVENTIONS.md "BCFW": the [i,j⟩ shift λ̃_i → λ̃_i + z λ̃_j, λ_j → λ_j − z λ_i;
 // term(L, h) = A_L(…, −P̂^h) A_R(…, P̂^−h) / P², with −P̂ carried by (λ_P, −λ̃_P).
-import { SingularError, type Field } from './field'
+import { SingularError, negligible, spinorSize, type Field } from './field'
 import { sandwichOf, type Bispinor, type Kin, type Spinor } from './spinors'
 import { defaultShift, isValidShift, vanishes, type Process } from './theories'
 import { threePoint, threePointSurvives, type VertexKind } from './three-point'
@@ -172,11 +172,15 @@ export function channelKinematics<T>(F: Field<T>, k: Kin<T>, shift: readonly [nu
     P10 = F.add(P10, F.mul(l[1], lt[0]))
     P11 = F.add(P11, F.mul(l[1], lt[1]))
   }
-  const P2 = F.sub(F.mul(P00, P11), F.mul(P01, P10))
-  if (F.isZero(P2)) throw new SingularError(`${poleName(legs, L)} vanishes`)
+  const d0 = F.mul(P00, P11)
+  const d1 = F.mul(P01, P10)
+  const P2 = F.sub(d0, d1)
+  // in floats a pole below the tolerance of its terms is an exact zero lost to rounding
+  if (F.zeroTolerance !== undefined ? negligible(F, P2, F.abs(d0) + F.abs(d1)) : F.isZero(P2)) throw new SingularError(`${poleName(legs, L)} vanishes`)
   const P: Bispinor<T> = [[P00, P01], [P10, P11]]
   const ipj = sandwichOf(F, li, P, ltj)
-  if (F.isZero(ipj)) throw new SingularError(`⟨${i + 1}|P|${j + 1}] of the channel s(${labelsOf(legs, L)}) vanishes (the shift has no pole there)`)
+  if (F.zeroTolerance !== undefined ? negligible(F, ipj, spinorSize(F, li) * spinorSize(F, ltj) * (F.abs(P00) + F.abs(P01) + F.abs(P10) + F.abs(P11))) : F.isZero(ipj))
+    throw new SingularError(`⟨${i + 1}|P|${j + 1}] of the channel s(${labelsOf(legs, L)}) vanishes, so the shift has no pole there`)
   const z = F.neg(F.div(P2, ipj))
   // P̂ = P + z* λ_i λ̃_jᵀ
   const Phat: Bispinor<T> = [

@@ -27,7 +27,10 @@ export function spinorsOfMomentum(p: Momentum): { lambda: Spinor<Complex>; lambd
     const s = spinorsOfMomentum([-p0, -p1, -p2, -p3])
     return { lambda: s.lambda, lambdaTilde: [s.lambdaTilde[0].neg(), s.lambdaTilde[1].neg()] }
   }
-  const pp = p0 + p3
+  // p0 + p3 cancels for momenta near −z: there p+ = p⊥² / p− (p+ p− = p⊥² on shell), which keeps
+  // every digit, so λ λ̃ᵀ reproduces p to rounding.
+  const pt = Math.hypot(p1, p2)
+  const pp = p3 >= 0 ? p0 + p3 : pt * (pt / (p0 - p3)) // (no overflow at large scales)
   if (pp >= 1e-10 * p0) {
     const r = Math.sqrt(pp)
     return { lambda: [C(r), C(p1 / r, p2 / r)], lambdaTilde: [C(r), C(p1 / r, -p2 / r)] }

@@ -93,6 +93,12 @@ export interface EvaluateResponse {
   warnings: string[]
   kinematics: { lambda: unknown[]; lambdaTilde: unknown[] }
   engine: { version: string }
+  /**
+   * The arithmetic the recursion ran in and the relative precision it is estimated to have reached:
+   * `estimated` = unit roundoff × max(1 / condition, cancellation); `condition` = min |s_S| / max |s_ij|;
+   * `cancellation` = max |term| / |value|. Null estimates in exact arithmetic.
+   */
+  precision?: { arithmetic: 'double' | 'double-double' | 'exact'; condition: number; cancellation: number | null; estimated: number | null }
   ms: number
 }
 
