@@ -94,18 +94,25 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const n = process?.helicities.length ?? 0
 
   // Edges at each (node, handle).
-  const at = new Map<string, EditorEdge[]>()
+  // node id → handle → edges (handle '' when none); the handles each node is reached at.
+  const atNode = new Map<string, Map<string, EditorEdge[]>>()
   const handlesOf = new Map<string, (string | null | undefined)[]>()
-  const key = (id: string, h: string | null | undefined) => `${id}\u0000${h ?? ''}`
+  const attach = (id: string, h: string | null | undefined, e: EditorEdge) => {
+    let m = atNode.get(id)
+    if (!m) atNode.set(id, (m = new Map()))
+    const list = m.get(h ?? '')
+    if (list) list.push(e)
+    else m.set(h ?? '', [e])
+    let hs = handlesOf.get(id)
+    if (!hs) handlesOf.set(id, (hs = []))
+    hs.push(h)
+  }
+  const at = (id: string, h: string) => atNode.get(id)?.get(h)
   for (const e of edges) {
     if (!nodes.has(e.source) || !nodes.has(e.target)) continue
     if (e.source === e.target) { add(e.source, 'error', 'a line from this node back to itself: glue two different nodes'); continue }
-    for (const [id, h] of [[e.source, e.sourceHandle], [e.target, e.targetHandle]] as const) {
-      const list = at.get(key(id, h)) ?? []
-      list.push(e)
-      at.set(key(id, h), list)
-      ;(handlesOf.get(id) ?? handlesOf.set(id, []).get(id)!).push(h)
-    }
+    attach(e.source, e.sourceHandle, e)
+    attach(e.target, e.targetHandle, e)
     const a = nodes.get(e.source)!
     const b = nodes.get(e.target)!
     if (a.type === 'leg' && b.type === 'leg') addEdge(e.id, 'error', 'two legs joined directly: attach legs to a vertex or a block')
@@ -124,7 +131,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   for (const node of nodesIn) {
     if (node.type === 'leg') {
       const d = node.data as unknown as LegData
-      const list = at.get(key(node.id, 'p')) ?? edges.filter(e => (e.source === node.id || e.target === node.id) && e.source !== e.target)
+      const list = at(node.id, 'p') ?? edges.filter(e => (e.source === node.id || e.target === node.id) && e.source !== e.target)
       if (list.length === 0) add(node.id, 'error', `leg ${d.label} is not attached: connect it to a vertex or a block`)
       if (list.length > 1) add(node.id, 'error', `leg ${d.label} is attached ${list.length} times: an external leg enters exactly one vertex`)
       if (process) {
@@ -136,7 +143,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     }
     const info: SlotInfo[] = []
     for (const h of handleIds(node)) {
-      const list = at.get(key(node.id, h)) ?? []
+      const list = at(node.id, h) ?? []
       const first = list[0]
       let other: SlotInfo['other'] = null
       if (first) {

@@ -207,7 +207,8 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
     if (node.type !== vk) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}: at the pole its ${vk === 'angle' ? 'square' : 'angle'} brackets vanish, so only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives here, not ${vk === 'angle' ? 'a square' : 'an angle'} vertex` })
     else if (!threePointSurvives(p, amp.helicities, vk)) {
       const sum = amp.helicities.reduce((a, b) => a + b, 0)
-      issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only an ${vk} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) ${sum === 0 ? 'sum to 0' : `sum to ${helicityText(sum)}`}: this term vanishes (flip the internal helicity)` })
+      const total = sum === 0 ? '0' : `${sum > 0 ? '+' : '−'}${Math.abs(sum)}`
+      issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) sum to ${total}: this term vanishes (flip the internal helicity)` })
     }
     return { part: { kind: 'vertex', node: id, legs, helicities: amp.helicities, vertexKind: vk, zero: issues.length > 0 }, issues }
   }

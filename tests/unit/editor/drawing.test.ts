@@ -90,8 +90,8 @@ describe('drawn terms from the engine\'s term tree: the drawn sum is the recursi
       for (const t of res.terms) {
         const mine = r.drawing!.terms.filter(d => d.channel!.join(',') === t.left.join(',') && d.internalHelicity === t.helicity)
         expect(mine.length).toBeGreaterThan(0)
-        const sum = mine.reduce((a, d) => [a[0] + Number(d.value![0]), a[1] + Number(d.value![1])], [0, 0])
-        expect(cdiff(sum as WireComplex, t.value) / scale).toBeLessThan(1e-12)
+        const sum = mine.reduce<[number, number]>((a, d) => [a[0] + Number(d.value![0]), a[1] + Number(d.value![1])], [0, 0])
+        expect(cdiff(sum, t.value) / scale).toBeLessThan(1e-12)
         expect(cdiff(mine[0]!.zStar!, t.z) / cabs(t.z)).toBeLessThan(1e-12)
       }
       if (!full) expect(r.drawing!.terms).toHaveLength(res.terms.length)
@@ -127,6 +127,7 @@ describe('drawn terms from the engine\'s term tree: the drawn sum is the recursi
     [[-2, 2, -2, 2, 2], [1, 2]],
     [[-2, -2, 2, 2, 2], [2, 4]],
     [[-2, -2, -2, 2, 2], [1, 2]],
+    [[-2, -2, 2, 2, 2, 2], [1, 2]],
   ])('gravitons %j under %j: the fully expanded drawing agrees with Hodges', (h, shift) => {
     const p: Process = { theory: 'graviton', helicities: h, shift }
     const g = expandedGraph(p, true)
@@ -135,6 +136,19 @@ describe('drawn terms from the engine\'s term tree: the drawn sum is the recursi
     expect(r.drawing!.comparison.messages).toEqual([])
     expect(r.verdict).toBe('agrees')
     expect(cdiff(r.value!, r.drawing!.recursion.value!) / cabs(r.value!)).toBeLessThan(1e-12)
+  })
+})
+
+describe('the cubic scalar', () => {
+  it.each<[number, [number, number]]>([[5, [1, 3]], [6, [1, 3]], [6, [2, 5]]])('%i scalars under %j: the drawn sum equals the planar cubic diagrams, top level and fully expanded', (n, shift) => {
+    const p: Process = { theory: 'scalar-cubic', helicities: Array<number>(n).fill(0), shift }
+    for (const full of [false, true]) {
+      const g = expandedGraph(p, full)
+      const r = check(g.process!, asG(g))
+      expect(r.target!.name).toBe('feynman')
+      expect(r.drawing!.comparison.messages).toEqual([])
+      expect(r.verdict).toBe('agrees')
+    }
   })
 })
 
