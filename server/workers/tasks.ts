@@ -23,6 +23,8 @@ import {
   type Field,
 } from '../../shared/physics/index'
 import { TARGETS } from '../../shared/physics/targets/index'
+import { checkLimit } from '../../shared/physics/checks/index'
+import type { LimitCheckRequestInput } from '../../shared/schemas/limit-checks'
 import { MAX_SPIN } from '../../shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
 import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
@@ -44,6 +46,7 @@ export type Task =
   | { kind: 'evaluateMany'; reqs: EvaluateRequestInput[] }
   | { kind: 'shifts'; req: unknown }
   | { kind: 'crossShift'; req: unknown }
+  | { kind: 'limitCheck'; req: unknown }
   | { kind: 'catalogue' }
   /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
   | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
@@ -90,6 +93,8 @@ function dispatch(task: Task): unknown {
       return shifts(task.req)
     case 'crossShift':
       return crossShiftTask(task.req)
+    case 'limitCheck':
+      return checkLimit(task.req as LimitCheckRequestInput)
     case 'catalogue':
       return catalogue()
     case 'checkDrawing': {

@@ -8,6 +8,7 @@ import { LoginSchema, RegisterSchema } from '../schemas/auth'
 import { DiagramCreateSchema, DiagramUpdateSchema, MemberAddSchema, ProjectCreateSchema } from '../schemas/projects'
 import { EvaluateRequestSchema } from '../schemas/evaluate'
 import { CheckRunSchema, CrossShiftRequestSchema, ShiftsRequestSchema } from '../schemas/service'
+import { LimitCheckRequestSchema } from '../schemas/limit-checks'
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
 
@@ -56,7 +57,7 @@ export const API_SECTIONS: ApiSection[] = [
   {
     id: 'auth',
     title: 'Sign-in',
-    intro: 'Pages use a session cookie. Scripts send `Authorization: Bearer <token>` instead (create a token under your account); a read-only token may call every GET route and POST /api/evaluate, /api/shifts and /api/cross-shift, which write nothing.',
+    intro: 'Pages use a session cookie. Scripts send `Authorization: Bearer <token>` instead (create a token under your account); a read-only token may call every GET route and POST /api/evaluate, /api/shifts, /api/cross-shift and /api/limit-checks, which write nothing.',
     routes: [
       {
         id: 'register', method: 'POST', path: '/api/auth/register', access: 'anyone', summary: 'Creates an account and signs in.',
@@ -169,8 +170,20 @@ export const API_SECTIONS: ApiSection[] = [
           example(CrossShiftRequestSchema, 'four gravitons (consistent)', { theory: 'graviton', helicities: [-2, -2, 2, 2] }),
           example(CrossShiftRequestSchema, 'spin 3, exact (inconsistent)', { theory: 'spin', spin: 3, helicities: [-3, -3, 3, 3], kinematics: { kind: 'rational', seed: 2 }, arithmetic: 'exact' }),
         ],
-        response: '`{ theory, n, arithmetic, rows: [{ shift, valid, value }], spread, agree, tolerance, kinematics, warnings, ms }`; `spread` is the largest |v_a − v_b| / max |v| among valid shifts.',
+        response: '`{ theory, n, arithmetic, rows: [{ shift, valid, value }], spread, agree, test, poles?, tolerance, kinematics, warnings, ms }`; `spread` is the largest |v_a − v_b| / max |v| among valid shifts; `test` is `shifts`, or `factorisation` for a single scalar species (spin 0), whose every shift has a boundary term: then `poles` lists each pole with whether the sum of all cubic diagrams has the residue A_L·A_R there.',
         statuses: [[200, 'evaluated'], [400, 'the body fails the schema'], [422, 'invalid process or point'], [503, 'over the time budget'], ...commonErrors], runnable: true,
+      },
+      {
+        id: 'limit-checks', method: 'POST', path: '/api/limit-checks', access: 'signed in', summary: 'Limit and identity checks of a process. `soft`: leg s scaled λ → √ε λ, λ̃ → √ε λ̃ along ε = 10⁻¹ … 10⁻⁸ and A_n / (S × A_{n−1}) → 1 with the leading soft factor (gluons, gravitons; n ≥ 5). `collinear`: adjacent gluons a, a+1 with momentum fraction z and offset δ, A_n / Σ_h Split × A_{n−1} → 1 (n ≥ 5). `identity`: cyclicity, reflection, U(1) decoupling, Kleiss–Kuijf or the fundamental BCJ relation among colour-ordered gluon amplitudes, with its residual and tolerance. Writes nothing.',
+        schema: LimitCheckRequestSchema,
+        examples: [
+          example(LimitCheckRequestSchema, 'soft gluon', { check: 'soft', theory: 'gluon', helicities: [-1, 1, -1, 1, 1], soft: 2 }),
+          example(LimitCheckRequestSchema, 'soft graviton', { check: 'soft', theory: 'graviton', helicities: [-2, -2, 2, 2, 2], soft: 4 }),
+          example(LimitCheckRequestSchema, 'collinear gluons 3 ∥ 4', { check: 'collinear', theory: 'gluon', helicities: [-1, -1, 1, -1, 1, 1], leg: 3, z: 0.4 }),
+          example(LimitCheckRequestSchema, 'Kleiss–Kuijf, exact', { check: 'identity', theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], identity: 'kleiss-kuijf', alpha: [2, 3], arithmetic: 'exact' }),
+        ],
+        response: 'Soft and collinear: `{ check, theory, n, helicities, legs, rows: [{ x, ratio, deviation }], rate, expectedRate, holds, factor, source, ms }` — `deviation` is |ratio − 1|, `rate` the fitted r of deviation ~ x^r (expected 1: the next term of each expansion is one power down). Identity: `{ check, theory, n, helicities, identity, arithmetic, relation, terms: [{ order, coefficient, value }], sum, residual, tolerance, holds, source, ms }` — `residual` = |Σ| / max |term|, `holds` when it is ≤ `tolerance` (1e-12; floats run in double-double) or exactly 0 in exact arithmetic.',
+        statuses: [[200, 'checked'], [400, 'the body fails the schema'], [422, 'invalid process, a leg that does not exist, or a limit whose A_{n−1} vanishes identically'], [503, 'over the time budget'], ...commonErrors], runnable: true,
       },
     ],
   },
