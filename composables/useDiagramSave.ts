@@ -36,7 +36,7 @@ export function useDiagramSave(diagramId: number, canEdit: Ref<boolean>, say: Sa
     try {
       const saved = await put(store.version, note)
       took(saved)
-      say(`Saved as version ${saved.version}.`)
+      say(`Saved as version ${saved.version}${note ? ` (${note})` : ''}.`)
       return true
     }
     catch (e) {

@@ -12,11 +12,14 @@ export interface StoryInput {
   /** Whether the valid shifts agree with each other (null: not run). */
   crossAgree: boolean | null
   hasTarget: boolean
+  /** The value is the drawing's sum (a check of what is on the canvas). */
+  drawn?: boolean
 }
 
 export interface Story { tone: 'agrees' | 'disagrees' | 'boundary' | 'neutral', text: string }
 
 export function resultStory(x: StoryInput): Story {
+  const what = x.drawn ? 'The drawn residue sum' : 'The residue sum'
   if (x.drawing && !x.drawing.complete) {
     const first = x.drawing.messages[0]
     return { tone: 'disagrees', text: `The drawing is not the recursion of this shift${first ? `: ${first}` : ''}${x.drawing.messages.length > 1 ? ` (and ${x.drawing.messages.length - 1} more)` : ''}.` }
@@ -29,8 +32,8 @@ export function resultStory(x: StoryInput): Story {
     }
   }
   if (falls === false) return { tone: 'boundary', text: `A(z) does not fall off along this shift (|z|^${x.falloff}): a boundary term is expected and the residue sum misses it.` }
-  if (x.verdict === 'agrees') return { tone: 'agrees', text: `The residue sum agrees with the target${falls ? ', A(z) falls off along the shift' : ''}${x.crossAgree ? ' and the valid shifts agree' : ''}.` }
-  if (x.verdict === 'disagrees') return { tone: 'disagrees', text: 'The residue sum disagrees with the target.' }
+  if (x.verdict === 'agrees') return { tone: 'agrees', text: `${what} agrees with the target${falls ? ', A(z) falls off along the shift' : ''}${x.crossAgree ? ' and the valid shifts agree' : ''}.` }
+  if (x.verdict === 'disagrees') return { tone: 'disagrees', text: `${what} disagrees with the target.` }
   if (!x.hasTarget || x.verdict === 'not evaluated') {
     const support = [falls ? 'A(z) falls off along the shift' : '', x.crossAgree ? 'the valid shifts agree' : ''].filter(Boolean)
     return { tone: 'neutral', text: `No target to compare with${support.length ? `; ${support.join(' and ')}, so the residue sum is consistent` : ''}.` }
