@@ -95,6 +95,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
 
   // Edges at each (node, handle).
   const at = new Map<string, EditorEdge[]>()
+  const handlesOf = new Map<string, (string | null | undefined)[]>()
   const key = (id: string, h: string | null | undefined) => `${id}\u0000${h ?? ''}`
   for (const e of edges) {
     if (!nodes.has(e.source) || !nodes.has(e.target)) continue
@@ -103,6 +104,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       const list = at.get(key(id, h)) ?? []
       list.push(e)
       at.set(key(id, h), list)
+      ;(handlesOf.get(id) ?? handlesOf.set(id, []).get(id)!).push(h)
     }
     const a = nodes.get(e.source)!
     const b = nodes.get(e.target)!
@@ -145,6 +147,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other })
     }
     slots[node.id] = info
+    // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
+    const own = new Set(handleIds(node))
+    for (const h of handlesOf.get(node.id) ?? []) if (!own.has(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
     const open = info.filter(x => x.edges.length === 0).length
     const crowded = info.filter(x => x.edges.length > 1)
     const total = info.length
@@ -155,12 +160,12 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       if (hs.every(h => h !== null)) {
         const hv = hs as number[]
         const sum = hv[0]! + hv[1]! + hv[2]!
-        const txt = `(${hv.map(sign).join(',')})`
+        const txt = () => `(${hv.map(sign).join(',')})`
         const allSame = hv.every(h => h > 0) || hv.every(h => h < 0)
-        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
-        else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
-        else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
-        else if (sum === 0 && s !== 0 && s !== null) addKind(node.id, `helicities ${txt} sum to 0: only scalars have such a vertex`)
+        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt()}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
+        else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt()} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
+        else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt()} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
+        else if (sum === 0 && s !== 0 && s !== null) addKind(node.id, `helicities ${txt()} sum to 0: only scalars have such a vertex`)
       }
     }
     else if (node.type === 'block') {
@@ -182,7 +187,12 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const find = (x: string): string => {
     let r = x
     while (parent.get(r) !== r) r = parent.get(r)!
-    parent.set(x, r)
+    // Full path compression: unions without rank otherwise build chains (quadratic on big canvases).
+    for (let y = x; y !== r;) {
+      const up = parent.get(y)!
+      parent.set(y, r)
+      y = up
+    }
     return r
   }
   const validEdges = edges.filter(e => nodes.has(e.source) && nodes.has(e.target) && e.source !== e.target)
@@ -195,13 +205,19 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     groups.set(r, g)
   }
   const edgeCount = new Map<string, number>()
-  for (const e of validEdges) edgeCount.set(find(e.source), (edgeCount.get(find(e.source)) ?? 0) + 1)
+  // Internal lines per component, found in one pass (a filter per component was quadratic).
+  const linesByRoot = new Map<string, string[]>()
+  for (const e of validEdges) {
+    const r = find(e.source)
+    edgeCount.set(r, (edgeCount.get(r) ?? 0) + 1)
+    if (!isExternal(e, nodes)) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(e.id)
+  }
   const components: Component[] = []
   for (const [root, ids] of groups) {
     const legIds = ids.filter(id => nodes.get(id)!.type === 'leg')
     const inner = ids.filter(id => nodes.get(id)!.type !== 'leg')
     const labels = legIds.map(id => (nodes.get(id)!.data as unknown as LegData).label)
-    const lineIds = validEdges.filter(e => find(e.source) === root && !isExternal(e, nodes)).map(e => e.id)
+    const lineIds = linesByRoot.get(root) ?? []
     const isTree = (edgeCount.get(root) ?? 0) === ids.length - 1
     components.push({ id: inner[0] ?? ids[0]!, nodeIds: ids, legIds, labels, lineIds, isTree })
     if (!inner.length) continue
@@ -226,8 +242,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     if (k) issues[x.id] = issues[x.id]!.filter(i => i !== k)
     ;(issues[x.id] ??= []).push({ level: x.level, message: x.message })
   }
+  const compById = new Map(components.map(c => [c.id, c]))
   for (const t of drawing.terms) {
-    const comp = components.find(c => c.id === t.id)
+    const comp = compById.get(t.id)
     const msgs = new Set<string>()
     for (const id of t.nodeIds) for (const i of issues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
     for (const id of comp?.lineIds ?? []) for (const i of edgeIssues[id] ?? []) if (i.level === 'error') msgs.add(i.message)

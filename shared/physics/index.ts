@@ -23,6 +23,7 @@ import { decideVerdict, deviationOf } from './verdict'
 import { applicableTargets, autoTarget, evaluateTarget, type TargetName } from './targets/index'
 import { ddField } from './double-double'
 import { compileFormula, type CompiledFormula } from './formula'
+import { byPrimes } from './modular'
 import {
   EvaluateRequestSchema,
   type EvaluateRequestInput,
@@ -85,6 +86,14 @@ export function buildPoint(kin: Kinematics, n: number, arithmetic: 'float' | 'ex
 
 /** The physical channels of the theory (0-based sets; one of each complementary pair). */
 function poleSets(p: Process, n: number): number[][] {
+  const key = `${p.colourOrdered ? 'c' : 'a'}${n}`
+  let out = poleSetCache.get(key)
+  if (!out) poleSetCache.set(key, (out = computePoleSets(p, n)))
+  return out
+}
+const poleSetCache = new Map<string, number[][]>()
+
+function computePoleSets(p: Process, n: number): number[][] {
   const out: number[][] = []
   if (p.colourOrdered) {
     for (let m = 2; 2 * m <= n; m++) for (let a = 0; a < (2 * m === n ? n / 2 : n); a++) out.push(Array.from({ length: m }, (_, t) => (a + t) % n))
@@ -128,6 +137,13 @@ function nodeToWire<T>(F: Field<T>, x: SubAmplitude<T> | Vertex<T>): WireSubAmpl
   return { value: F.toWire(x.value), shift: x.shift, legs: x.legs, helicities: x.helicities, terms: x.terms.map((t) => termToWire(F, t)) }
 }
 
+interface Computed<T> {
+  value: T | null
+  terms: Term<T>[]
+  targetValue: T | null
+  singular: string | null
+}
+
 type ResolvedTarget = { kind: 'none' } | { kind: 'named'; name: TargetName } | { kind: 'formula'; formula: CompiledFormula }
 
 function resolveTarget(target: EvaluateRequestInput['target'], theory: Process['theory'], helicities: number[], spin?: number): ResolvedTarget {
@@ -155,17 +171,50 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   const target = resolveTarget(req.target, theory, helicities, req.spin)
   const point = buildPoint(req.kinematics, n, arithmetic)
   warnings.push(...point.warnings)
+  const modular = arithmetic === 'exact' && !req.tree && (req.exact?.backend ?? 'modular') === 'modular'
   const body =
     point.F.kind === 'exact'
-      ? run(point.F as Field<Fraction>, point.kin as Kin<Fraction>)
+      ? run(rationalField, point.kin as Kin<Fraction>, modular ? computeByPrimes(point.kin as Kin<Fraction>) : null)
       : p.theory === 'gluon'
         ? run(point.F as Field<Complex>, point.kin as Kin<Complex>) // doubles measured ≤ 1e-11 off
         : run(ddField, toDoubleDouble(point.kin as Kin<Complex>)) // see toDoubleDouble
   return { ...body, ms: Math.round((performance.now() - t0) * 1000) / 1000 }
 
-  function run<T>(F: Field<T>, k: Kin<T>): Omit<EvaluateResponse, 'ms'> {
+  /**
+   * The exact value, target and terms modulo primes (modular.ts), or null when the first primes
+   * all meet a zero (then the rational computation gives the singular point and its message).
+   */
+  function computeByPrimes(k: Kin<Fraction>): Computed<Fraction> | null {
+    const vanishing = vanishes(p, helicities)
+    const key = `${theory}:${req.spin ?? ''}:${helicities.join(',')}:${shift.join(',')}:${target.kind === 'named' ? target.name : target.kind}:${req.kinematics.kind}`
+    const r = byPrimes(
+      k,
+      (Fp, km) => {
+        if (!vanishing && vanishingPole(Fp, p, km)) throw new SingularError('a pole vanishes')
+        const b = bcfw(Fp, p, km, helicities, shift)
+        const tv = target.kind === 'none' ? null : target.kind === 'named' ? evaluateTarget(target.name, Fp, km, helicities) : target.formula.evaluate(Fp, km)
+        const values = tv === null ? [b.value] : [b.value, tv]
+        let shape = ''
+        for (const t of b.terms) {
+          values.push(t.z, t.pole, t.value)
+          shape += `${t.left.join('.')}:${t.helicity};`
+        }
+        return { shape, values, info: b.terms }
+      },
+      { key },
+    )
+    if (!r) return null
+    const off = target.kind === 'none' ? 1 : 2
+    return {
+      value: r.values[0]!,
+      targetValue: target.kind === 'none' ? null : r.values[1]!,
+      terms: r.info.map((t, s) => ({ left: t.left, helicity: t.helicity, z: r.values[off + 3 * s]!, pole: r.values[off + 3 * s + 1]!, value: r.values[off + 3 * s + 2]!, children: null })),
+      singular: null,
+    }
+  }
+
+  function compute<T>(F: Field<T>, k: Kin<T>): Computed<T> {
     const [i, j] = shift
-    const validByTable = isValidShift(p, helicities, i, j)
     const vanishing = vanishes(p, helicities)
     let singular: string | null = vanishing ? null : vanishingPole(F, p, k)
     let value: T | null = null
@@ -190,6 +239,16 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
         singular = `${e.what} (in the target ${target.kind === 'named' ? target.name : 'formula'})`
       }
     }
+    return { value, terms, targetValue, singular }
+  }
+
+  function run<T>(F: Field<T>, k: Kin<T>, computed: Computed<T> | null = null): Omit<EvaluateResponse, 'ms'> {
+    const [i, j] = shift
+    const validByTable = isValidShift(p, helicities, i, j)
+    const vanishing = vanishes(p, helicities)
+    const c = computed ?? compute(F, k)
+    const terms = c.terms
+    let { value, targetValue, singular } = c
     let falloff: FalloffResult | null = null
     if (req.probeFalloff) {
       try {

@@ -34,6 +34,10 @@ export const EvaluateRequestSchema = z.object({
   arithmetic: z.enum(['float', 'exact']).default('float'),
   probeFalloff: z.boolean().default(false),
   tree: z.boolean().default(false),
+  // How exact arithmetic is carried out; both give the same fractions. 'modular' evaluates modulo
+  // word-size primes and reconstructs the rationals (much faster); 'rational' uses big rationals
+  // throughout (the reference). The term tree is always built in big rationals.
+  exact: z.object({ backend: z.enum(['modular', 'rational']).default('modular') }).optional(),
 })
 
 /** The request after parsing (defaults applied). */

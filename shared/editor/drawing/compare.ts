@@ -41,11 +41,15 @@ interface Problem { type: 'missing' | 'duplicated' | 'foreign', message: string 
 
 const legName = (l: DrawnPart['legs'][number], lineName: (e: string) => string) => ('label' in l ? String(l.label) : lineName(l.edge))
 
-/** A canonical key of a drawn part (the same structure gives the same key). */
+const keys = new WeakMap<DrawnPart, string>()
+
+/** A canonical key of a drawn part (the same structure gives the same key); memoized, cover asks often. */
 export function partKey(x: DrawnPart): string {
-  if (x.kind === 'vertex') return `V${x.vertexKind[0]}`
+  if (x.kind === 'vertex') return x.vertexKind === 'angle' ? 'Va' : 'Vs'
   if (x.kind === 'block') return 'B'
-  return `T${x.shift.join(',')}{${x.L.join(',')}}${x.helicity}(${partKey(x.left)})(${partKey(x.right)})`
+  let k = keys.get(x)
+  if (k === undefined) keys.set(x, (k = `T${x.shift.join(',')}{${x.L.join(',')}}${x.helicity}(${partKey(x.left)})(${partKey(x.right)})`))
+  return k
 }
 
 function times(k: number): string {
@@ -53,23 +57,23 @@ function times(k: number): string {
 }
 
 /** Whether `parts` (all standing for one amplitude) add up to it exactly once. */
-function cover(p: Process, parts: DrawnPart[], context: string, lineName: (e: string) => string): Problem[] {
+function cover(p: Process, parts: DrawnPart[], context: () => string, lineName: (e: string) => string): Problem[] {
   if (parts.length === 1 && parts[0]!.kind !== 'term') return []
-  const where = `${context}, sub-amplitude (${parts[0]!.legs.map(l => legName(l, lineName)).join(', ')})`
+  const whereOf = () => `${context()}, sub-amplitude (${parts[0]!.legs.map(l => legName(l, lineName)).join(', ')})`
   const keys = parts.map(partKey)
   const distinct = new Set(keys)
   if (distinct.size < keys.length) {
     const k = keys.find((x, t) => keys.indexOf(x) !== t)!
-    return [{ type: 'duplicated', message: `${where} is drawn ${times(keys.filter(x => x === k).length)} in the same form` }]
+    return [{ type: 'duplicated', message: `${whereOf()} is drawn ${times(keys.filter(x => x === k).length)} in the same form` }]
   }
-  if (parts.some(x => x.kind !== 'term')) return [{ type: 'duplicated', message: `${where} is drawn both as one ${parts.find(x => x.kind !== 'term')!.kind === 'block' ? 'Block' : 'vertex'} and expanded: it is counted more than once` }]
+  if (parts.some(x => x.kind !== 'term')) return [{ type: 'duplicated', message: `${whereOf()} is drawn both as one ${parts.find(x => x.kind !== 'term')!.kind === 'block' ? 'Block' : 'vertex'} and expanded: it is counted more than once` }]
   const terms = parts as Extract<DrawnPart, { kind: 'term' }>[]
   const shifts = new Set(terms.map(t => t.shift.join(',')))
   const first = terms[0]!
-  const names = first.legs.map(l => legName(l, lineName))
-  if (shifts.size > 1) return [{ type: 'duplicated', message: `${where} is expanded under ${shifts.size} different shifts: expand it under one` }]
+  if (shifts.size > 1) return [{ type: 'duplicated', message: `${whereOf()} is expanded under ${shifts.size} different shifts: expand it under one` }]
   const [a, b] = first.shift
-  const sh = `[${names[a]}, ${names[b]}⟩`
+  const names = () => first.legs.map(l => legName(l, lineName))
+  const sh = () => `[${names()[a]}, ${names()[b]}⟩`
   const out: Problem[] = []
   const live = liveChannels(p, first.helicities, first.shift)
   const chKey = (L: readonly number[], h: number) => `${[...L].sort((u, v) => u - v).join(',')}|${h}`
@@ -80,23 +84,23 @@ function cover(p: Process, parts: DrawnPart[], context: string, lineName: (e: st
     g.push(t)
     groups.set(k, g)
   }
-  const chName = (L: readonly number[], h: number) => `{${[...L].map(u => names[u]).join(',')}} | ${helicityText(h)}`
+  const chName = (L: readonly number[], h: number) => `{${[...L].map(u => names()[u]).join(',')}} | ${helicityText(h)}`
   for (const c of live) {
-    if (!groups.has(chKey(c.L, c.helicity))) out.push({ type: 'missing', message: `${where}: its term ${chName(c.L, c.helicity)} under ${sh} is not drawn` })
+    if (!groups.has(chKey(c.L, c.helicity))) out.push({ type: 'missing', message: `${whereOf()}: its term ${chName(c.L, c.helicity)} under ${sh()} is not drawn` })
   }
   for (const [k, g] of groups) {
     const t0 = g[0]!
     if (!live.some(c => chKey(c.L, c.helicity) === k)) {
-      out.push({ type: 'foreign', message: `${where}: ${chName(t0.L, t0.helicity)} is not a term of its recursion under ${sh} (it vanishes)` })
+      out.push({ type: 'foreign', message: `${whereOf()}: ${chName(t0.L, t0.helicity)} is not a term of its recursion under ${sh()} (it vanishes)` })
       continue
     }
-    out.push(...coverPairs(p, g, `${where}, term ${chName(t0.L, t0.helicity)}`, lineName))
+    out.push(...coverPairs(p, g, () => `${whereOf()}, term ${chName(t0.L, t0.helicity)}`, lineName))
   }
   return out
 }
 
 /** The (A_L, A_R) pairs drawn for one channel must add up to A_L · A_R once. */
-function coverPairs(p: Process, g: Extract<DrawnPart, { kind: 'term' }>[], where: string, lineName: (e: string) => string): Problem[] {
+function coverPairs(p: Process, g: Extract<DrawnPart, { kind: 'term' }>[], where: () => string, lineName: (e: string) => string): Problem[] {
   const wl = where
   const wr = where
   if (g.length === 1) return [...cover(p, [g[0]!.left], wl, lineName), ...cover(p, [g[0]!.right], wr, lineName)]
@@ -170,7 +174,7 @@ export function compareDrawing(process: GraphProcess, s: DrawingStructure, lineN
     }
     const where = `channel ${channelText(g.left)} with internal helicity ${word(g.helicity)}`
     const probs = g.plans.length === 1 && g.plans[0]!.kind === 'term'
-      ? coverPairs(p, [g.plans[0] as Extract<DrawnPart, { kind: 'term' }>], where, lineName)
+      ? coverPairs(p, [g.plans[0] as Extract<DrawnPart, { kind: 'term' }>], () => where, lineName)
       : coverTop(p, g.plans, where, lineName)
     const dup = probs.filter(x => x.type === 'duplicated')
     const rest = probs.filter(x => x.type !== 'duplicated')
@@ -196,5 +200,5 @@ function coverTop(p: Process, plans: DrawnPart[], where: string, lineName: (e: s
     const k = keys.find((x, t) => keys.indexOf(x) !== t)!
     return [{ type: 'duplicated', message: `${where} is drawn ${times(keys.filter(x => x === k).length)}` }]
   }
-  return coverPairs(p, plans as Extract<DrawnPart, { kind: 'term' }>[], where, lineName)
+  return coverPairs(p, plans as Extract<DrawnPart, { kind: 'term' }>[], () => where, lineName)
 }

@@ -117,6 +117,22 @@ export function drawnValues<T>(F: Field<T>, process: GraphProcess, s: DrawingStr
   return { sum, terms }
 }
 
+/**
+ * What the compiler reads of a graph (ids, kinds, wiring, labels, helicities, line names): the rest
+ * (positions, layout data, cached values) need not cross to a worker thread.
+ */
+export function drawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }): { nodes: EditorNode[], edges: EditorEdge[] } {
+  const pick = (d: Record<string, unknown> | undefined, keys: string[]) => {
+    const out: Record<string, unknown> = {}
+    for (const k of keys) if (d && d[k] !== undefined) out[k] = d[k]
+    return out
+  }
+  return {
+    nodes: (g.nodes ?? []).map(n => ({ id: n.id, type: n.type, position: { x: 0, y: 0 }, data: pick(n.data, n.type === 'leg' ? ['label', 'helicity'] : n.type === 'block' ? ['helicities'] : []) })),
+    edges: (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, data: pick(e.data, ['helicity', 'targetHelicity', 'line', 'external']) })),
+  }
+}
+
 /** Whether a graph has drawn terms: a component with a vertex or a Block. */
 export function hasDrawnTerms(nodes: { type: string }[]): boolean {
   return nodes.some(n => n.type !== 'leg')

@@ -127,8 +127,21 @@ export const channelLabel = (c: DrawnChannel): string => `${channelText(c.left)}
 const hsOf = (p: Process): number[] => (p.s === 0 ? [0] : [p.s, -p.s])
 
 /** The live (channel, internal helicity) pairs of an amplitude under a shift: the terms the recursion sums. */
-export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number]): { L: readonly number[], R: readonly number[], helicity: number }[] {
-  const out: { L: readonly number[], R: readonly number[], helicity: number }[] = []
+export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number]): readonly LiveChannel[] {
+  const key = `${p.theory}:${p.s}:${shift[0]}:${shift[1]}:${h.join(',')}`
+  let out = liveCache.get(key)
+  if (!out) {
+    if (liveCache.size > 5000) liveCache.clear()
+    liveCache.set(key, (out = computeLive(p, h, shift)))
+  }
+  return out
+}
+
+interface LiveChannel { L: readonly number[], R: readonly number[], helicity: number }
+const liveCache = new Map<string, readonly LiveChannel[]>()
+
+function computeLive(p: Process, h: readonly number[], shift: readonly [number, number]): LiveChannel[] {
+  const out: LiveChannel[] = []
   if (vanishes(p, h)) return out
   for (const { L, R } of channels(h.length, shift[0], shift[1], p.colourOrdered)) {
     for (const x of hsOf(p)) {
@@ -136,6 +149,17 @@ export function liveChannels(p: Process, h: readonly number[], shift: readonly [
     }
   }
   return out
+}
+
+type ChannelList = ReturnType<typeof channels>
+const keyCache = new Map<string, Map<string, ChannelList[number]>>()
+
+/** The channels of a shift keyed by their sorted left positions (cached: the same few recur at every level). */
+function channelsByKey(n: number, sh: readonly [number, number], colourOrdered: boolean): Map<string, ChannelList[number]> {
+  const k = `${n}:${sh[0]}:${sh[1]}:${colourOrdered ? 1 : 0}`
+  let m = keyCache.get(k)
+  if (!m) keyCache.set(k, (m = new Map(channels(n, sh[0], sh[1], colourOrdered).map(c => [[...c.L].sort((u, v) => u - v).join(','), c]))))
+  return m
 }
 
 interface Slot { leg: number | null, edge: string | null, to: string | null, helicity: number | null }
@@ -166,7 +190,7 @@ function lineRank(e: EditorEdge | undefined): number {
  * Reads a region of the canvas (a connected set of vertices and Blocks) as the amplitude `amp`.
  * `kind` is the three-point kind the parent's shift allows for it; `shift` is fixed at the top.
  */
-function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, why: string, shift: [number, number] | null): Found {
+function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, whyOf: () => string, shift: [number, number] | null): Found {
   const { p } = ctx
   if (region.length === 1) {
     const id = region[0]!
@@ -175,28 +199,30 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
     if (node.type === 'block') {
       const zero = vanishes(p, amp.helicities)
       const issues: DrawnIssue[] = []
-      if (legs.length === 3 && kind && !threePointSurvives(p, amp.helicities, kind)) issues.push({ id, on: 'node', level: 'error', message: `${why}, only ${kind === 'angle' ? 'an angle' : 'a square'} three-point amplitude survives, and helicities (${amp.helicities.map(helicityText).join(',')}) do not allow one` })
+      if (legs.length === 3 && kind && !threePointSurvives(p, amp.helicities, kind)) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${kind === 'angle' ? 'an angle' : 'a square'} three-point amplitude survives, and helicities (${amp.helicities.map(helicityText).join(',')}) do not allow one` })
       return { part: { kind: 'block', node: id, legs, helicities: amp.helicities, zero: zero || issues.length > 0 }, issues }
     }
     const vk = kind ?? (node.type as VertexKind)
     const issues: DrawnIssue[] = []
-    if (node.type !== vk) issues.push({ id, on: 'node', level: 'error', message: `${why}: at the pole its ${vk === 'angle' ? 'square' : 'angle'} brackets vanish, so only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives here, not ${vk === 'angle' ? 'a square' : 'an angle'} vertex` })
+    if (node.type !== vk) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}: at the pole its ${vk === 'angle' ? 'square' : 'angle'} brackets vanish, so only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives here, not ${vk === 'angle' ? 'a square' : 'an angle'} vertex` })
     else if (!threePointSurvives(p, amp.helicities, vk)) {
       const sum = amp.helicities.reduce((a, b) => a + b, 0)
-      issues.push({ id, on: 'node', level: 'error', message: `${why}, only an ${vk} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) ${sum === 0 ? 'sum to 0' : `sum to ${helicityText(sum)}`}: this term vanishes (flip the internal helicity)` })
+      const total = sum === 0 ? '0' : `${sum > 0 ? '+' : '−'}${Math.abs(sum)}`
+      issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) sum to ${total}: this term vanishes (flip the internal helicity)` })
     }
     return { part: { kind: 'vertex', node: id, legs, helicities: amp.helicities, vertexKind: vk, zero: issues.length > 0 }, issues }
   }
   // Several nodes: one channel term of this amplitude's own recursion.
   const inside = new Set(region)
-  const index = new Map(amp.legs.map((l, t) => [legKey(l), t]))
-  const lines: { edge: string, a: string, b: string }[] = []
+  const index = new Map<string, number>()
+  amp.legs.forEach((l, t) => index.set(legKey(l), t))
+  const lines: { edge: string, a: string, b: string, rank: number }[] = []
   for (const id of region) {
     for (const s of ctx.slots.get(id)!) {
-      if (s.edge && s.to && inside.has(s.to) && id < s.to) lines.push({ edge: s.edge, a: id, b: s.to })
+      if (s.edge && s.to && inside.has(s.to) && id < s.to && ctx.slots.get(s.to)?.some(o => o.edge === s.edge)) lines.push({ edge: s.edge, a: id, b: s.to, rank: lineRank(ctx.edgeById.get(s.edge)) })
     }
   }
-  lines.sort((x, y) => lineRank(ctx.edgeById.get(x.edge)) - lineRank(ctx.edgeById.get(y.edge)))
+  lines.sort((x, y) => x.rank - y.rank)
   // For each Line: the amplitude's legs and the nodes on its `a` side.
   const sideOf = (line: { edge: string, a: string }) => {
     const legs: number[] = []
@@ -219,46 +245,49 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
     }
     return { legs: legs.sort((u, v) => u - v), nodes }
   }
-  const sides = lines.map(sideOf)
+  const sides: ({ legs: number[], nodes: string[] } | undefined)[] = new Array(lines.length)
   const n = amp.legs.length
-  const shifts: [number, number][] = []
-  if (shift) shifts.push(shift)
-  else {
-    const d = defaultShift(p, amp.helicities)
-    shifts.push(d)
-    for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) if (a !== b && !(a === d[0] && b === d[1]) && isValidShift(p, amp.helicities, a, b)) shifts.push([a, b])
-  }
+  // The given shift at the top; below, the default shift first, then the other valid ones.
+  const d = shift ?? defaultShift(p, amp.helicities)
+  let others: [number, number][] | null = null
   let best: Found | null = null
-  for (const sh of shifts) {
-    const chs = channels(n, sh[0], sh[1], p.colourOrdered)
-    const byKey = new Map(chs.map(c => [[...c.L].sort((u, v) => u - v).join(','), c]))
+  for (let si = 0; ; si++) {
+    if (si === 1) {
+      if (shift) break
+      others = []
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) if (a !== b && !(a === d[0] && b === d[1]) && isValidShift(p, amp.helicities, a, b)) others.push([a, b])
+    }
+    const sh = si === 0 ? d : others![si - 1]
+    if (!sh) break
+    const byKey = channelsByKey(n, sh, p.colourOrdered)
     for (let t = 0; t < lines.length; t++) {
       const line = lines[t]!
-      const side = sides[t]!
-      const comp = Array.from({ length: n }, (_, u) => u).filter(u => !side.legs.includes(u))
+      const side = (sides[t] ??= sideOf(line))
       let ch = byKey.get(side.legs.join(','))
-      let leftEnd = line.a
-      let leftNodes = side.nodes
+      let flip = false
       if (!ch) {
-        ch = byKey.get(comp.join(','))
-        leftEnd = line.b
-        leftNodes = region.filter(x => !side.nodes.includes(x))
+        const other: number[] = []
+        for (let u = 0; u < n; u++) if (!side.legs.includes(u)) other.push(u)
+        ch = byKey.get(other.join(','))
+        flip = true
       }
       if (!ch) continue
-      const rightEnd = leftEnd === line.a ? line.b : line.a
-      const rightNodes = region.filter(x => !leftNodes.includes(x))
-      const hAt = (node: string) => ctx.slots.get(node)!.find(s => s.edge === line.edge)!.helicity
+      const sideSet = new Set(side.nodes)
+      const leftEnd = flip ? line.b : line.a
+      const rightEnd = flip ? line.a : line.b
+      const leftNodes = flip ? region.filter(x => !sideSet.has(x)) : side.nodes
+      const rightNodes = flip ? side.nodes : region.filter(x => !sideSet.has(x))
+      const hAt = (node: string) => ctx.slots.get(node)!.find(s => s.edge === line.edge)?.helicity ?? null
       const h = hAt(leftEnd)
       const hr = hAt(rightEnd)
       if (h === null || hr === null) continue
       const edgeLeg: DrawnLeg = { edge: line.edge }
       const ampL: Amp = { legs: [...ch.L.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.L.map(u => amp.helicities[u]!), h] }
       const ampR: Amp = { legs: [...ch.R.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.R.map(u => amp.helicities[u]!), hr] }
-      const si = legText(ctx, amp.legs[sh[0]]!)
-      const sj = legText(ctx, amp.legs[sh[1]]!)
-      const left = readAmp(ctx, ampL, leftNodes, 'angle', `this side of line ${ctx.lineName(line.edge)} holds the shifted ${si} (λ̃ shifted)`, null)
-      const right = readAmp(ctx, ampR, rightNodes, 'square', `this side of line ${ctx.lineName(line.edge)} holds the shifted ${sj} (λ shifted)`, null)
-      const issues = [...left.issues, ...right.issues]
+      const [si, sj] = sh
+      const left = readAmp(ctx, ampL, leftNodes, 'angle', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[si]!)} (λ̃ shifted)`, null)
+      const right = readAmp(ctx, ampR, rightNodes, 'square', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[sj]!)} (λ shifted)`, null)
+      const issues = left.issues.length || right.issues.length ? [...left.issues, ...right.issues] : left.issues
       const found: Found = {
         part: left.part && right.part ? { kind: 'term', legs: amp.legs, helicities: amp.helicities, shift: sh, L: [...ch.L], R: [...ch.R], line: line.edge, helicity: h, left: left.part, right: right.part } : null,
         issues,
@@ -337,7 +366,7 @@ export function compileStructure(input: StructureInput): DrawingStructure {
     if (term.problems.length) continue
     const amp: Amp = { legs: order.map(l => ({ label: l })), helicities: order.map(l => process.helicities[l - 1]!) }
     const top: [number, number] = [pos.get(shift[0])!, pos.get(shift[1])!]
-    const found = readAmp(ctx, amp, inner, null, '', top)
+    const found = readAmp(ctx, amp, inner, null, () => '', top)
     issues.push(...found.issues)
     term.problems.push(...found.issues.map(x => x.message))
     const part = found.part
