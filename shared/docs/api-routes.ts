@@ -128,6 +128,9 @@ export const API_SECTIONS: ApiSection[] = [
             theory: 'gluon', helicities: MHV5, kinematics: { kind: 'rational', seed: 3 }, arithmetic: 'exact',
             target: { formula: '<1 2>^4/(<1 2><2 3><3 4><4 5><5 1>)' },
           }),
+          example(EvaluateRequestSchema, 'exact, with the big-rational reference instead of primes (same fractions, slower)', {
+            theory: 'gluon', helicities: [-1, 1, -1, 1, 1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' },
+          }),
           example(EvaluateRequestSchema, 'six gluons, NMHV, physical point, falloff probed', {
             theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], kinematics: { kind: 'physical', seed: 1, energy: 500 }, shift: [1, 2], target: 'berends-giele', probeFalloff: true,
           }),

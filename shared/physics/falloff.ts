@@ -2,7 +2,8 @@
 // (CONVENTIONS.md "Numerical advice"), so it is measured exactly at a seeded rational point of the
 // same process, with A(z) at the shifted (still on-shell, momentum-conserving) point computed by
 // BCFW under another shift that is valid there.
-import { Fraction, rationalField as Q, SingularError } from './field'
+import { Fraction, rationalField as Q, SingularError, type Field } from './field'
+import { byPrimes } from './modular'
 import type { Kin, Spinor } from './spinors'
 import { rationalPoint } from './kinematics'
 import { bcfw, cheapestShift } from './bcfw'
@@ -61,16 +62,27 @@ export function alternativeShift(p: Process, h: readonly number[], i: number, j:
  * Parke–Taylor, BCFW under another valid shift or Berends–Giele, whichever is cheapest; the
  * planar diagram sum for the cubic scalar; else BCFW under another valid shift.
  */
-function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, number]): Fraction {
+function amplitudeIn<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], alt: [number, number]): T {
   if (p.theory === 'gluon') {
     const c = classifyGluon(h)
-    if (c.kind === 'mhv') return parkeTaylorMhv(Q, k, c.i, c.j)
-    if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(Q, k, c.i, c.j)
+    if (c.kind === 'mhv') return parkeTaylorMhv(F, k, c.i, c.j)
+    if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(F, k, c.i, c.j)
     // BCFW while its closed-form count is small (measured faster up to ~300), else Berends–Giele
-    return cheapestShift(h).cost <= 300 ? bcfw(Q, p, k, h, alt).value : berendsGiele(Q, k, h)
+    return cheapestShift(h).cost <= 300 ? bcfw(F, p, k, h, alt).value : berendsGiele(F, k, h)
   }
-  if (p.theory === 'scalar-cubic') return cubicScalarFeynman(Q, k)
-  return bcfw(Q, p, k, h, alt).value
+  if (p.theory === 'scalar-cubic') return cubicScalarFeynman(F, k)
+  return bcfw(F, p, k, h, alt).value
+}
+
+/**
+ * The same, exactly: modulo primes with rational reconstruction (modular.ts) unless the closed
+ * form is cheaper in rationals; big rationals when the primes meet an exact zero (a retry follows).
+ */
+function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, number]): Fraction {
+  const c = p.theory === 'gluon' ? classifyGluon(h).kind : null
+  if (c === 'mhv' || c === 'anti-mhv') return amplitudeIn(Q, p, k, h, alt)
+  const r = byPrimes(k, (F, km) => ({ shape: '', values: [amplitudeIn(F, p, km, h, alt)], info: null }), { key: `falloff:${p.theory}:${p.s}:${h.join(',')}:${alt.join(',')}` })
+  return r ? r.values[0]! : amplitudeIn(Q, p, k, h, alt)
 }
 
 /** Least-squares slope of y against x (ln|A| against ln z), and the spread of the two-point slopes. */
