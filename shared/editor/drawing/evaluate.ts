@@ -11,7 +11,7 @@ import { toDoubleDouble } from '../../physics/kinematics'
 import type { Kin, Spinor } from '../../physics/spinors'
 import { isValidShift, vanishes, type Process } from '../../physics/theories'
 import { threePoint } from '../../physics/three-point'
-import { decideVerdict, deviationOf, type Verdict } from '../../physics/verdict'
+import { decideVerdict, deviationOf, lostPrecision, type Verdict } from '../../physics/verdict'
 import type { Process as GraphProcess } from '../../schemas/graph'
 import type { EvaluateResponse, WireComplex } from '../../schemas/evaluate'
 import type { EditorEdge, EditorNode, LineData } from '../types'
@@ -204,6 +204,8 @@ export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph
   })
   const problem = comparison.messages[0]
   if (verdict === 'agrees' && problem) verdict = 'disagrees'
+  // A complete drawing holds the recursion's terms, so the recursion's precision estimate is its own.
+  if (!problem && lostPrecision(verdict, n, deviation, res.precision?.estimated ?? null)) verdict = 'not evaluated'
   const message = singular
     ? `the drawing meets a singular point (${singular})`
     : problem
