@@ -26,6 +26,8 @@ import { TARGETS } from '../../shared/physics/targets/index'
 import { MAX_SPIN } from '../../shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
 import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
+import { generatePoints } from '../../shared/pointsets/generate'
+import type { GenerateInput } from '../../shared/pointsets/schemas'
 import {
   CrossShiftRequestSchema,
   SHIFTS_MEASURE_LIMITS,
@@ -42,6 +44,7 @@ export type Task =
   | { kind: 'shifts'; req: unknown }
   | { kind: 'crossShift'; req: unknown }
   | { kind: 'catalogue' }
+  | { kind: 'generatePoints'; g: GenerateInput }
 
 export interface Failure {
   ok: false
@@ -87,6 +90,8 @@ function dispatch(task: Task): unknown {
       return crossShiftTask(task.req)
     case 'catalogue':
       return catalogue()
+    case 'generatePoints':
+      return [...generatePoints(task.g)]
   }
 }
 

@@ -2,6 +2,7 @@
 // The process (theory, helicities, colour order, shift) is optional on save and required
 // only when a check runs (see requireProcess).
 import { z } from 'zod'
+import { boundedFields } from './json-bounds'
 
 export const GRAPH_SCHEMA_VERSION = 1
 
@@ -27,7 +28,7 @@ export const GraphNodeSchema = z.object({
   type: NodeKindSchema,
   position: z.object({ x: finite, y: finite }),
   data: z.record(z.string(), z.unknown()).default({}),
-}).loose()
+}).loose().superRefine(boundedFields)
 
 export const GraphEdgeSchema = z.object({
   id: z.string().min(1).max(128),
@@ -37,13 +38,13 @@ export const GraphEdgeSchema = z.object({
   targetHandle: z.string().max(64).nullish(),
   type: z.string().max(32).optional(),
   data: z.record(z.string(), z.unknown()).optional(),
-}).loose()
+}).loose().superRefine(boundedFields)
 
 export const GraphSchema = z.object({
   schemaVersion: z.literal(GRAPH_SCHEMA_VERSION, { error: `must be ${GRAPH_SCHEMA_VERSION}` }).optional(),
   process: ProcessSchema.optional(),
   /** Evaluation settings the editor remembers (kinematics, target, arithmetic). */
-  settings: z.record(z.string(), z.unknown()).optional(),
+  settings: z.record(z.string(), z.unknown()).superRefine(boundedFields).optional(),
   nodes: z.array(GraphNodeSchema).max(3000, { error: 'at most 3000 nodes' }),
   edges: z.array(GraphEdgeSchema).max(6000, { error: 'at most 6000 edges' }),
   viewport: z.object({ x: finite, y: finite, zoom: finite }).optional(),
