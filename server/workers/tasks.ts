@@ -23,6 +23,8 @@ import {
   type Field,
 } from '../../shared/physics/index'
 import { TARGETS } from '../../shared/physics/targets/index'
+import { checkLimit } from '../../shared/physics/checks/index'
+import type { LimitCheckRequestInput } from '../../shared/schemas/limit-checks'
 import { MAX_SPIN } from '../../shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
 import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
@@ -37,14 +39,20 @@ import {
   type ShiftRow,
   type ShiftsResponse,
 } from '../../shared/schemas/service'
+import { checkDrawing } from '../../shared/editor/drawing/evaluate'
+import type { Process as GraphProcess } from '../../shared/schemas/graph'
+import type { EditorEdge, EditorNode } from '../../shared/editor/types'
 
 export type Task =
   | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[] }
   | { kind: 'evaluateMany'; reqs: EvaluateRequestInput[] }
   | { kind: 'shifts'; req: unknown }
   | { kind: 'crossShift'; req: unknown }
+  | { kind: 'limitCheck'; req: unknown }
   | { kind: 'catalogue' }
   | { kind: 'generatePoints'; g: GenerateInput }
+  /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
+  | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
 
 export interface Failure {
   ok: false
@@ -88,10 +96,18 @@ function dispatch(task: Task): unknown {
       return shifts(task.req)
     case 'crossShift':
       return crossShiftTask(task.req)
+    case 'limitCheck':
+      return checkLimit(task.req as LimitCheckRequestInput)
     case 'catalogue':
       return catalogue()
     case 'generatePoints':
       return [...generatePoints(task.g)]
+    case 'checkDrawing': {
+      const t0 = performance.now()
+      const res = task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)
+      const out = checkDrawing(res, task.process, task.graph)
+      return { ...out, ms: round3(performance.now() - t0) }
+    }
   }
 }
 
@@ -238,6 +254,8 @@ function crossShiftTask(input: unknown): CrossShiftResponse {
   const r = crossShift(F, p, pt.kin as never, req.helicities, tolerance ?? undefined)
   const singular = r.rows.filter((row) => row.value === null).map((row) => `[${row.shift[0]}, ${row.shift[1]}⟩`)
   if (singular.length) warnings.push(`singular point for the shifts ${singular.join(', ')}: a pole or bracket vanishes at this point`)
+  if (r.test === 'factorisation')
+    warnings.push('every shift of a single scalar species has a boundary term, so consistency was decided by the residues of the sum of all cubic diagrams on every pole')
   return {
     theory: req.theory,
     ...(req.theory === 'spin' ? { spin: req.spin } : {}),
@@ -246,6 +264,8 @@ function crossShiftTask(input: unknown): CrossShiftResponse {
     rows: r.rows.map((row) => ({ shift: row.shift, valid: row.valid, value: row.value === null ? null : (F.toWire(row.value) as [number, number]) })),
     spread: r.spread,
     agree: r.agree,
+    test: r.test,
+    ...(r.poles ? { poles: r.poles } : {}),
     tolerance,
     kinematics: kinToWire(F, pt.kin as never),
     warnings,

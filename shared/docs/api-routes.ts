@@ -8,6 +8,7 @@ import { LoginSchema, RegisterSchema } from '../schemas/auth'
 import { DiagramCreateSchema, DiagramUpdateSchema, MemberAddSchema, ProjectCreateSchema } from '../schemas/projects'
 import { EvaluateRequestSchema } from '../schemas/evaluate'
 import { CheckRunSchema, CrossShiftRequestSchema, ShiftsRequestSchema } from '../schemas/service'
+import { LimitCheckRequestSchema } from '../schemas/limit-checks'
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
 
@@ -56,20 +57,28 @@ export const API_SECTIONS: ApiSection[] = [
   {
     id: 'auth',
     title: 'Sign-in',
-    intro: 'Pages use a session cookie. Scripts send `Authorization: Bearer <token>` instead (create a token under your account); a read-only token may call every GET route and POST /api/evaluate, /api/shifts and /api/cross-shift, which write nothing.',
+    intro: 'Pages use a session cookie. Scripts send `Authorization: Bearer <token>` instead (create a token under your account); a read-only token may call every GET route and POST /api/evaluate, /api/shifts, /api/cross-shift and /api/limit-checks, which write nothing.',
     routes: [
       {
         id: 'register', method: 'POST', path: '/api/auth/register', access: 'anyone', summary: 'Creates an account and signs in.',
         schema: RegisterSchema, examples: [example(RegisterSchema, 'a new account', { email: 'ada.quill@example.test', password: 'a long passphrase', name: 'Ada Quill' })],
-        response: 'The user `{ id, email, name, role }` and a session cookie.', statuses: [[201, 'created'], [400, 'a field is missing or malformed'], [409, 'the e-mail is already registered']],
+        response: 'The user `{ id, email, name, role }` and a session cookie.', statuses: [[201, 'created'], [400, 'a field is missing or malformed, or the password is too easy to guess (the message says why)'], [409, 'the e-mail is already registered']],
       },
       {
         id: 'login', method: 'POST', path: '/api/auth/login', access: 'anyone', summary: 'Signs in.',
         schema: LoginSchema, examples: [example(LoginSchema, 'sign in', { email: 'ada.quill@example.test', password: 'a long passphrase' })],
-        response: 'The user and a session cookie.', statuses: [[200, 'signed in'], [401, 'wrong e-mail or password'], [429, 'too many attempts for this e-mail']],
+        response: 'The user and a session cookie.', statuses: [[200, 'signed in'], [401, 'wrong e-mail or password'], [429, 'too many failed attempts for this account from this address, for this account, or from this address (the message gives the minutes)']],
       },
-      { id: 'logout', method: 'POST', path: '/api/auth/logout', access: 'anyone', summary: 'Ends the session.', response: 'Nothing.', statuses: [[204, 'signed out']] },
+      { id: 'logout', method: 'POST', path: '/api/auth/logout', access: 'anyone', summary: 'Ends the session on the server: a copy of the cookie stops working too.', response: 'Nothing.', statuses: [[204, 'signed out']] },
       { id: 'me', method: 'GET', path: '/api/auth/me', access: 'signed in', summary: 'Who is calling.', response: '`{ id, email, name, role }`.', statuses: [[200, 'the caller'], ...commonErrors], runnable: true },
+      {
+        id: 'sessions', method: 'GET', path: '/api/account/sessions', access: 'a signed-in session (not a token)', summary: 'The browsers signed in to your account.',
+        response: '`[{ id, userAgent, createdAt, lastSeenAt, expiresAt, current }]`, most recently seen first.', statuses: [[200, 'the open sessions'], [401, 'not signed in'], [403, 'called with an API token']],
+      },
+      {
+        id: 'session-end', method: 'DELETE', path: '/api/account/sessions/:id', params: { id: 12 }, access: 'a signed-in session (not a token)', summary: 'Ends one of your sessions; that browser is signed out at its next request.',
+        response: 'Nothing.', statuses: [[204, 'ended'], [404, 'not one of your sessions'], [403, 'called with an API token']],
+      },
     ],
   },
   {
@@ -128,6 +137,9 @@ export const API_SECTIONS: ApiSection[] = [
             theory: 'gluon', helicities: MHV5, kinematics: { kind: 'rational', seed: 3 }, arithmetic: 'exact',
             target: { formula: '<1 2>^4/(<1 2><2 3><3 4><4 5><5 1>)' },
           }),
+          example(EvaluateRequestSchema, 'exact, with the big-rational reference instead of primes (same fractions, slower)', {
+            theory: 'gluon', helicities: [-1, 1, -1, 1, 1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' },
+          }),
           example(EvaluateRequestSchema, 'six gluons, NMHV, physical point, falloff probed', {
             theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], kinematics: { kind: 'physical', seed: 1, energy: 500 }, shift: [1, 2], target: 'berends-giele', probeFalloff: true,
           }),
@@ -158,8 +170,20 @@ export const API_SECTIONS: ApiSection[] = [
           example(CrossShiftRequestSchema, 'four gravitons (consistent)', { theory: 'graviton', helicities: [-2, -2, 2, 2] }),
           example(CrossShiftRequestSchema, 'spin 3, exact (inconsistent)', { theory: 'spin', spin: 3, helicities: [-3, -3, 3, 3], kinematics: { kind: 'rational', seed: 2 }, arithmetic: 'exact' }),
         ],
-        response: '`{ theory, n, arithmetic, rows: [{ shift, valid, value }], spread, agree, tolerance, kinematics, warnings, ms }`; `spread` is the largest |v_a − v_b| / max |v| among valid shifts.',
+        response: '`{ theory, n, arithmetic, rows: [{ shift, valid, value }], spread, agree, test, poles?, tolerance, kinematics, warnings, ms }`; `spread` is the largest |v_a − v_b| / max |v| among valid shifts; `test` is `shifts`, or `factorisation` for a single scalar species (spin 0), whose every shift has a boundary term: then `poles` lists each pole with whether the sum of all cubic diagrams has the residue A_L·A_R there.',
         statuses: [[200, 'evaluated'], [400, 'the body fails the schema'], [422, 'invalid process or point'], [503, 'over the time budget'], ...commonErrors], runnable: true,
+      },
+      {
+        id: 'limit-checks', method: 'POST', path: '/api/limit-checks', access: 'signed in', summary: 'Limit and identity checks of a process. `soft`: leg s scaled λ → √ε λ, λ̃ → √ε λ̃ along ε = 10⁻¹ … 10⁻⁸ and A_n / (S × A_{n−1}) → 1 with the leading soft factor (gluons, gravitons; n ≥ 5). `collinear`: adjacent gluons a, a+1 with momentum fraction z and offset δ, A_n / Σ_h Split × A_{n−1} → 1 (n ≥ 5). `identity`: cyclicity, reflection, U(1) decoupling, Kleiss–Kuijf or the fundamental BCJ relation among colour-ordered gluon amplitudes, with its residual and tolerance. Writes nothing.',
+        schema: LimitCheckRequestSchema,
+        examples: [
+          example(LimitCheckRequestSchema, 'soft gluon', { check: 'soft', theory: 'gluon', helicities: [-1, 1, -1, 1, 1], soft: 2 }),
+          example(LimitCheckRequestSchema, 'soft graviton', { check: 'soft', theory: 'graviton', helicities: [-2, -2, 2, 2, 2], soft: 4 }),
+          example(LimitCheckRequestSchema, 'collinear gluons 3 ∥ 4', { check: 'collinear', theory: 'gluon', helicities: [-1, -1, 1, -1, 1, 1], leg: 3, z: 0.4 }),
+          example(LimitCheckRequestSchema, 'Kleiss–Kuijf, exact', { check: 'identity', theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], identity: 'kleiss-kuijf', alpha: [2, 3], arithmetic: 'exact' }),
+        ],
+        response: 'Soft and collinear: `{ check, theory, n, helicities, legs, rows: [{ x, ratio, deviation }], rate, expectedRate, holds, factor, source, ms }` — `deviation` is |ratio − 1|, `rate` the fitted r of deviation ~ x^r (expected 1: the next term of each expansion is one power down). Identity: `{ check, theory, n, helicities, identity, arithmetic, relation, terms: [{ order, coefficient, value }], sum, residual, tolerance, holds, source, ms }` — `residual` = |Σ| / max |term|, `holds` when it is ≤ `tolerance` (1e-12; floats run in double-double) or exactly 0 in exact arithmetic.',
+        statuses: [[200, 'checked'], [400, 'the body fails the schema'], [422, 'invalid process, a leg that does not exist, or a limit whose A_{n−1} vanishes identically'], [503, 'over the time budget'], ...commonErrors], runnable: true,
       },
     ],
   },
@@ -169,14 +193,14 @@ export const API_SECTIONS: ApiSection[] = [
     intro: 'A check is a stored evaluation of a diagram\'s process with its provenance: request, result, verdict, engine version, arithmetic, seed, duration, who ran it and when, and the diagram version.',
     routes: [
       {
-        id: 'check-run', method: 'POST', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'editor', summary: 'Evaluates the diagram\'s process (theory, spin, helicities, colour order, shift) at the point given and stores the check.',
+        id: 'check-run', method: 'POST', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'editor', summary: 'Evaluates the diagram\'s process (theory, spin, helicities, colour order, shift) at the point given and stores the check. When the saved graph has drawn terms (vertices or Blocks), the check evaluates the drawing: each connected component is one term whose top-level Line must separate a channel of the shift, and the verdict is about the drawn sum against the target — an incomplete or wrong drawing never agrees.',
         schema: CheckRunSchema,
         query: [{ name: 'budgetMs', meaning: 'a smaller time budget for this request, in ms' }],
         examples: [
           example(CheckRunSchema, 'a seeded point', { kinematics: { kind: 'random', seed: 1 } }),
           example(CheckRunSchema, 'exact, with the falloff probed', { kinematics: { kind: 'rational', seed: 4 }, arithmetic: 'exact', probeFalloff: true }),
         ],
-        response: 'The check in full, as GET /api/checks/:id returns it.',
+        response: 'The check in full, as GET /api/checks/:id returns it. With drawn terms, `result.value`, `result.deviation` and `result.verdict` are the drawing\'s, and `result.drawing` is `{ sum, terms: [{ id, channel, internalHelicity, label, lineId, zStar, pole, value, problems }], comparison: { missing, duplicated, foreign, wrongHelicity, incomplete, invalid, messages, complete }, recursion: { value, deviation, verdict }, message }`: each comparison entry is `{ left, helicity, terms, message }` with the message in words ("channel {1,6} with internal helicity − is not drawn"); `recursion` is the process\'s full recursion under the same shift; `summary.drawing` is `{ terms, complete, message }`. Without drawn terms the result is the process\'s recursion, as before.',
         statuses: [[201, 'stored'], [400, 'the body fails the schema'], [422, 'the diagram has no process (`graph.process`), or the process or point is invalid'], [403, 'a viewer'], [404, 'no such diagram'], [503, 'over the time budget'], ...commonErrors],
       },
       { id: 'check-list', method: 'GET', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'viewer', summary: 'The diagram\'s checks, newest first.', query: [{ name: 'limit', meaning: 'at most this many (default 50, at most 200)' }], response: 'An array of `{ id, diagramVersion, kind, status, verdict, arithmetic, seed, engineVersion, durationMs, summary, createdBy, createdByName, createdAt }` — without the payloads.', statuses: [[200, 'the list'], [404, 'no such diagram'], ...commonErrors] },
