@@ -356,7 +356,8 @@ function degreeOf(node: MathNode): number {
     case 'ConstantNode': {
       const v = (node as ConstantNode).value as unknown as Decimalish | undefined
       if (v === undefined) return 0
-      const digits = v.toFraction().reduce((n, d) => n + d.toFixed().length, 0)
+      const [num, den] = v.toFraction()
+      const digits = num.toFixed().length + den.toFixed().length
       return Math.ceil(digits / 20)
     }
     case 'ParenthesisNode':

@@ -25,13 +25,17 @@ export function jsonDepth(value: unknown, limit = JSON_MAX_DEPTH): { depth: numb
 }
 
 /** A superRefine check: each key of an object (a node, its data, the settings) is bounded. */
-export function boundedFields(value: Record<string, unknown>, ctx: z.RefinementCtx, maxDepth = JSON_MAX_DEPTH) {
+export function boundedFields(value: Record<string, unknown>, ctx: z.RefinementCtx, maxDepth = JSON_MAX_DEPTH, skip: readonly string[] = []) {
   for (const [key, v] of Object.entries(value)) {
+    if (skip.includes(key)) continue
     const { depth, values } = jsonDepth(v, maxDepth)
     if (depth > maxDepth) ctx.addIssue({ code: 'custom', path: [key], message: `nests more than ${maxDepth} levels deep` })
     else if (values > JSON_MAX_VALUES) ctx.addIssue({ code: 'custom', path: [key], message: `holds more than ${JSON_MAX_VALUES} values` })
   }
 }
+
+/** The same check for the extra keys a loose object keeps (`checked` fields have their own). */
+export const boundedExtras = (checked: readonly string[]) => (value: Record<string, unknown>, ctx: z.RefinementCtx) => boundedFields(value, ctx, JSON_MAX_DEPTH, checked)
 
 /**
  * A copy of a stored value with anything nested deeper than `maxDepth` replaced by null, and the
