@@ -157,6 +157,14 @@ async function settleOrphan(row: CheckRow): Promise<CheckRow> {
   return updated ?? (await useDB().select().from(tables.checks).where(eq(tables.checks.id, row.id)).get()) ?? row
 }
 
+/** At start-up: every batch a previous process left queued or running is marked interrupted. */
+export async function settleOrphanBatches(): Promise<number> {
+  const rows = await useDB().select().from(tables.checks)
+    .where(and(eq(tables.checks.kind, 'batch'), inArray(tables.checks.status, ['queued', 'running'])))
+  for (const row of rows) await settleOrphan(row)
+  return rows.length
+}
+
 export async function batchView(row: CheckRow) {
   const r = await settleOrphan(row)
   const l = live.get(r.id)
