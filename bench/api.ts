@@ -4,11 +4,18 @@
 //   1. 6-gluon MHV and NMHV at 32 connections: req/s, p50, p99, errors.
 //   2. p99 of GET /api/auth/me (one user, one connection) while 10-gluon evaluations saturate the pool.
 //   3. One request at a time, end to end: 8-gluon N²MHV and 10-gluon NMHV (no tree).
+//   4. Overhead = wall − engine per process, one request at a time, and the engine's `ms` against
+//      the bare recursion + target in this process.
 import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { availableParallelism, cpus, loadavg } from 'node:os'
 import { join } from 'node:path'
 import { signInDemo, startBuiltServer } from './server'
+import { complexField } from '../shared/physics/field'
+import { randomPoint } from '../shared/physics/kinematics'
+import { bcfw } from '../shared/physics/bcfw'
+import { defaultShift, processOf } from '../shared/physics/theories'
+import { autoTarget, evaluateTarget } from '../shared/physics/targets/index'
 
 // Loaded at run time from the project's node_modules (the bundle of this file lives elsewhere).
 const require = createRequire(join(process.cwd(), 'package.json'))
@@ -72,6 +79,26 @@ async function measured<T extends { requests: { total: number } } | number>(run:
   return { result, cpu: `server CPU per request: request thread ${fmt(cpuPer.main)} ms, workers ${fmt(cpuPer.other)} ms`, cpuPer }
 }
 
+/** Median ms of the bare recursion plus the auto target at the random seed-1 point, in this process. */
+function bareEngineMs(h: number[]): number {
+  const kin = randomPoint(h.length, 1)
+  const p = processOf('gluon')
+  const shift = defaultShift(p, h)
+  const target = autoTarget('gluon', h)
+  const run = () => {
+    bcfw(complexField, p, kin, h, shift)
+    if (target) evaluateTarget(target, complexField, kin, h)
+  }
+  for (let k = 0; k < 200; k++) run()
+  const xs: number[] = []
+  for (let k = 0; k < 400; k++) {
+    const t = performance.now()
+    run()
+    xs.push(performance.now() - t)
+  }
+  return xs.sort((x, y) => x - y)[200]!
+}
+
 const fmt = (x: number) => (x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x.toFixed(2))
 
 async function main() {
@@ -130,10 +157,56 @@ async function main() {
     rows.push(`| ${name}, one at a time (${amount} requests) | mean ${fmt(mean)} ms | p50 ${fmt(q(0.5))} ms | p99 ${fmt(q(0.99))} ms | engine ${fmt(engine / amount)} ms, ${verdict}; ${cpu} |`)
   }
 
+  // 4. Overhead per n: wall time of one request at a time minus the engine's own `ms`, the
+  // `pool` hand-off from server-timing, and the bare recursion + target in this process at the
+  // same point (the engine path should cost no more than 1.5x that).
+  const overheadRows: string[] = []
+  for (const [name, h] of [['4-gluon MHV', gluons(4, 2)], ['6-gluon MHV', gluons(6, 2)], ['6-gluon NMHV', gluons(6, 3)], ['8-gluon N²MHV', gluons(8, 4)], ['10-gluon NMHV', gluons(10, 3)]] as const) {
+    const amount = quick ? 100 : 400
+    const b = body(h)
+    const post = () => fetch(`${base}/api/evaluate`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body: b })
+    for (let k = 0; k < 30; k++) await (await post()).json()
+    const wall: number[] = []
+    const engine: number[] = []
+    const pool: number[] = []
+    for (let k = 0; k < amount; k++) {
+      const t = performance.now()
+      const res = await post()
+      const json = await res.json() as { ms: number }
+      wall.push(performance.now() - t)
+      engine.push(json.ms)
+      pool.push(Number(/pool;dur=([\d.]+)/.exec(res.headers.get('server-timing') ?? '')?.[1] ?? NaN))
+    }
+    const med = (xs: number[]) => [...xs].sort((x, y) => x - y)[Math.floor(xs.length / 2)]!
+    const bare = bareEngineMs(h)
+    const over = wall.map((w, k) => w - engine[k]!)
+    figures[`overhead ${name}`] = { wallP50: med(wall), engineP50: med(engine), poolP50: med(pool), overheadP50: med(over), bareMs: bare }
+    overheadRows.push(`| ${name} | ${fmt(med(wall))} | ${fmt(med(engine))} | ${fmt(med(pool))} | **${fmt(med(over))}** | ${fmt(bare)} | ${(med(engine) / bare).toFixed(1)}× |`)
+  }
+
+  // The floor of the HTTP stack for comparison: the same client, one request at a time.
+  for (const [name, path] of [['GET /api/auth/me (session check only)', '/api/auth/me'], ['GET an unknown route (404, no session work)', '/api/no-such-route']] as const) {
+    const get = () => fetch(`${base}${path}`, { headers: { cookie } })
+    for (let k = 0; k < 30; k++) await (await get()).text()
+    const wall: number[] = []
+    for (let k = 0; k < (quick ? 100 : 400); k++) {
+      const t = performance.now()
+      await (await get()).text()
+      wall.push(performance.now() - t)
+    }
+    const w = [...wall].sort((x, y) => x - y)[Math.floor(wall.length / 2)]!
+    figures[`floor ${name}`] = { wallP50: w }
+    overheadRows.push(`| ${name} | ${fmt(w)} | — | — | ${fmt(w)} | — | — |`)
+  }
+
   console.log(`\nPolewright API bench — Node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? '?'}), ${figures.threads} evaluation threads, load average ${loadavg()[0]!.toFixed(1)} at the end (${Number(figures.loadBefore).toFixed(1)} at the start)\n`)
   console.log('| scenario | throughput | p50 | p99 | notes |')
   console.log('|---|---|---|---|---|')
   for (const r of rows) console.log(r)
+  console.log('\nOne request at a time, medians in ms (overhead = wall − engine; bare = bcfw + target in the bench process at the same point):\n')
+  console.log('| process | wall | engine `ms` | pool hand-off | overhead | bare recursion + target | engine / bare |')
+  console.log('|---|---|---|---|---|---|---|')
+  for (const r of overheadRows) console.log(r)
   mkdirSync(join(root, 'bench/results'), { recursive: true })
   const file = join(root, 'bench/results', `api-${new Date().toISOString().replace(/[:.]/g, '-')}.json`)
   writeFileSync(file, JSON.stringify(figures, null, 2))

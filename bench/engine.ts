@@ -1,15 +1,18 @@
 // Engine benchmark (issue 3 "Speed"): per n = 4..12 and helicity class, BCFW float time,
 // Berends–Giele float time, their ratio, exact BCFW time, agreement and heap growth.
-// Run: node bench/run.mjs  [--quick]
+// Run: node bench/run.mjs  [--quick] [--exact]
 import { complexField as C, rationalField as Q } from '../shared/physics/field'
 import { randomPoint, rationalPoint } from '../shared/physics/kinematics'
 import { bcfw } from '../shared/physics/bcfw'
 import { defaultShift, processOf, THEORIES } from '../shared/physics/theories'
 import { berendsGiele } from '../shared/physics/targets/berends-giele'
 import { evaluate } from '../shared/physics/index'
+import { bcfwByPrimes } from '../shared/physics/modular'
 import type { EvaluateRequestInput } from '../shared/schemas/evaluate'
 
 const quick = process.argv.includes('--quick')
+// --exact: only the exact backends table and the evaluate() rows
+const exactOnly = process.argv.includes('--exact')
 const gc = (globalThis as { gc?: () => void }).gc
 
 /** k+2 negative helicities spread over n legs: the N^kMHV class. */
@@ -49,7 +52,7 @@ const rows: string[] = []
 rows.push('| n | class | BCFW float ms, median (best) | BG float ms, median (best) | BCFW/BG (best) | plain BCFW ms (best) | exact BCFW ms, median | rel. agreement | heap MB |')
 rows.push('|---|---|---|---|---|---|---|---|---|')
 const budget = quick ? 30 : 300
-for (let n = 4; n <= 12; n++) {
+for (let n = 4; n <= (exactOnly ? 0 : 12); n++) {
   for (let k = 0; 2 * k <= n - 4; k++) {
     const h = classHelicities(n, k)
     const kin = randomPoint(n, 1)
@@ -75,12 +78,42 @@ for (let n = 4; n <= 12; n++) {
 }
 console.log(rows.join('\n'))
 
+// The two exact backends side by side: big rationals (the reference) against primes + reconstruction
+// (shared/physics/modular.ts), at the seed-1 rational point, value and top-level terms, warm.
+const exRows = [
+  '| process | class | rational BCFW ms, median (best) | modular BCFW ms, median (best) | modular value only ms (best) | primes | speed-up (best) | same fractions |',
+  '|---|---|---|---|---|---|---|---|',
+]
+const exCases: [string, string, ReturnType<typeof processOf>, number[]][] = []
+for (let n = 4; n <= 9; n++) for (let k = 0; 2 * k <= n - 4; k++) exCases.push([`${n} gluons`, className(k), g, classHelicities(n, k)])
+for (const h of [[-2, -2, 2, 2], [-2, 2, -2, 2, 2], [-2, 2, -2, 2, 2, 2], [-2, 2, -2, 2, -2, 2]]) exCases.push([`${h.length} gravitons`, h.filter((x) => x < 0).length === 2 ? 'MHV' : 'NMHV', processOf('graviton'), h])
+for (const n of [6, 8]) exCases.push([`${n} cubic scalars`, '—', processOf('scalar-cubic'), Array(n).fill(0)])
+for (const [name, cls, p, h] of exCases) {
+  const kq = rationalPoint(h.length, 1)
+  const shift = defaultShift(p, h)
+  let ref = bcfw(Q, p, kq, h, shift)
+  const tr = time(() => (ref = bcfw(Q, p, kq, h, shift)), quick ? 50 : 400)
+  let mod = bcfwByPrimes(p, kq, h, shift, { terms: true })
+  const tm = time(() => (mod = bcfwByPrimes(p, kq, h, shift, { terms: true })), quick ? 50 : 400)
+  const tv = time(() => bcfwByPrimes(p, kq, h, shift), quick ? 50 : 400)
+  const same = !!mod && mod.value.equals(ref.value) && mod.terms.length === ref.terms.length && mod.terms.every((t, s) => t.value.equals(ref.terms[s]!.value) && t.z.equals(ref.terms[s]!.z))
+  exRows.push(`| ${name} | ${cls} | ${fmt(tr.ms)} (${fmt(tr.best)}) | ${fmt(tm.ms)} (${fmt(tm.best)}) | ${fmt(tv.best)} | ${mod?.primes ?? '—'} | ${(tr.best / tm.best).toFixed(0)}× | ${same ? 'yes' : 'NO'} |`)
+  console.error(exRows[exRows.length - 1])
+}
+console.log('\n' + exRows.join('\n'))
+
 // evaluate() end to end for the other theories and the falloff probe (median of 3 calls)
 const ev: [string, EvaluateRequestInput][] = [
   ['8 cubic scalars, float (double-double)', { theory: 'scalar-cubic', helicities: Array(8).fill(0), kinematics: { kind: 'random', seed: 1 } }],
   ['8 cubic scalars, exact', { theory: 'scalar-cubic', helicities: Array(8).fill(0), kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact' }],
+  ['8 cubic scalars, exact, big rationals', { theory: 'scalar-cubic', helicities: Array(8).fill(0), kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' } }],
+  ['8-gluon NMHV exact vs Berends–Giele', { theory: 'gluon', helicities: [-1, 1, 1, -1, 1, 1, -1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact' }],
+  ['8-gluon NMHV exact vs Berends–Giele, big rationals', { theory: 'gluon', helicities: [-1, 1, 1, -1, 1, 1, -1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' } }],
+  ['9-gluon N²MHV exact vs Berends–Giele', { theory: 'gluon', helicities: [-1, 1, -1, 1, 1, -1, 1, -1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact' }],
+  ['9-gluon N²MHV exact vs Berends–Giele, big rationals', { theory: 'gluon', helicities: [-1, 1, -1, 1, 1, -1, 1, -1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' } }],
   ['6 gravitons NMHV, float (double-double) vs KLT', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2], kinematics: { kind: 'random', seed: 1 } }],
   ['6 gravitons NMHV, exact vs KLT', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact' }],
+  ['6 gravitons NMHV, exact vs KLT, big rationals', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' } }],
   ['7 gravitons NMHV, float (double-double)', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2, 2], kinematics: { kind: 'random', seed: 1 }, target: 'none' }],
   ['7 gravitons MHV, float vs Hodges', { theory: 'graviton', helicities: [-2, 2, -2, 2, 2, 2, 2], kinematics: { kind: 'random', seed: 1 } }],
   ['8-gluon NMHV with the term tree', { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1, 1, 1], kinematics: { kind: 'random', seed: 1 }, tree: true }],
@@ -88,10 +121,11 @@ const ev: [string, EvaluateRequestInput][] = [
   ['12-gluon N²MHV float + falloff probe', { theory: 'gluon', helicities: [-1, 1, 1, -1, 1, 1, -1, 1, 1, -1, 1, 1], kinematics: { kind: 'random', seed: 1 }, probeFalloff: true }],
   ['7 gravitons NMHV float + falloff probe', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2, 2], kinematics: { kind: 'random', seed: 1 }, target: 'none', probeFalloff: true }],
 ]
-const evRows = ['| evaluate() request | ms (median of 3) | verdict |', '|---|---|---|']
+const evRows = ['| evaluate() request | ms (median of 3, after a warm-up call) | verdict |', '|---|---|---|']
 for (const [name, req] of ev) {
   const ms: number[] = []
   let verdict = ''
+  evaluate(req) // warm: JIT and the remembered point
   for (let r = 0; r < (quick ? 1 : 3); r++) {
     const out = evaluate(req)
     ms.push(out.ms)

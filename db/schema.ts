@@ -12,8 +12,6 @@ export const users = sqliteTable('users', {
   passwordHash: text('password_hash').notNull(),
   role: text('role', { enum: ['admin', 'member'] }).notNull().default('member'),
   disabled: integer('disabled', { mode: 'boolean' }).notNull().default(false),
-  // Bumped on password reset or disable: sessions carrying an older value stop working.
-  sessionVersion: integer('session_version').notNull().default(1),
   createdAt: createdAt(),
 })
 
@@ -178,3 +176,16 @@ export const apiTokens = sqliteTable('api_tokens', {
   lastUsedAt: integer('last_used_at', { mode: 'timestamp_ms' }),
   revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
 })
+
+// One row per signed-in browser. The sealed cookie carries a random id whose SHA-256 is stored here;
+// logout, a password reset and a disable set revoked_at, and the next request with that cookie fails.
+export const sessions = sqliteTable('sessions', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: text('token_hash').notNull().unique(),
+  userAgent: text('user_agent').notNull().default(''),
+  createdAt: createdAt(),
+  lastSeenAt: integer('last_seen_at', { mode: 'timestamp_ms' }).notNull().default(now),
+  expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+  revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
+}, t => [index('sessions_user').on(t.userId)])

@@ -20,7 +20,7 @@ export default defineNuxtModule({
       // again when a file the worker bundles changes. Workers started later load the new file.
       const outfile = join(nuxt.options.buildDir, 'workers/evaluate.mjs')
       nuxt.options.runtimeConfig.evaluationWorker = outfile
-      const sources = ['shared/physics/', 'shared/schemas/', 'server/workers/'].map(d => resolve(nuxt.options.rootDir, d))
+      const sources = ['shared/physics/', 'shared/schemas/', 'shared/editor/', 'server/workers/'].map(d => resolve(nuxt.options.rootDir, d))
       let pending: Promise<unknown> | null = null
       const rebuild = () => {
         pending ??= build(options(outfile))

@@ -8,6 +8,8 @@ ensureBuilt()
 
 const children = []
 const env = serverEnv({ POLEWRIGHT_SEED: '1', PORT: process.env.PORT || '3000', HOST: process.env.HOST || 'localhost' })
+// Mailed links come only from APP_URL (never from a request's Host); locally that is our own address.
+env.APP_URL ||= `http://${env.HOST}:${env.PORT}`
 if (!process.env.SMTP_URL && !process.env.SMTP_HOST) {
   // Development mail goes to the local catcher; the admin outbox page shows it.
   children.push(spawn(process.execPath, [join(root, 'scripts/mail-catcher.mjs')], { stdio: 'inherit', env }))

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { createHash, randomBytes } from 'node:crypto'
-import { and, eq, isNull } from 'drizzle-orm'
+import { and, eq, isNull, lt, or, sql } from 'drizzle-orm'
 
 export interface AuthUser {
   id: number
@@ -15,6 +15,8 @@ export interface AuthContext {
   /** Tokens may be read-only; sessions are always read-write. */
   scope: 'read' | 'read-write'
   tokenId?: number
+  /** The sessions row behind a cookie. */
+  sessionId?: number
 }
 
 /** Opaque secrets (tokens in links and API tokens) are stored as SHA-256 only. */
@@ -45,40 +47,70 @@ export async function currentAuth(event: H3Event): Promise<AuthContext | null> {
   }
   else {
     const raw = getCookie(event, sessionCookieName())
-    const sessionUser = await unsealedUser(event, raw)
-    if (sessionUser) {
-      const row = await db.select().from(tables.users).where(eq(tables.users.id, sessionUser.id)).get()
-      if (!row || row.disabled || row.sessionVersion !== sessionUser.sv) {
+    const sealed = await unsealedSession(event, raw)
+    if (sealed) {
+      const row = await sessionByHash().get({ hash: sealed.hash })
+      const now = Date.now()
+      if (!row || row.user.id !== sealed.userId || row.user.disabled || !sessionOpen(row.session, now)) {
         if (raw) unsealed.delete(raw)
         await clearUserSession(event)
       }
-      else result = { user: pick(row), via: 'session', scope: 'read-write' }
+      else {
+        if (now - row.session.lastSeenAt.getTime() > LAST_SEEN_STEP_MS) {
+          await db.update(tables.sessions).set({ lastSeenAt: new Date(now) }).where(eq(tables.sessions.id, row.session.id))
+        }
+        result = { user: pick(row.user), via: 'session', scope: 'read-write', sessionId: row.session.id }
+      }
     }
   }
   event.context.auth = result
   return result
 }
 
-// Unsealing the cookie costs more than the user lookup, so a sealed value seen recently is
-// remembered briefly. The user row is still read on every request, so a disable or a reset
-// (session version bump) takes effect at the next request as before.
-const unsealed = new Map<string, { id: number, sv: number, at: number }>()
+// Read on every request: the statement is built once (drizzle's query building cost about as
+// much as the lookup itself).
+let sessionStatement: ReturnType<typeof prepareSessionByHash> | undefined
+function prepareSessionByHash() {
+  return useDB().select({ session: tables.sessions, user: tables.users })
+    .from(tables.sessions)
+    .innerJoin(tables.users, eq(tables.users.id, tables.sessions.userId))
+    .where(eq(tables.sessions.tokenHash, sql.placeholder('hash')))
+    .prepare()
+}
+function sessionByHash() {
+  return (sessionStatement ??= prepareSessionByHash())
+}
+
+/** Absolute lifetime of a session (the cookie's maxAge is the same) and the idle time that ends it. */
+export const SESSION_MAX_AGE_MS = 14 * 24 * 3600 * 1000
+export const SESSION_IDLE_MS = 7 * 24 * 3600 * 1000
+// last_seen_at is written at most once a minute per session, so reads stay reads.
+const LAST_SEEN_STEP_MS = 60_000
+
+export function sessionOpen(row: typeof tables.sessions.$inferSelect, now = Date.now()) {
+  return !row.revokedAt && row.expiresAt.getTime() > now && now - row.lastSeenAt.getTime() < SESSION_IDLE_MS
+}
+
+// Unsealing the cookie (two PBKDF2 derivations) costs more than the lookup, so a sealed value seen
+// recently is remembered briefly. Only the unsealed content is cached, never whether the session is
+// still open: the session row is read on every request, so a revocation holds from the next request.
+const unsealed = new Map<string, { userId: number, hash: string, at: number }>()
 const UNSEALED_TTL_MS = 30_000
 
 function sessionCookieName(): string {
   return (useRuntimeConfig().session as { name?: string } | undefined)?.name || 'nuxt-session'
 }
 
-async function unsealedUser(event: H3Event, raw: string | undefined) {
-  const hit = raw ? unsealed.get(raw) : undefined
+async function unsealedSession(event: H3Event, raw: string | undefined) {
+  if (!raw) return null
+  const hit = unsealed.get(raw)
   if (hit && Date.now() - hit.at < UNSEALED_TTL_MS) return hit
   const session = await getUserSession(event)
-  if (!session.user) return null
-  const entry = { id: session.user.id, sv: session.user.sv, at: Date.now() }
-  if (raw) {
-    if (unsealed.size >= 10_000) unsealed.clear()
-    unsealed.set(raw, entry)
-  }
+  // Cookies sealed before sessions had rows carry no sid: they are simply not sessions any more.
+  if (!session.user || typeof session.user.sid !== 'string') return null
+  const entry = { userId: session.user.id, hash: hashSecret(session.user.sid), at: Date.now() }
+  if (unsealed.size >= 10_000) unsealed.clear()
+  unsealed.set(raw, entry)
   return entry
 }
 
@@ -96,11 +128,65 @@ export async function requireUser(event: H3Event): Promise<AuthUser> {
   return (await requireAuth(event)).user
 }
 
+/** Routes that manage credentials (tokens, sessions) answer only to a signed-in browser session. */
+export async function requireSession(event: H3Event, what: string): Promise<AuthContext> {
+  const auth = await requireAuth(event)
+  if (auth.via !== 'session') throw httpError(403, `authorization: API tokens cannot ${what}; sign in on the account page`)
+  return auth
+}
+
 /** Writes need a session or a read-write token. */
 export function requireWriteScope(auth: AuthContext) {
   if (auth.scope !== 'read-write') throw httpError(403, 'authorization: this token is read-only')
 }
 
+/** A new session row and a fresh sealed cookie; the caller's previous session (if any) ends. */
 export async function startSession(event: H3Event, user: typeof tables.users.$inferSelect) {
-  await replaceUserSession(event, { user: { id: user.id, role: user.role, sv: user.sessionVersion }, loggedInAt: Date.now() })
+  const previous = await unsealedSession(event, getCookie(event, sessionCookieName())).catch(() => null)
+  const db = useDB()
+  if (previous) await db.update(tables.sessions).set({ revokedAt: new Date() }).where(and(eq(tables.sessions.tokenHash, previous.hash), isNull(tables.sessions.revokedAt)))
+  const sid = newSecret()
+  const now = Date.now()
+  await db.insert(tables.sessions).values({
+    userId: user.id,
+    tokenHash: hashSecret(sid),
+    userAgent: (getRequestHeader(event, 'user-agent') ?? '').slice(0, 300),
+    createdAt: new Date(now),
+    lastSeenAt: new Date(now),
+    expiresAt: new Date(now + SESSION_MAX_AGE_MS),
+  })
+  await replaceUserSession(event, { user: { id: user.id, role: user.role, sid }, loggedInAt: now })
+}
+
+/** Logout: the cookie's session row is revoked (a copy of the cookie stops working too) and the cookie cleared. */
+export async function endSession(event: H3Event) {
+  const raw = getCookie(event, sessionCookieName())
+  const sealed = await unsealedSession(event, raw).catch(() => null)
+  if (sealed) await useDB().update(tables.sessions).set({ revokedAt: new Date() }).where(and(eq(tables.sessions.tokenHash, sealed.hash), isNull(tables.sessions.revokedAt)))
+  if (raw) unsealed.delete(raw)
+  await clearUserSession(event)
+}
+
+/**
+ * Ends every open session of a user and, with `tokens`, revokes their API tokens (password reset,
+ * disable). Runs inside the caller's transaction when one is given. Returns how many tokens ended.
+ */
+export async function revokeCredentials(userId: number, opts: { tokens: boolean }, tx: Pick<ReturnType<typeof useDB>, 'update'> = useDB()) {
+  const now = new Date()
+  await tx.update(tables.sessions).set({ revokedAt: now }).where(and(eq(tables.sessions.userId, userId), isNull(tables.sessions.revokedAt)))
+  if (!opts.tokens) return 0
+  const ended = await tx.update(tables.apiTokens).set({ revokedAt: now })
+    .where(and(eq(tables.apiTokens.userId, userId), isNull(tables.apiTokens.revokedAt)))
+    .returning({ id: tables.apiTokens.id })
+  return ended.length
+}
+
+/** Deletes session rows that can no longer be used (ended a week ago, expired, or idle too long). */
+export async function pruneSessions(now = Date.now()) {
+  const s = tables.sessions
+  await useDB().delete(s).where(or(
+    lt(s.revokedAt, new Date(now - 7 * 24 * 3600 * 1000)),
+    lt(s.expiresAt, new Date(now)),
+    lt(s.lastSeenAt, new Date(now - SESSION_IDLE_MS)),
+  ))
 }

@@ -6,6 +6,7 @@ import { checkShift, validateProcess, type TheoryName } from '../../shared/physi
 import { formatPath } from '../../shared/schemas/common'
 import type { EvaluateRequest, EvaluateResponse } from '../../shared/schemas/evaluate'
 import { ProcessSchema, type Process } from '../../shared/schemas/graph'
+import type { DrawingResult } from '../../shared/editor/drawing/evaluate'
 
 /**
  * The limits and the shift, checked on the request thread before anything is queued, so an
@@ -87,7 +88,7 @@ export const processField = (field: string) => (PROCESS_FIELDS.test(field) ? `gr
 
 type CheckRow = typeof tables.checks.$inferSelect
 
-export function checkSummary(req: EvaluateRequest, process: Process, result: EvaluateResponse) {
+export function checkSummary(req: EvaluateRequest, process: Process, result: EvaluateResponse & { drawing?: DrawingResult }) {
   const kin = req.kinematics
   return {
     theory: process.theory,
@@ -104,6 +105,8 @@ export function checkSummary(req: EvaluateRequest, process: Process, result: Eva
     falloff: result.falloff,
     warnings: result.warnings.length,
     engineMs: result.ms,
+    // A check of the drawing: how many drawn terms, whether they are the whole recursion, and why not.
+    ...(result.drawing ? { drawing: { terms: result.drawing.terms.length, complete: result.drawing.comparison.complete, message: result.drawing.message } } : {}),
   }
 }
 

@@ -1,5 +1,4 @@
 // Invitations by e-mail: a one-time link whose token is stored only as its SHA-256, valid 7 days.
-import type { H3Event } from 'h3'
 import { and, desc, eq, gt, isNull } from 'drizzle-orm'
 import type { InvitationRow, ProjectRole } from '../../shared/types/db'
 
@@ -34,7 +33,9 @@ export function invitationView(row: InvitationRow, invitedByName?: string | null
  * Stores a one-time invitation (token hashed) and e-mails its link. An earlier open invitation
  * of the same address to the same project is revoked, so only the newest link works.
  */
-export async function createInvitation(event: H3Event, access: ProjectAccess, email: string, role: ProjectRole) {
+export async function createInvitation(access: ProjectAccess, email: string, role: ProjectRole) {
+  const origin = requireAppUrl()
+  await consumeInvitation(access.project.id, access.user.id)
   const db = useDB()
   const token = newSecret()
   const row = await db.transaction(async (tx) => {
@@ -53,11 +54,13 @@ export async function createInvitation(event: H3Event, access: ProjectAccess, em
       expiresAt: new Date(Date.now() + WEEK),
     }).returning().get()
   })
-  const link = `${appUrl(event)}/invitations/${token}`
+  const link = `${origin}/invitations/${token}`
   const mailed = await sendMail(composeMail({
     to: email,
     replyTo: access.user.email,
-    subject: `${access.user.name} invites you to "${access.project.name}" on Polewright`,
+    // Subjects carry no user-written text (names, project titles): the mail must not become a
+    // way to send a stranger a headline of someone's choosing.
+    subject: 'An invitation to a project on Polewright',
     paragraphs: [
       `${access.user.name} (${access.user.email}) invites you to join the project "${access.project.name}" on Polewright as ${articled(role)}.`,
       roleMeaning(role),
@@ -71,12 +74,14 @@ export async function createInvitation(event: H3Event, access: ProjectAccess, em
 }
 
 /** Tells an existing user that an owner added them to a project. */
-export async function notifyMemberAdded(event: H3Event, access: ProjectAccess, user: { email: string, name: string }, role: ProjectRole) {
-  const link = `${appUrl(event)}/projects/${access.project.id}`
+export async function notifyMemberAdded(access: ProjectAccess, user: { email: string, name: string }, role: ProjectRole) {
+  const origin = appUrl()
+  if (!origin) return false
+  const link = `${origin}/projects/${access.project.id}`
   return sendMail(composeMail({
     to: user.email,
     replyTo: access.user.email,
-    subject: `You were added to "${access.project.name}" on Polewright`,
+    subject: 'You were added to a project on Polewright',
     paragraphs: [
       `Hello ${user.name},`,
       `${access.user.name} (${access.user.email}) added you to the project "${access.project.name}" as ${articled(role)}.`,
@@ -128,6 +133,11 @@ export async function acceptInvitation(token: string, user: AuthUser) {
   if (!found) throw fieldError(404, 'token', 'this invitation link is not valid (check that the whole link was copied)')
   const status = invitationStatus(found.invitation)
   if (status !== 'pending') throw invitationGoneError(status)
+  // The link was mailed to one address; only the account with that address may use it (a link
+  // forwarded or leaked does not let another account in).
+  if (user.email.toLowerCase() !== found.invitation.email.toLowerCase()) {
+    throw fieldError(403, 'token', `this invitation is for ${found.invitation.email}; sign in with that address (or ask the owner to add your account)`, { invitedEmail: found.invitation.email })
+  }
   const now = new Date()
   const result = await useDB().transaction(async (tx) => {
     const claimed = await tx.update(tables.invitations)

@@ -50,8 +50,59 @@ export async function sendMail(mail: Mail) {
   }
 }
 
-export function appUrl(event: H3Event): string {
-  return (process.env.APP_URL || getRequestURL(event).origin).replace(/\/+$/, '')
+/**
+ * The address e-mailed links point to: APP_URL, or in development (nuxt dev) the dev server's own
+ * listen address. Never a request header (a forged Host would put the victim's reset link on the
+ * attacker's host). Null in production without APP_URL: then no mail with a link is sent.
+ */
+export function appUrl(): string | null {
+  const configured = process.env.APP_URL?.trim()
+  if (configured) return configured.replace(/\/+$/, '')
+  if (import.meta.dev) {
+    const host = process.env.NUXT_HOST || process.env.HOST || 'localhost'
+    return `http://${host.includes(':') ? `[${host}]` : host}:${process.env.NUXT_PORT || process.env.PORT || 3000}`
+  }
+  return null
+}
+
+/** Checked once at start-up (server/plugins/app-url.ts): a message saying what is wrong, or null. */
+export function appUrlProblem(): string | null {
+  const configured = process.env.APP_URL?.trim()
+  if (!configured) {
+    return import.meta.dev
+      ? null
+      : 'APP_URL is not set, so no e-mail with a link is sent (password reset, invitations, member notices). '
+        + 'Set APP_URL to the public address of this server, e.g. APP_URL=https://polewright.example.org'
+  }
+  let url: URL
+  try {
+    url = new URL(configured)
+  }
+  catch {
+    return `APP_URL=${configured} is not an absolute address; use e.g. https://polewright.example.org`
+  }
+  if (url.protocol !== 'https:' && url.protocol !== 'http:') return `APP_URL=${configured} must start with https:// (or http:// for a local server)`
+  return null
+}
+
+/** The configured link base, or a 503 naming the setting (for actions whose whole point is the mail). */
+export function requireAppUrl(): string {
+  const url = appUrl()
+  if (!url) throw httpError(503, 'mail links are off on this server: APP_URL is not configured; ask the site administrator')
+  return url
+}
+
+/** Runs a task once the answer has been handed to the client (mail is sent after answering). */
+export function afterResponse(event: H3Event, task: () => Promise<unknown>) {
+  const res = event.node.res
+  let started = false
+  const run = () => {
+    if (started) return
+    started = true
+    task().catch(error => console.error('[after-response]', (error as Error).message))
+  }
+  res.once('finish', run)
+  res.once('close', run)
 }
 
 export function escapeHtml(s: string) {

@@ -3,9 +3,7 @@ import type { H3Event } from 'h3'
 import type { ApiTokenRow } from '../../shared/types/db'
 
 export async function requireSessionUser(event: H3Event) {
-  const auth = await requireAuth(event)
-  if (auth.via !== 'session') throw httpError(403, 'authorization: API tokens cannot list, create or revoke tokens; sign in on the account page')
-  return auth.user
+  return (await requireSession(event, 'list, create or revoke tokens')).user
 }
 
 export function tokenView(row: ApiTokenRow) {

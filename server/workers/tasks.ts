@@ -35,6 +35,9 @@ import {
   type ShiftRow,
   type ShiftsResponse,
 } from '../../shared/schemas/service'
+import { checkDrawing } from '../../shared/editor/drawing/evaluate'
+import type { Process as GraphProcess } from '../../shared/schemas/graph'
+import type { EditorEdge, EditorNode } from '../../shared/editor/types'
 
 export type Task =
   | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[] }
@@ -42,6 +45,8 @@ export type Task =
   | { kind: 'shifts'; req: unknown }
   | { kind: 'crossShift'; req: unknown }
   | { kind: 'catalogue' }
+  /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
+  | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
 
 export interface Failure {
   ok: false
@@ -87,6 +92,12 @@ function dispatch(task: Task): unknown {
       return crossShiftTask(task.req)
     case 'catalogue':
       return catalogue()
+    case 'checkDrawing': {
+      const t0 = performance.now()
+      const res = task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)
+      const out = checkDrawing(res, task.process, task.graph)
+      return { ...out, ms: round3(performance.now() - t0) }
+    }
   }
 }
 
@@ -233,6 +244,8 @@ function crossShiftTask(input: unknown): CrossShiftResponse {
   const r = crossShift(F, p, pt.kin as never, req.helicities, tolerance ?? undefined)
   const singular = r.rows.filter((row) => row.value === null).map((row) => `[${row.shift[0]}, ${row.shift[1]}⟩`)
   if (singular.length) warnings.push(`singular point for the shifts ${singular.join(', ')}: a pole or bracket vanishes at this point`)
+  if (r.test === 'factorisation')
+    warnings.push('every shift of a single scalar species has a boundary term, so consistency was decided by the residues of the sum of all cubic diagrams on every pole')
   return {
     theory: req.theory,
     ...(req.theory === 'spin' ? { spin: req.spin } : {}),
@@ -241,6 +254,8 @@ function crossShiftTask(input: unknown): CrossShiftResponse {
     rows: r.rows.map((row) => ({ shift: row.shift, valid: row.valid, value: row.value === null ? null : (F.toWire(row.value) as [number, number]) })),
     spread: r.spread,
     agree: r.agree,
+    test: r.test,
+    ...(r.poles ? { poles: r.poles } : {}),
     tolerance,
     kinematics: kinToWire(F, pt.kin as never),
     warnings,

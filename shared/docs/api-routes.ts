@@ -128,6 +128,9 @@ export const API_SECTIONS: ApiSection[] = [
             theory: 'gluon', helicities: MHV5, kinematics: { kind: 'rational', seed: 3 }, arithmetic: 'exact',
             target: { formula: '<1 2>^4/(<1 2><2 3><3 4><4 5><5 1>)' },
           }),
+          example(EvaluateRequestSchema, 'exact, with the big-rational reference instead of primes (same fractions, slower)', {
+            theory: 'gluon', helicities: [-1, 1, -1, 1, 1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' },
+          }),
           example(EvaluateRequestSchema, 'six gluons, NMHV, physical point, falloff probed', {
             theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], kinematics: { kind: 'physical', seed: 1, energy: 500 }, shift: [1, 2], target: 'berends-giele', probeFalloff: true,
           }),
@@ -169,14 +172,14 @@ export const API_SECTIONS: ApiSection[] = [
     intro: 'A check is a stored evaluation of a diagram\'s process with its provenance: request, result, verdict, engine version, arithmetic, seed, duration, who ran it and when, and the diagram version.',
     routes: [
       {
-        id: 'check-run', method: 'POST', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'editor', summary: 'Evaluates the diagram\'s process (theory, spin, helicities, colour order, shift) at the point given and stores the check.',
+        id: 'check-run', method: 'POST', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'editor', summary: 'Evaluates the diagram\'s process (theory, spin, helicities, colour order, shift) at the point given and stores the check. When the saved graph has drawn terms (vertices or Blocks), the check evaluates the drawing: each connected component is one term whose top-level Line must separate a channel of the shift, and the verdict is about the drawn sum against the target — an incomplete or wrong drawing never agrees.',
         schema: CheckRunSchema,
         query: [{ name: 'budgetMs', meaning: 'a smaller time budget for this request, in ms' }],
         examples: [
           example(CheckRunSchema, 'a seeded point', { kinematics: { kind: 'random', seed: 1 } }),
           example(CheckRunSchema, 'exact, with the falloff probed', { kinematics: { kind: 'rational', seed: 4 }, arithmetic: 'exact', probeFalloff: true }),
         ],
-        response: 'The check in full, as GET /api/checks/:id returns it.',
+        response: 'The check in full, as GET /api/checks/:id returns it. With drawn terms, `result.value`, `result.deviation` and `result.verdict` are the drawing\'s, and `result.drawing` is `{ sum, terms: [{ id, channel, internalHelicity, label, lineId, zStar, pole, value, problems }], comparison: { missing, duplicated, foreign, wrongHelicity, incomplete, invalid, messages, complete }, recursion: { value, deviation, verdict }, message }`: each comparison entry is `{ left, helicity, terms, message }` with the message in words ("channel {1,6} with internal helicity − is not drawn"); `recursion` is the process\'s full recursion under the same shift; `summary.drawing` is `{ terms, complete, message }`. Without drawn terms the result is the process\'s recursion, as before.',
         statuses: [[201, 'stored'], [400, 'the body fails the schema'], [422, 'the diagram has no process (`graph.process`), or the process or point is invalid'], [403, 'a viewer'], [404, 'no such diagram'], [503, 'over the time budget'], ...commonErrors],
       },
       { id: 'check-list', method: 'GET', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'viewer', summary: 'The diagram\'s checks, newest first.', query: [{ name: 'limit', meaning: 'at most this many (default 50, at most 200)' }], response: 'An array of `{ id, diagramVersion, kind, status, verdict, arithmetic, seed, engineVersion, durationMs, summary, createdBy, createdByName, createdAt }` — without the payloads.', statuses: [[200, 'the list'], [404, 'no such diagram'], ...commonErrors] },

@@ -6,6 +6,7 @@
 import type { Process } from '../schemas/graph'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
 import { handleIds, helicityText, sign } from './types'
+import { compileStructure, type DrawingStructure } from './drawing/structure'
 
 export interface Issue {
   level: 'error' | 'warning'
@@ -38,6 +39,8 @@ export interface Validation {
   /** Slots of every vertex and block, by node id. */
   slots: Record<string, SlotInfo[]>
   errorCount: number
+  /** The drawn terms: channel, top-level Line, sides and structure of each component (see drawing/structure.ts). */
+  drawing: DrawingStructure
 }
 
 /** |h| of the process's particles, or null when no process is set. */
@@ -70,13 +73,29 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const nodes = new Map(nodesIn.map(n => [n.id, n]))
   const issues: Record<string, Issue[]> = {}
   const edgeIssues: Record<string, Issue[]> = {}
-  const add = (id: string, level: Issue['level'], message: string) => { (issues[id] ??= []).push({ level, message }) }
-  const addEdge = (id: string, level: Issue['level'], message: string) => { (edgeIssues[id] ??= []).push({ level, message }) }
+  // Errors that keep a component from being read as a term (open slots, loops, missing legs, …);
+  // kind and helicity errors do not: the drawing compiler still names the channel they spoil.
+  const blocking = new Set<string>()
+  const add = (id: string, level: Issue['level'], message: string, blocks = true) => {
+    ;(issues[id] ??= []).push({ level, message })
+    if (level === 'error' && blocks) blocking.add(id)
+  }
+  const addEdge = (id: string, level: Issue['level'], message: string, blocks = true) => {
+    ;(edgeIssues[id] ??= []).push({ level, message })
+    if (level === 'error' && blocks) blocking.add(id)
+  }
+  /** Kind messages from the helicity sum, replaced by the structural ones where a term is read. */
+  const kindIssues = new Map<string, Issue>()
+  const addKind = (id: string, message: string) => {
+    add(id, 'error', message, false)
+    kindIssues.set(id, issues[id]!.at(-1)!)
+  }
   const s = particleSpin(process)
   const n = process?.helicities.length ?? 0
 
   // Edges at each (node, handle).
   const at = new Map<string, EditorEdge[]>()
+  const handlesOf = new Map<string, (string | null | undefined)[]>()
   const key = (id: string, h: string | null | undefined) => `${id}\u0000${h ?? ''}`
   for (const e of edges) {
     if (!nodes.has(e.source) || !nodes.has(e.target)) continue
@@ -85,6 +104,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       const list = at.get(key(id, h)) ?? []
       list.push(e)
       at.set(key(id, h), list)
+      ;(handlesOf.get(id) ?? handlesOf.set(id, []).get(id)!).push(h)
     }
     const a = nodes.get(e.source)!
     const b = nodes.get(e.target)!
@@ -93,8 +113,8 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     if (!isExternal(e, nodes) && d.helicity !== undefined) {
       if (d.targetHelicity !== undefined && d.targetHelicity !== -d.helicity) {
         const msg = `line ${d.line ?? ''} joins ${sign(d.helicity)} to ${sign(d.targetHelicity)}: an internal line joins opposite helicities`.replace('  ', ' ')
-        addEdge(e.id, 'error', msg)
-        add(e.target, 'error', msg)
+        addEdge(e.id, 'error', msg, false)
+        add(e.target, 'error', msg, false)
       }
       if (s !== null && Math.abs(d.helicity) !== s) addEdge(e.id, 'error', `helicity ${helicityText(d.helicity)} on a line of ${THEORY_WORDS[process!.theory]}, whose helicities are ${s === 0 ? '0' : `±${s}`}`)
     }
@@ -127,6 +147,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other })
     }
     slots[node.id] = info
+    // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
+    const own = new Set(handleIds(node))
+    for (const h of handlesOf.get(node.id) ?? []) if (!own.has(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
     const open = info.filter(x => x.edges.length === 0).length
     const crowded = info.filter(x => x.edges.length > 1)
     const total = info.length
@@ -137,19 +160,19 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       if (hs.every(h => h !== null)) {
         const hv = hs as number[]
         const sum = hv[0]! + hv[1]! + hv[2]!
-        const txt = `(${hv.map(sign).join(',')})`
+        const txt = () => `(${hv.map(sign).join(',')})`
         const allSame = hv.every(h => h > 0) || hv.every(h => h < 0)
-        if (s !== null && s > 0 && allSame) add(node.id, 'error', `helicities ${txt}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
-        else if (sum < 0 && node.type === 'square') add(node.id, 'error', `helicities ${txt} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
-        else if (sum > 0 && node.type === 'angle') add(node.id, 'error', `helicities ${txt} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
-        else if (sum === 0 && s !== 0 && s !== null) add(node.id, 'error', `helicities ${txt} sum to 0: only scalars have such a vertex`)
+        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt()}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
+        else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt()} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
+        else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt()} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
+        else if (sum === 0 && s !== 0 && s !== null) addKind(node.id, `helicities ${txt()} sum to 0: only scalars have such a vertex`)
       }
     }
     else if (node.type === 'block') {
       const want = (node.data as unknown as BlockData).helicities ?? []
       info.forEach((x, t) => {
         if (x.helicity !== null && want[t] !== undefined && x.helicity !== want[t])
-          add(node.id, 'error', `slot ${t + 1} expects ${helicityText(want[t]!)} but receives ${helicityText(x.helicity)}`)
+          add(node.id, 'error', `slot ${t + 1} expects ${helicityText(want[t]!)} but receives ${helicityText(x.helicity)}`, false)
       })
       if (want.length < 4) add(node.id, 'warning', `a block of ${want.length} legs: use a vertex for three-point amplitudes`)
       if (s !== null && s > 0 && want.length >= 4) {
@@ -164,7 +187,12 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const find = (x: string): string => {
     let r = x
     while (parent.get(r) !== r) r = parent.get(r)!
-    parent.set(x, r)
+    // Full path compression: unions without rank otherwise build chains (quadratic on big canvases).
+    for (let y = x; y !== r;) {
+      const up = parent.get(y)!
+      parent.set(y, r)
+      y = up
+    }
     return r
   }
   const validEdges = edges.filter(e => nodes.has(e.source) && nodes.has(e.target) && e.source !== e.target)
@@ -177,13 +205,19 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     groups.set(r, g)
   }
   const edgeCount = new Map<string, number>()
-  for (const e of validEdges) edgeCount.set(find(e.source), (edgeCount.get(find(e.source)) ?? 0) + 1)
+  // Internal lines per component, found in one pass (a filter per component was quadratic).
+  const linesByRoot = new Map<string, string[]>()
+  for (const e of validEdges) {
+    const r = find(e.source)
+    edgeCount.set(r, (edgeCount.get(r) ?? 0) + 1)
+    if (!isExternal(e, nodes)) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(e.id)
+  }
   const components: Component[] = []
   for (const [root, ids] of groups) {
     const legIds = ids.filter(id => nodes.get(id)!.type === 'leg')
     const inner = ids.filter(id => nodes.get(id)!.type !== 'leg')
     const labels = legIds.map(id => (nodes.get(id)!.data as unknown as LegData).label)
-    const lineIds = validEdges.filter(e => find(e.source) === root && !isExternal(e, nodes)).map(e => e.id)
+    const lineIds = linesByRoot.get(root) ?? []
     const isTree = (edgeCount.get(root) ?? 0) === ids.length - 1
     components.push({ id: inner[0] ?? ids[0]!, nodeIds: ids, legIds, labels, lineIds, isTree })
     if (!inner.length) continue
@@ -200,7 +234,25 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       if (missing.length) add(anchor, 'error', `momentum does not close: leg${missing.length > 1 ? 's' : ''} ${missing.join(', ')} of the process ${missing.length > 1 ? 'are' : 'is'} missing from this term`)
     }
   }
+  const drawing = compileStructure({ nodes: nodesIn, edges: validEdges, process, components, slots, errorIds: blocking })
+  for (const x of drawing.issues) {
+    if (x.on === 'edge') { (edgeIssues[x.id] ??= []).push({ level: x.level, message: x.message }); continue }
+    // The structural message says more than the helicity-sum one (which side of which line).
+    const k = kindIssues.get(x.id)
+    if (k) issues[x.id] = issues[x.id]!.filter(i => i !== k)
+    ;(issues[x.id] ??= []).push({ level: x.level, message: x.message })
+  }
+  const compById = new Map(components.map(c => [c.id, c]))
+  for (const t of drawing.terms) {
+    const comp = compById.get(t.id)
+    const msgs = new Set<string>()
+    for (const id of t.nodeIds) for (const i of issues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
+    for (const id of comp?.lineIds ?? []) for (const i of edgeIssues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
+    for (const m of t.problems) msgs.add(m)
+    t.problems = [...msgs]
+    t.valid = t.valid && t.plan !== null && msgs.size === 0
+  }
   let errorCount = 0
   for (const list of [...Object.values(issues), ...Object.values(edgeIssues)]) errorCount += list.filter(i => i.level === 'error').length
-  return { nodes: issues, edges: edgeIssues, components, slots, errorCount }
+  return { nodes: issues, edges: edgeIssues, components, slots, errorCount, drawing }
 }

@@ -1,7 +1,7 @@
 // BCFW on-shell recursion (Britto, Cachazo, Feng, Witten, PRL 94 (2005) 181602) with the signs and
 // orientation of CONVENTIONS.md "BCFW": the [i,j⟩ shift λ̃_i → λ̃_i + z λ̃_j, λ_j → λ_j − z λ_i;
 // term(L, h) = A_L(…, −P̂^h) A_R(…, P̂^−h) / P², with −P̂ carried by (λ_P, −λ̃_P).
-import { SingularError, type Field } from './field'
+import { SingularError, negligible, spinorSize, type Field } from './field'
 import { sandwichOf, type Bispinor, type Kin, type Spinor } from './spinors'
 import { defaultShift, isValidShift, vanishes, type Process } from './theories'
 import { threePoint, threePointSurvives, type VertexKind } from './three-point'
@@ -117,7 +117,8 @@ function computeChannels(n: number, i: number, j: number, colourOrdered: boolean
 }
 
 
-function sideSurvives(p: Process, h: number[], kind: VertexKind): boolean {
+/** Whether a side of a channel can be non-zero, from its helicities alone (three-point kinds structurally). */
+export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind): boolean {
   return h.length === 3 ? threePointSurvives(p, h, kind) : !vanishes(p, h)
 }
 
@@ -135,9 +136,23 @@ function poleName(legs: LegRef[] | undefined, L: readonly number[]): string {
   return `the pole s(${labelsOf(legs, L)})`
 }
 
-function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number], legs: LegRef[] | undefined, wantTerms: boolean, top = false): SumResult<T> {
-  const { F, p } = ctx
-  const n = h.length
+export interface ChannelKinematics<T> {
+  /** P² at z = 0. */
+  P2: T
+  /** z* = −P²/⟨i|P|j]. */
+  z: T
+  /** A_L's legs: its external legs (î shifted) in the channel's order, then −P̂ as (λ_P, −λ̃_P). */
+  kL: Kin<T>
+  /** A_R's legs: its external legs (ĵ shifted), then P̂ as (λ_P, λ̃_P). */
+  kR: Kin<T>
+}
+
+/**
+ * The kinematics of one channel of the [i,j⟩ shift (0-based positions in `k`), CONVENTIONS.md
+ * "BCFW": P, z*, the rank-one split of P̂ and the shifted spinors of both sides. Throws
+ * SingularError when P² or ⟨i|P|j] vanishes. Shared by the recursion and the drawing compiler.
+ */
+export function channelKinematics<T>(F: Field<T>, k: Kin<T>, shift: readonly [number, number], L: readonly number[], R: readonly number[], legs?: LegRef[]): ChannelKinematics<T> {
   const [i, j] = shift
   const lam = k.lambda
   const lamT = k.lambdaTilde
@@ -145,11 +160,59 @@ function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number]
   const ltj = lamT[j]!
   const ltI = lamT[i]!
   const lJ = lam[j]!
-  // z-independent parts of the shift: λ_i λ̃_jᵀ
-  const q00 = F.mul(li[0], ltj[0])
-  const q01 = F.mul(li[0], ltj[1])
-  const q10 = F.mul(li[1], ltj[0])
-  const q11 = F.mul(li[1], ltj[1])
+  const nL = L.length
+  const nR = R.length
+  // P = Σ_{k∈L} λ_k λ̃_kᵀ at z = 0
+  let P00 = F.zero, P01 = F.zero, P10 = F.zero, P11 = F.zero
+  for (let t = 0; t < nL; t++) {
+    const l = lam[L[t]!]!
+    const lt = lamT[L[t]!]!
+    P00 = F.add(P00, F.mul(l[0], lt[0]))
+    P01 = F.add(P01, F.mul(l[0], lt[1]))
+    P10 = F.add(P10, F.mul(l[1], lt[0]))
+    P11 = F.add(P11, F.mul(l[1], lt[1]))
+  }
+  const d0 = F.mul(P00, P11)
+  const d1 = F.mul(P01, P10)
+  const P2 = F.sub(d0, d1)
+  // in floats a pole below the tolerance of its terms is an exact zero lost to rounding
+  if (F.zeroTolerance !== undefined ? negligible(F, P2, F.abs(d0) + F.abs(d1)) : F.isZero(P2)) throw new SingularError(`${poleName(legs, L)} vanishes`)
+  const P: Bispinor<T> = [[P00, P01], [P10, P11]]
+  const ipj = sandwichOf(F, li, P, ltj)
+  if (F.zeroTolerance !== undefined ? negligible(F, ipj, spinorSize(F, li) * spinorSize(F, ltj) * (F.abs(P00) + F.abs(P01) + F.abs(P10) + F.abs(P11))) : F.isZero(ipj))
+    throw new SingularError(`⟨${i + 1}|P|${j + 1}] of the channel s(${labelsOf(legs, L)}) vanishes, so the shift has no pole there`)
+  const z = F.neg(F.div(P2, ipj))
+  // P̂ = P + z* λ_i λ̃_jᵀ
+  const Phat: Bispinor<T> = [
+    [F.add(P00, F.mul(z, F.mul(li[0], ltj[0]))), F.add(P01, F.mul(z, F.mul(li[0], ltj[1])))],
+    [F.add(P10, F.mul(z, F.mul(li[1], ltj[0]))), F.add(P11, F.mul(z, F.mul(li[1], ltj[1])))],
+  ]
+  const sp = splitRankOne(F, Phat)
+  const hatLtI: Spinor<T> = [F.add(ltI[0], F.mul(z, ltj[0])), F.add(ltI[1], F.mul(z, ltj[1]))]
+  const hatLJ: Spinor<T> = [F.sub(lJ[0], F.mul(z, li[0])), F.sub(lJ[1], F.mul(z, li[1]))]
+  const kL: Kin<T> = { lambda: new Array(nL + 1), lambdaTilde: new Array(nL + 1) }
+  for (let t = 0; t < nL; t++) {
+    const e = L[t]!
+    kL.lambda[t] = lam[e]!
+    kL.lambdaTilde[t] = e === i ? hatLtI : lamT[e]!
+  }
+  kL.lambda[nL] = sp.lambda
+  kL.lambdaTilde[nL] = [F.neg(sp.lambdaTilde[0]), F.neg(sp.lambdaTilde[1])]
+  const kR: Kin<T> = { lambda: new Array(nR + 1), lambdaTilde: new Array(nR + 1) }
+  for (let t = 0; t < nR; t++) {
+    const e = R[t]!
+    kR.lambda[t] = e === j ? hatLJ : lam[e]!
+    kR.lambdaTilde[t] = lamT[e]!
+  }
+  kR.lambda[nR] = sp.lambda
+  kR.lambdaTilde[nR] = sp.lambdaTilde
+  return { P2, z, kL, kR }
+}
+
+function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number], legs: LegRef[] | undefined, wantTerms: boolean, top = false): SumResult<T> {
+  const { F, p } = ctx
+  const n = h.length
+  const [i, j] = shift
   const hs = p.s === 0 ? ZERO_HEL : p.s === 1 ? GLUON_HEL : [p.s, -p.s]
   let value = F.zero
   const terms: Term<T>[] = []
@@ -171,45 +234,7 @@ function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number]
       else live1 = ok
     }
     if (!live0 && !live1) continue
-    // P = Σ_{k∈L} λ_k λ̃_kᵀ at z = 0
-    let P00 = F.zero, P01 = F.zero, P10 = F.zero, P11 = F.zero
-    for (let t = 0; t < nL; t++) {
-      const l = lam[L[t]!]!
-      const lt = lamT[L[t]!]!
-      P00 = F.add(P00, F.mul(l[0], lt[0]))
-      P01 = F.add(P01, F.mul(l[0], lt[1]))
-      P10 = F.add(P10, F.mul(l[1], lt[0]))
-      P11 = F.add(P11, F.mul(l[1], lt[1]))
-    }
-    const P2 = F.sub(F.mul(P00, P11), F.mul(P01, P10))
-    if (F.isZero(P2)) throw new SingularError(`${poleName(legs, L)} vanishes`)
-    const P: Bispinor<T> = [[P00, P01], [P10, P11]]
-    const ipj = sandwichOf(F, li, P, ltj)
-    if (F.isZero(ipj)) throw new SingularError(`⟨${i + 1}|P|${j + 1}] of the channel s(${labelsOf(legs, L)}) vanishes (the shift has no pole there)`)
-    const z = F.neg(F.div(P2, ipj))
-    const Phat: Bispinor<T> = [
-      [F.add(P00, F.mul(z, q00)), F.add(P01, F.mul(z, q01))],
-      [F.add(P10, F.mul(z, q10)), F.add(P11, F.mul(z, q11))],
-    ]
-    const sp = splitRankOne(F, Phat)
-    const hatLtI: Spinor<T> = [F.add(ltI[0], F.mul(z, ltj[0])), F.add(ltI[1], F.mul(z, ltj[1]))]
-    const hatLJ: Spinor<T> = [F.sub(lJ[0], F.mul(z, li[0])), F.sub(lJ[1], F.mul(z, li[1]))]
-    const kL: Kin<T> = { lambda: new Array(nL + 1), lambdaTilde: new Array(nL + 1) }
-    for (let t = 0; t < nL; t++) {
-      const e = L[t]!
-      kL.lambda[t] = lam[e]!
-      kL.lambdaTilde[t] = e === i ? hatLtI : lamT[e]!
-    }
-    kL.lambda[nL] = sp.lambda
-    kL.lambdaTilde[nL] = [F.neg(sp.lambdaTilde[0]), F.neg(sp.lambdaTilde[1])]
-    const kR: Kin<T> = { lambda: new Array(nR + 1), lambdaTilde: new Array(nR + 1) }
-    for (let t = 0; t < nR; t++) {
-      const e = R[t]!
-      kR.lambda[t] = e === j ? hatLJ : lam[e]!
-      kR.lambdaTilde[t] = lamT[e]!
-    }
-    kR.lambda[nR] = sp.lambda
-    kR.lambdaTilde[nR] = sp.lambdaTilde
+    const { P2, z, kL, kR } = channelKinematics(F, k, shift, L, R, legs)
     let line: string | undefined
     if (ctx.tree) line = `L${++ctx.lines}`
     const legsL = legs && line ? [...L.map((t) => legs[t]!), { line }] : undefined
@@ -427,6 +452,16 @@ export function bcfw<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], shift: 
   if (vanishes(p, h)) return { value: F.zero, terms: [] }
   const legs: LegRef[] = h.map((_, t) => ({ label: t + 1 }))
   return bcfwSum(ctx, k, h, shift, legs, true, true)
+}
+
+/**
+ * A sub-amplitude's value as the recursion computes one below the top (closed forms, the cheapest
+ * valid shift): what a Block stands for.
+ */
+export function subAmplitudeValue<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[]): T {
+  if (h.length === 3) throw new PhysicsError('helicities', 'a three-point amplitude is a vertex, not a block')
+  const ctx: Ctx<T> = { F, p, tree: false, closedForms: true, lines: 0, nodes: 0, maxNodes: DEFAULT_MAX_TREE_NODES }
+  return amplitudeValue(ctx, k, h)
 }
 
 /** The amplitude value only (default shift at the top), the fast path used by the other modules. */

@@ -118,4 +118,6 @@ export const ddField: Field<DD> = {
   abs: (a) => Math.hypot(a.rh + a.rl, a.ih + a.il),
   equals: (a, b) => a.rh === b.rh && a.rl === b.rl && a.ih === b.ih && a.il === b.il,
   toWire: (a) => [a.rh + a.rl, a.ih + a.il],
+  // ≈ 32 digits: the same headroom over rounding as doubles' 1e-10
+  zeroTolerance: 1e-22,
 }

@@ -2,13 +2,15 @@
 // (CONVENTIONS.md "Numerical advice"), so it is measured exactly at a seeded rational point of the
 // same process, with A(z) at the shifted (still on-shell, momentum-conserving) point computed by
 // BCFW under another shift that is valid there.
-import { Fraction, rationalField as Q, SingularError } from './field'
+import { Fraction, rationalField as Q, SingularError, type Field } from './field'
+import { byPrimes } from './modular'
 import type { Kin, Spinor } from './spinors'
 import { rationalPoint } from './kinematics'
 import { bcfw, cheapestShift } from './bcfw'
 import { classifyGluon, parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/parke-taylor'
 import { berendsGiele } from './targets/berends-giele'
-import { cubicScalarFeynman } from './targets/cubic-scalar'
+import { cubicScalarAllChannels, cubicScalarFeynman } from './targets/cubic-scalar'
+import { PhysicsError } from './errors'
 import { defaultShift, isValidShift, processOf, tableExponent, vanishes, type Process, type TheoryName } from './theories'
 
 /** The probe points z = 10^6, 10^7, 10^8 (exact, so size costs only digits): O(1/z) corrections stay far below 0.5. */
@@ -44,8 +46,12 @@ export function shiftedKin(k: Kin<Fraction>, i: number, j: number, z: Fraction):
   return { lambda: l, lambdaTilde: lt }
 }
 
-/** A valid shift other than [i,j⟩: the default rule's if it differs, else the first valid pair. */
-export function alternativeShift(p: Process, h: readonly number[], i: number, j: number): [number, number] {
+/**
+ * A valid shift other than [i,j⟩: the default rule's if it differs, else the first valid pair;
+ * null when the theory has none (a single scalar species), so A(z) never comes from a shift that
+ * misses a boundary term.
+ */
+export function validAlternativeShift(p: Process, h: readonly number[], i: number, j: number): [number, number] | null {
   const d = defaultShift(p, h)
   if (!(d[0] === i && d[1] === j) && isValidShift(p, h, d[0], d[1])) return d
   const n = h.length
@@ -53,24 +59,43 @@ export function alternativeShift(p: Process, h: readonly number[], i: number, j:
     if (a === b || (a === i && b === j)) continue
     if (isValidShift(p, h, a, b)) return [a, b]
   }
-  return d
+  return null
+}
+
+/** validAlternativeShift, or the default shift where no valid one exists (for the editor's own probe). */
+export function alternativeShift(p: Process, h: readonly number[], i: number, j: number): [number, number] {
+  return validAlternativeShift(p, h, i, j) ?? defaultShift(p, h)
 }
 
 /**
  * A(z) at the shifted point (CONVENTIONS.md allows any exact method there): for gluons
  * Parke–Taylor, BCFW under another valid shift or Berends–Giele, whichever is cheapest; the
- * planar diagram sum for the cubic scalar; else BCFW under another valid shift.
+ * planar diagram sum for the cubic scalar, the sum of all cubic diagrams for a single scalar
+ * species; else BCFW under another valid shift.
  */
-function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, number]): Fraction {
+function amplitudeIn<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], alt: [number, number] | null): T {
   if (p.theory === 'gluon') {
     const c = classifyGluon(h)
-    if (c.kind === 'mhv') return parkeTaylorMhv(Q, k, c.i, c.j)
-    if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(Q, k, c.i, c.j)
+    if (c.kind === 'mhv') return parkeTaylorMhv(F, k, c.i, c.j)
+    if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(F, k, c.i, c.j)
     // BCFW while its closed-form count is small (measured faster up to ~300), else Berends–Giele
-    return cheapestShift(h).cost <= 300 ? bcfw(Q, p, k, h, alt).value : berendsGiele(Q, k, h)
+    return cheapestShift(h).cost <= 300 && alt ? bcfw(F, p, k, h, alt).value : berendsGiele(F, k, h)
   }
-  if (p.theory === 'scalar-cubic') return cubicScalarFeynman(Q, k)
-  return bcfw(Q, p, k, h, alt).value
+  if (p.theory === 'scalar-cubic') return cubicScalarFeynman(F, k)
+  if (p.s === 0) return cubicScalarAllChannels(F, k)
+  if (!alt) throw new PhysicsError('shift', 'no valid shift is known for this process, so the falloff cannot be measured')
+  return bcfw(F, p, k, h, alt).value
+}
+
+/**
+ * The same, exactly: modulo primes with rational reconstruction (modular.ts) unless the closed
+ * form is cheaper in rationals; big rationals when the primes meet an exact zero (a retry follows).
+ */
+function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, number] | null): Fraction {
+  const c = p.theory === 'gluon' ? classifyGluon(h).kind : null
+  if (c === 'mhv' || c === 'anti-mhv') return amplitudeIn(Q, p, k, h, alt)
+  const r = byPrimes(k, (F, km) => ({ shape: '', values: [amplitudeIn(F, p, km, h, alt)], info: null }), { key: `falloff:${p.theory}:${p.s}:${h.join(',')}:${alt?.join(',') ?? '-'}` })
+  return r ? r.values[0]! : amplitudeIn(Q, p, k, h, alt)
 }
 
 /** Least-squares slope of y against x (ln|A| against ln z), and the spread of the two-point slopes. */
@@ -100,7 +125,7 @@ export function probeFalloff(p: Process, h: number[], i: number, j: number, seed
     const e = tableExponent(p, h, i, j) ?? -2
     return { exponent: e, valid: e < 0, spread: 0, slope: e, measured: false }
   }
-  const alt = alternativeShift(p, h, i, j)
+  const alt = validAlternativeShift(p, h, i, j)
   for (let attempt = 0; attempt < 20; attempt++) {
     // small numbers keep the exact probe fast; a rare spurious zero only costs a retry
     const k = rationalPoint(n, `${String(seed)}:${p.theory}:${p.s}:${n}:${attempt}`, { numerator: 9, denominator: 4 })

@@ -50,6 +50,29 @@ export interface Field<T> {
   abs(a: T): number
   equals(a: T, b: T): boolean
   toWire(a: T): WireNumber
+  /**
+   * Float fields: a quantity the evaluation divides by counts as zero when |x| is below this
+   * fraction of the size of the terms it was formed from (a rounding-level remainder of an exact
+   * zero, e.g. two BCFW poles that coincide at a point of small integers). Exact fields: absent.
+   */
+  readonly zeroTolerance?: number
+}
+
+/** Doubles: 1e-10 of the scale (about 10^6 roundings of headroom). */
+export const DOUBLE_ZERO_TOLERANCE = 1e-10
+
+/**
+ * Whether x, formed from terms of size `scale`, is zero for the purpose of dividing by it:
+ * exactly zero in exact arithmetic, below `F.zeroTolerance · scale` in a float field.
+ */
+export function negligible<T>(F: Field<T>, x: T, scale: number): boolean {
+  if (F.isZero(x)) return true
+  return F.zeroTolerance !== undefined && F.abs(x) <= F.zeroTolerance * scale
+}
+
+/** |a| + |b| of a spinor (the scale of a bracket is the product of two of these). */
+export function spinorSize<T>(F: Field<T>, a: readonly [T, T]): number {
+  return F.abs(a[0]) + F.abs(a[1])
 }
 
 // complex.js parses its arguments on every operation and in its constructor; the engine's hot
@@ -99,6 +122,7 @@ export const complexField: Field<Complex> = {
   abs: (a) => Math.sqrt(a.re * a.re + a.im * a.im),
   equals: (a, b) => a.re === b.re && a.im === b.im,
   toWire: (a) => [a.re, a.im],
+  zeroTolerance: DOUBLE_ZERO_TOLERANCE,
 }
 
 const F0 = new Fraction(0)

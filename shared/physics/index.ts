@@ -12,6 +12,7 @@ import {
   pointFromSpinors,
   randomPoint,
   rationalPoint,
+  conditionRatio,
   toDoubleDouble,
   toFloatKin,
   type BuiltPoint,
@@ -19,10 +20,11 @@ import {
 import { checkShift, defaultShift, isValidShift, validateProcess, vanishes, type Process } from './theories'
 import { bcfw, type SubAmplitude, type Term, type Vertex } from './bcfw'
 import { probeFalloff, type FalloffResult } from './falloff'
-import { decideVerdict, deviationOf } from './verdict'
+import { decideVerdict, deviationOf, floatTolerance, lostPrecision } from './verdict'
 import { applicableTargets, autoTarget, evaluateTarget, type TargetName } from './targets/index'
 import { ddField } from './double-double'
 import { compileFormula, type CompiledFormula } from './formula'
+import { byPrimes } from './modular'
 import {
   EvaluateRequestSchema,
   type EvaluateRequestInput,
@@ -85,6 +87,14 @@ export function buildPoint(kin: Kinematics, n: number, arithmetic: 'float' | 'ex
 
 /** The physical channels of the theory (0-based sets; one of each complementary pair). */
 function poleSets(p: Process, n: number): number[][] {
+  const key = `${p.colourOrdered ? 'c' : 'a'}${n}`
+  let out = poleSetCache.get(key)
+  if (!out) poleSetCache.set(key, (out = computePoleSets(p, n)))
+  return out
+}
+const poleSetCache = new Map<string, number[][]>()
+
+function computePoleSets(p: Process, n: number): number[][] {
   const out: number[][] = []
   if (p.colourOrdered) {
     for (let m = 2; 2 * m <= n; m++) for (let a = 0; a < (2 * m === n ? n / 2 : n); a++) out.push(Array.from({ length: m }, (_, t) => (a + t) % n))
@@ -97,7 +107,16 @@ function poleSets(p: Process, n: number): number[][] {
   return out
 }
 
-/** A vanishing physical pole of the point, named, or null. */
+/** Unit roundoff of doubles and of double-double. */
+const UNIT = { double: 2 ** -53, 'double-double': 2 ** -104 } as const
+/**
+ * Gluons run in doubles unless the point is poorly conditioned: min |s_S| / max |s_ij| below this,
+ * or terms cancelling by more than 1/this. Measured: 5 gluons with one leg at 1e-9 of √s lost 4e-8
+ * in doubles (condition 1e-9), while generic points (condition ≥ 1e-3) stay near 1e-14.
+ */
+export const POOR_CONDITION = 1e-5
+
+/** A vanishing physical pole of the point, as a sentence, or null. */
 function vanishingPole<T>(F: Field<T>, p: Process, k: Kin<T>): string | null {
   const n = k.lambda.length
   const sets = poleSets(p, n)
@@ -106,7 +125,7 @@ function vanishingPole<T>(F: Field<T>, p: Process, k: Kin<T>): string | null {
   for (let t = 0; t < sets.length; t++) {
     const v = vals[t]!
     const zero = F.kind === 'exact' ? F.isZero(v) : F.abs(v) <= FLOAT_POLE_THRESHOLD * scale
-    if (zero) return `the pole s(${sets[t]!.map((x) => x + 1).join(',')})`
+    if (zero) return `the pole s(${sets[t]!.map((x) => x + 1).join(',')}) vanishes`
   }
   return null
 }
@@ -126,6 +145,13 @@ function termToWire<T>(F: Field<T>, t: Term<T>): WireTerm {
 function nodeToWire<T>(F: Field<T>, x: SubAmplitude<T> | Vertex<T>): WireSubAmplitude | WireVertex {
   if ('kind' in x) return { kind: x.kind, legs: x.legs, helicities: x.helicities, value: F.toWire(x.value) }
   return { value: F.toWire(x.value), shift: x.shift, legs: x.legs, helicities: x.helicities, terms: x.terms.map((t) => termToWire(F, t)) }
+}
+
+interface Computed<T> {
+  value: T | null
+  terms: Term<T>[]
+  targetValue: T | null
+  singular: string | null
 }
 
 type ResolvedTarget = { kind: 'none' } | { kind: 'named'; name: TargetName } | { kind: 'formula'; formula: CompiledFormula }
@@ -155,17 +181,64 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   const target = resolveTarget(req.target, theory, helicities, req.spin)
   const point = buildPoint(req.kinematics, n, arithmetic)
   warnings.push(...point.warnings)
-  const body =
-    point.F.kind === 'exact'
-      ? run(point.F as Field<Fraction>, point.kin as Kin<Fraction>)
-      : p.theory === 'gluon'
-        ? run(point.F as Field<Complex>, point.kin as Kin<Complex>) // doubles measured ≤ 1e-11 off
-        : run(ddField, toDoubleDouble(point.kin as Kin<Complex>)) // see toDoubleDouble
+  const modular = arithmetic === 'exact' && !req.tree && (req.exact?.backend ?? 'modular') === 'modular'
+  let body: Omit<EvaluateResponse, 'ms'>
+  if (point.F.kind === 'exact') body = run(rationalField, point.kin as Kin<Fraction>, 'exact', null, modular ? computeByPrimes(point.kin as Kin<Fraction>) : null)
+  else {
+    const kd = point.kin as Kin<Complex>
+    const condition = conditionRatio(complexField, kd)
+    if (p.theory !== 'gluon') body = run(ddField, toDoubleDouble(kd), 'double-double', condition) // see toDoubleDouble
+    else if (condition < POOR_CONDITION) {
+      body = run(ddField, toDoubleDouble(kd), 'double-double', condition)
+      body.warnings.push(`the point is poorly conditioned (min |s| / max |s_ij| = ${condition.toExponential(1)}), so the recursion ran in double-double`)
+    } else {
+      const before = warnings.length
+      body = run(complexField, kd, 'double', condition) // doubles measured ≤ 1e-11 off at generic points
+      const c = body.precision?.cancellation ?? 1
+      if (c > 1 / POOR_CONDITION) {
+        warnings.length = before
+        body = run(ddField, toDoubleDouble(kd), 'double-double', condition)
+        body.warnings.push(`the terms cancel to ${(1 / c).toExponential(1)} of their largest, so the recursion ran in double-double`)
+      }
+    }
+  }
   return { ...body, ms: Math.round((performance.now() - t0) * 1000) / 1000 }
 
-  function run<T>(F: Field<T>, k: Kin<T>): Omit<EvaluateResponse, 'ms'> {
+  /**
+   * The exact value, target and terms modulo primes (modular.ts), or null when the first primes
+   * all meet a zero (then the rational computation gives the singular point and its message).
+   */
+  function computeByPrimes(k: Kin<Fraction>): Computed<Fraction> | null {
+    const vanishing = vanishes(p, helicities)
+    const key = `${theory}:${req.spin ?? ''}:${helicities.join(',')}:${shift.join(',')}:${target.kind === 'named' ? target.name : target.kind}:${req.kinematics.kind}`
+    const r = byPrimes(
+      k,
+      (Fp, km) => {
+        if (!vanishing && vanishingPole(Fp, p, km)) throw new SingularError('a pole vanishes')
+        const b = bcfw(Fp, p, km, helicities, shift)
+        const tv = target.kind === 'none' ? null : target.kind === 'named' ? evaluateTarget(target.name, Fp, km, helicities) : target.formula.evaluate(Fp, km)
+        const values = tv === null ? [b.value] : [b.value, tv]
+        let shape = ''
+        for (const t of b.terms) {
+          values.push(t.z, t.pole, t.value)
+          shape += `${t.left.join('.')}:${t.helicity};`
+        }
+        return { shape, values, info: b.terms }
+      },
+      { key },
+    )
+    if (!r) return null
+    const off = target.kind === 'none' ? 1 : 2
+    return {
+      value: r.values[0]!,
+      targetValue: target.kind === 'none' ? null : r.values[1]!,
+      terms: r.info.map((t, s) => ({ left: t.left, helicity: t.helicity, z: r.values[off + 3 * s]!, pole: r.values[off + 3 * s + 1]!, value: r.values[off + 3 * s + 2]!, children: null })),
+      singular: null,
+    }
+  }
+
+  function compute<T>(F: Field<T>, k: Kin<T>): Computed<T> {
     const [i, j] = shift
-    const validByTable = isValidShift(p, helicities, i, j)
     const vanishing = vanishes(p, helicities)
     let singular: string | null = vanishing ? null : vanishingPole(F, p, k)
     let value: T | null = null
@@ -178,7 +251,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       } catch (e) {
         if (!(e instanceof SingularError)) throw e
         // Not a physical pole (checked above): a zero met by this shift's terms.
-        singular = `${e.what.replace(/ vanishes$/, '')} vanishes under the shift [${i + 1}, ${j + 1}⟩ (another valid shift may avoid it)`
+        singular = `under the shift [${i + 1}, ${j + 1}⟩ ${e.what} (another valid shift may avoid it)`
       }
     }
     let targetValue: T | null = null
@@ -187,9 +260,19 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
         targetValue = target.kind === 'named' ? evaluateTarget(target.name, F, k, helicities) : target.formula.evaluate(F, k)
       } catch (e) {
         if (!(e instanceof SingularError)) throw e
-        singular = `${e.what} (in the target ${target.kind === 'named' ? target.name : 'formula'})`
+        singular = target.kind === 'named' ? `${e.what} in the target ${target.name}` : e.what.replace(/^the formula/, 'the target formula')
       }
     }
+    return { value, terms, targetValue, singular }
+  }
+
+  function run<T>(F: Field<T>, k: Kin<T>, arith: 'double' | 'double-double' | 'exact', condition: number | null, computed: Computed<T> | null = null): Omit<EvaluateResponse, 'ms'> {
+    const [i, j] = shift
+    const validByTable = isValidShift(p, helicities, i, j)
+    const vanishing = vanishes(p, helicities)
+    const c = computed ?? compute(F, k)
+    const terms = c.terms
+    let { value, targetValue, singular } = c
     let falloff: FalloffResult | null = null
     if (req.probeFalloff) {
       try {
@@ -202,15 +285,23 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
     if (!singular && F.kind === 'float') {
       // A double that overflowed (or became NaN) cannot go on the wire as a number.
       const bad = (x: T | null) => x !== null && !Number.isFinite(F.abs(x))
-      if (bad(value) || bad(targetValue)) singular = `a non-finite intermediate (the point's scale overflows double precision; rescale the momenta)`
+      if (bad(value) || bad(targetValue)) singular = `an intermediate is not finite (the point's scale overflows double precision; rescale the momenta)`
     }
     if (singular) {
-      warnings.push(`singular point: ${/vanishes|non-finite/.test(singular) ? singular : `${singular} vanishes`}`)
+      warnings.push(`singular point: ${singular}`)
       value = null
       if (targetValue !== null && F.kind === 'float' && !Number.isFinite(F.abs(targetValue))) targetValue = null
     }
     const deviation = value !== null && targetValue !== null ? deviationOf(F, value, targetValue, terms.map((t) => t.value)) : null
-    const verdict = decideVerdict({
+    let cancellation: number | null = null
+    let estimated: number | null = null
+    if (F.kind === 'float' && value !== null && arith !== 'exact') {
+      const largest = Math.max(0, ...terms.map((t) => F.abs(t.value)))
+      const size = F.abs(value)
+      cancellation = largest === 0 ? 1 : size === 0 ? Infinity : Math.max(1, largest / size)
+      estimated = UNIT[arith] * Math.max(1 / Math.max(condition ?? 1, Number.MIN_VALUE), cancellation)
+    }
+    let verdict = decideVerdict({
       singular: !!singular,
       targetNone: target.kind === 'none',
       shiftValidByTable: validByTable,
@@ -221,6 +312,10 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       deviation: deviation ?? Infinity,
       exactEqual: value !== null && targetValue !== null && F.equals(value, targetValue),
     })
+    if (lostPrecision(verdict, n, deviation, estimated)) {
+      verdict = 'not evaluated'
+      warnings.push(`precision loss: the recursion reached about ${estimated!.toExponential(1)} relative precision at this point, above the tolerance ${floatTolerance(n).toExponential(1)}, so the deviation ${deviation!.toExponential(1)} decides nothing`)
+    }
     if (!validByTable && !vanishing) warnings.push(`shift: [${i + 1}, ${j + 1}⟩ is not a valid shift for these helicities (CONVENTIONS.md table); a boundary term is expected`)
     return {
       n,
@@ -244,6 +339,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       warnings,
       kinematics: kinToWire(F, k),
       engine: { version: ENGINE_VERSION },
+      precision: { arithmetic: arith, condition: condition ?? conditionRatio(F, k), cancellation, estimated },
     }
   }
 }
@@ -260,4 +356,4 @@ export { probeFalloff, falloffTable, fit as fitSlope } from './falloff'
 export type { FalloffRow, FalloffResult } from './falloff'
 export { crossShift } from './cross-shift'
 export type { CrossShiftResult, CrossShiftRow } from './cross-shift'
-export { floatTolerance, deviationOf, decideVerdict } from './verdict'
+export { floatTolerance, deviationOf, decideVerdict, lostPrecision } from './verdict'

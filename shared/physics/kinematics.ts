@@ -27,7 +27,10 @@ export function spinorsOfMomentum(p: Momentum): { lambda: Spinor<Complex>; lambd
     const s = spinorsOfMomentum([-p0, -p1, -p2, -p3])
     return { lambda: s.lambda, lambdaTilde: [s.lambdaTilde[0].neg(), s.lambdaTilde[1].neg()] }
   }
-  const pp = p0 + p3
+  // p0 + p3 cancels for momenta near −z: there p+ = p⊥² / p− (p+ p− = p⊥² on shell), which keeps
+  // every digit, so λ λ̃ᵀ reproduces p to rounding.
+  const pt = Math.hypot(p1, p2)
+  const pp = p3 >= 0 ? p0 + p3 : pt * (pt / (p0 - p3)) // (no overflow at large scales)
   if (pp >= 1e-10 * p0) {
     const r = Math.sqrt(pp)
     return { lambda: [C(r), C(p1 / r, p2 / r)], lambdaTilde: [C(r), C(p1 / r, -p2 / r)] }
@@ -113,6 +116,10 @@ function drawUntilConditioned<T>(F: Field<T>, n: number, draw: () => Kin<T>, see
 
 /** A seeded complex point: λ for every leg and λ̃ for n−2 legs drawn, the last two λ̃ solved. */
 export function randomPoint(n: number, seed: number | string): Kin<Complex> {
+  return remembered(`random:${n}:${String(seed)}`, () => drawRandomPoint(n, seed))
+}
+
+function drawRandomPoint(n: number, seed: number | string): Kin<Complex> {
   const rng = rngOf(seed)
   const u = () => C(2 * rng() - 1, 2 * rng() - 1)
   const draw = (): Kin<Complex> => ({
@@ -129,6 +136,27 @@ export function randomPoint(n: number, seed: number | string): Kin<Complex> {
  * `range` gives smaller numbers (faster exact arithmetic) where a retry is cheap.
  */
 export function rationalPoint(n: number, seed: number | string, range: { numerator: number; denominator: number } = { numerator: 20, denominator: 6 }): Kin<Fraction> {
+  return remembered(`rational:${n}:${range.numerator}:${range.denominator}:${String(seed)}`, () => drawRationalPoint(n, seed, range))
+}
+
+// Seeded points are deterministic and cost more than a small evaluation (conditioning checks
+// every channel; exactly, for rational points), so the last few hundred are remembered. Callers
+// copy before changing a point (solveLastTwo, the shifts), and numbers are immutable.
+const points = new Map<string, Kin<unknown>>()
+function remembered<T>(key: string, draw: () => Kin<T>): Kin<T> {
+  let k = points.get(key) as Kin<T> | undefined
+  if (k) {
+    points.delete(key)
+    points.set(key, k)
+    return k
+  }
+  k = draw()
+  if (points.size >= 256) points.delete(points.keys().next().value!)
+  points.set(key, k)
+  return k
+}
+
+function drawRationalPoint(n: number, seed: number | string, range: { numerator: number; denominator: number }): Kin<Fraction> {
   const rng = rngOf(`rational:${String(seed)}`)
   const { numerator: pm, denominator: qm } = range
   const r = () => new Fraction(Math.floor(rng() * (2 * pm + 1)) - pm, 1 + Math.floor(rng() * qm))
@@ -179,6 +207,10 @@ export function physicalMomenta(n: number, seed: number | string, energy = 1, at
 /** A seeded physical point (RAMBO), redrawn until well-conditioned. */
 export function physicalPoint(n: number, seed: number | string, energy = 1): Kin<Complex> {
   if (!(energy > 0)) throw new PhysicsError('kinematics.energy', `the energy must be positive, got ${energy}`)
+  return remembered(`physical:${n}:${energy}:${String(seed)}`, () => drawPhysicalPoint(n, seed, energy))
+}
+
+function drawPhysicalPoint(n: number, seed: number | string, energy: number): Kin<Complex> {
   for (let attempt = 0; attempt < 10000; attempt++) {
     const k = solveLastTwo(complexField, kinOfMomenta(physicalMomenta(n, seed, energy, attempt)))
     if (conditionRatio(complexField, k) >= CONDITION_THRESHOLD) return k

@@ -96,6 +96,8 @@ function adjacent(n: number, i: number, j: number): boolean {
 /** Validity of the [i,j⟩ shift (0-based) from the table in CONVENTIONS.md. */
 export function isValidShift(p: Process, helicities: readonly number[], i: number, j: number): boolean {
   if (p.theory === 'scalar-cubic') return !adjacent(helicities.length, i, j)
+  // one scalar species, every channel: some diagram never sees the shift, A(z) → constant
+  if (p.s === 0) return false
   return !(helicities[i]! > 0 && helicities[j]! < 0)
 }
 
@@ -109,6 +111,7 @@ export function tableExponent(p: Process, helicities: readonly number[], i: numb
   if (p.theory === 'scalar-cubic') return adjacent(n, i, j) ? 0 : -2
   if (p.theory === 'gluon') return adjacent(n, i, j) ? (bad ? 3 : -1) : bad ? 2 : -2
   if (p.s === 2) return bad ? 6 : -2
+  if (p.s === 0) return 0
   return null
 }
 

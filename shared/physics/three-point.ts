@@ -2,9 +2,9 @@
 //   angle  (h1+h2+h3 < 0): ⟨12⟩^(h3−h1−h2) ⟨23⟩^(h1−h2−h3) ⟨31⟩^(h2−h3−h1)
 //   square (h1+h2+h3 > 0): σ [12]^(h1+h2−h3) [23]^(h2+h3−h1) [31]^(h3+h1−h2)
 // σ = −1 for gluons, (−1)^s for spin s (gravitons: σ² = +1), the cubic scalar A3 = 1.
-import { SingularError, type Field } from './field'
+import { SingularError, negligible, spinorSize, type Field } from './field'
 import { PhysicsError } from './errors'
-import { angleOf, squareOf, type Kin } from './spinors'
+import { angleOf, squareOf, type Kin, type Spinor } from './spinors'
 import type { Process } from './theories'
 
 export type VertexKind = 'angle' | 'square'
@@ -19,9 +19,13 @@ function exponent(x: number): number {
   return x
 }
 
-/** b^e for a bracket b; a vanishing bracket in a denominator is a singular point, named. */
-function powBracket<T>(F: Field<T>, b: T, e: number, name: string): T {
-  if (e < 0 && F.isZero(b)) throw new SingularError(`the bracket ${name} of a three-point block vanishes`)
+/**
+ * The bracket of spinors x, y to the power e; a bracket in a denominator that vanishes (in floats:
+ * below the field's tolerance of |x||y|) is a singular point, named.
+ */
+function powBracket<T>(F: Field<T>, x: Spinor<T>, y: Spinor<T>, e: number, kind: 'angle' | 'square', name: string): T {
+  const b = kind === 'angle' ? angleOf(F, x, y) : squareOf(F, x, y)
+  if (e < 0 && (F.zeroTolerance === undefined ? F.isZero(b) : negligible(F, b, spinorSize(F, x) * spinorSize(F, y)))) throw new SingularError(`the bracket ${name} of a three-point block vanishes`)
   return F.pow(b, exponent(e))
 }
 
@@ -36,14 +40,14 @@ export function threePointFormula<T>(F: Field<T>, k: Kin<T>, h: readonly number[
   if (kind === 'angle') {
     const L = k.lambda
     v = F.mul(
-      F.mul(powBracket(F, angleOf(F, L[a]!, L[b]!), h3 - h1 - h2, '⟨12⟩'), powBracket(F, angleOf(F, L[b]!, L[c]!), h1 - h2 - h3, '⟨23⟩')),
-      powBracket(F, angleOf(F, L[c]!, L[a]!), h2 - h3 - h1, '⟨31⟩'),
+      F.mul(powBracket(F, L[a]!, L[b]!, h3 - h1 - h2, kind, '⟨12⟩'), powBracket(F, L[b]!, L[c]!, h1 - h2 - h3, kind, '⟨23⟩')),
+      powBracket(F, L[c]!, L[a]!, h2 - h3 - h1, kind, '⟨31⟩'),
     )
   } else {
     const L = k.lambdaTilde
     v = F.mul(
-      F.mul(powBracket(F, squareOf(F, L[a]!, L[b]!), h1 + h2 - h3, '[12]'), powBracket(F, squareOf(F, L[b]!, L[c]!), h2 + h3 - h1, '[23]')),
-      powBracket(F, squareOf(F, L[c]!, L[a]!), h3 + h1 - h2, '[31]'),
+      F.mul(powBracket(F, L[a]!, L[b]!, h1 + h2 - h3, kind, '[12]'), powBracket(F, L[b]!, L[c]!, h2 + h3 - h1, kind, '[23]')),
+      powBracket(F, L[c]!, L[a]!, h3 + h1 - h2, kind, '[31]'),
     )
     if (sigma < 0) v = F.neg(v)
   }

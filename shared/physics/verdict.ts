@@ -49,3 +49,12 @@ export function decideVerdict(v: VerdictInput): Verdict {
   if (v.arithmetic === 'exact') return v.exactEqual ? 'agrees' : 'disagrees'
   return v.deviation <= floatTolerance(v.n) ? 'agrees' : 'disagrees'
 }
+
+/**
+ * A float deviation above the tolerance that lies within what the arithmetic could resolve at this
+ * point (≤ 100 × the estimated precision, itself above the tolerance) decides nothing: the verdict
+ * `disagrees` becomes `not evaluated` (with a `precision loss` warning beside it).
+ */
+export function lostPrecision(verdict: Verdict, n: number, deviation: number | null, estimated: number | null): boolean {
+  return verdict === 'disagrees' && estimated !== null && deviation !== null && estimated > floatTolerance(n) && deviation <= 100 * estimated
+}

@@ -34,6 +34,10 @@ export const EvaluateRequestSchema = z.object({
   arithmetic: z.enum(['float', 'exact']).default('float'),
   probeFalloff: z.boolean().default(false),
   tree: z.boolean().default(false),
+  // How exact arithmetic is carried out; both give the same fractions. 'modular' evaluates modulo
+  // word-size primes and reconstructs the rationals (much faster); 'rational' uses big rationals
+  // throughout (the reference). The term tree is always built in big rationals.
+  exact: z.object({ backend: z.enum(['modular', 'rational']).default('modular') }).optional(),
 })
 
 /** The request after parsing (defaults applied). */
@@ -89,6 +93,12 @@ export interface EvaluateResponse {
   warnings: string[]
   kinematics: { lambda: unknown[]; lambdaTilde: unknown[] }
   engine: { version: string }
+  /**
+   * The arithmetic the recursion ran in and the relative precision it is estimated to have reached:
+   * `estimated` = unit roundoff × max(1 / condition, cancellation); `condition` = min |s_S| / max |s_ij|;
+   * `cancellation` = max |term| / |value|. Null estimates in exact arithmetic.
+   */
+  precision?: { arithmetic: 'double' | 'double-double' | 'exact'; condition: number; cancellation: number | null; estimated: number | null }
   ms: number
 }
 

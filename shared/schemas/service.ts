@@ -71,6 +71,10 @@ export interface CrossShiftResponse {
   spread: number
   /** Every valid shift gives the same value (exactly in exact arithmetic, within the float tolerance otherwise). */
   agree: boolean
+  /** What decided `agree`: the valid shifts agreeing, or (no valid shift: a single scalar species) factorisation on every pole. */
+  test: 'shifts' | 'factorisation'
+  /** With test `factorisation`: each pole (legs of one side, 1-based) and whether its residue is A_L·A_R. */
+  poles?: { pole: number[]; factorises: boolean }[]
   tolerance: number | null
   kinematics: { lambda: unknown[]; lambdaTilde: unknown[] }
   warnings: string[]

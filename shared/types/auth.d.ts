@@ -3,8 +3,8 @@ declare module '#auth-utils' {
   interface User {
     id: number
     role: 'admin' | 'member'
-    /** The user's session version when signing in; a reset or a disable bumps it. */
-    sv: number
+    /** Random session id; its SHA-256 names the row in the sessions table. */
+    sid: string
   }
 }
 export {}

@@ -69,6 +69,9 @@ export const matrix: RouteAccess[] = [
   { file: 'tokens/index.get.ts', access: 'user', scope: 'none' },
   { file: 'tokens/index.post.ts', access: 'user', scope: 'none', body: {} },
   { file: 'tokens/[id].delete.ts', access: 'user', scope: 'none', skipAllowed: true },
+  // Server-side sessions: the caller's own; ending one would sign the matrix client out.
+  { file: 'account/sessions/index.get.ts', access: 'user', scope: 'none' },
+  { file: 'account/sessions/[id].delete.ts', access: 'user', scope: 'none', skipAllowed: true },
   // Point sets and batch checks (issue 6).
   { file: 'projects/[id]/point-sets/index.get.ts', access: 'viewer', scope: 'project' },
   { file: 'projects/[id]/point-sets/index.post.ts', access: 'editor', scope: 'project', body: {} },

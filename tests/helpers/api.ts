@@ -9,13 +9,15 @@ export interface Res<T = any> { status: number, body: T, headers: Headers }
 export class Client {
   cookie = ''
   token = ''
+  /** Another server than the shared test server, and headers sent with every request (both optional). */
+  constructor(readonly base?: string, readonly headers: Record<string, string> = {}) {}
 
   async req<T = any>(method: string, path: string, body?: unknown, init: { raw?: string, headers?: Record<string, string> } = {}): Promise<Res<T>> {
-    const headers: Record<string, string> = { ...init.headers }
+    const headers: Record<string, string> = { ...this.headers, ...init.headers }
     if (body !== undefined || init.raw !== undefined) headers['content-type'] = 'application/json'
     if (this.cookie) headers.cookie = this.cookie
     if (this.token) headers.authorization = `Bearer ${this.token}`
-    const res = await fetch(baseURL() + path, { method, headers, body: init.raw ?? (body === undefined ? undefined : JSON.stringify(body)), redirect: 'manual' })
+    const res = await fetch((this.base ?? baseURL()) + path, { method, headers, body: init.raw ?? (body === undefined ? undefined : JSON.stringify(body)), redirect: 'manual' })
     const set = res.headers.getSetCookie()
     for (const c of set) {
       const pair = c.split(';')[0]!

@@ -21,6 +21,21 @@ async function waitFor(url: string, child: ChildProcess, log: () => string) {
   throw new Error(`server did not start:\n${log()}`)
 }
 
+/** The environment of a test server on its own temporary database, ports and outbox (production mode). */
+export function testServerEnv(dir: string, port: number, smtpPort: number): Record<string, string | undefined> {
+  return {
+    ...process.env,
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    DATABASE_URL: `file:${join(dir, 'test.db')}`,
+    NUXT_SESSION_PASSWORD: 'test-session-password-0123456789-abcdefghijklmnop',
+    POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'),
+    SMTP_PORT: String(smtpPort),
+    MAIL_OUTBOX_DIR: join(dir, 'outbox'),
+    NODE_ENV: 'production',
+  }
+}
+
 export default async function setup(project: TestProject) {
   const output = process.env.POLEWRIGHT_TEST_OUTPUT || '.output'
   const entry = join(root, output, 'server/index.mjs')
@@ -31,17 +46,12 @@ export default async function setup(project: TestProject) {
   const outbox = join(dir, 'outbox')
   const baseURL = `http://127.0.0.1:${port}`
   const env = {
-    ...process.env,
-    PORT: String(port),
-    HOST: '127.0.0.1',
-    DATABASE_URL: `file:${join(dir, 'test.db')}`,
-    NUXT_SESSION_PASSWORD: 'test-session-password-0123456789-abcdefghijklmnop',
-    POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'),
+    ...testServerEnv(dir, port, smtpPort),
     POLEWRIGHT_SEED: '1',
-    SMTP_PORT: String(smtpPort),
-    MAIL_OUTBOX_DIR: outbox,
     APP_URL: baseURL,
-    NODE_ENV: 'production',
+    // Every test client signs in from 127.0.0.1: the per-address limit across accounts would add
+    // up the failed sign-ins of all files. security-auth*.test.ts checks it on its own server.
+    POLEWRIGHT_LOGIN_ADDRESS_ATTEMPTS: '1000',
   }
   let logs = ''
   const mail = spawn(process.execPath, [join(root, 'scripts/mail-catcher.mjs')], { env, stdio: 'pipe' })

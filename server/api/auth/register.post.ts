@@ -3,6 +3,7 @@ import { RegisterSchema } from '../../../shared/schemas/auth'
 
 export default defineEventHandler(async (event) => {
   const body = await readValid(event, RegisterSchema)
+  assertStrongPassword(body.password, [body.email, body.name])
   const db = useDB()
   const existing = await db.select({ id: tables.users.id }).from(tables.users).where(eq(tables.users.email, body.email)).get()
   if (existing) throw fieldError(409, 'email', 'an account with this e-mail already exists')

@@ -39,3 +39,45 @@ export function cubicScalarFeynman<T>(F: Field<T>, k: Kin<T>): T {
   }
   throw new Error('unreachable')
 }
+
+/**
+ * A single scalar species with a cubic coupling (theory `spin`, s = 0): the sum of all cubic tree
+ * diagrams, not only the planar ones, e.g. A_4 = 1/s12 + 1/s13 + 1/s14. Off-shell currents over
+ * subsets of the legs 1..n−1 (bit masks): J({a}) = 1, J(S) = Σ J(A) J(S∖A) / P²_S over the splits
+ * with A holding the lowest leg of S; A_n = the same sum for S = {1..n−1} without the propagator.
+ * Each cubic tree is one way of splitting every set in two, so this is the diagram sum
+ * ((2n−5)!! diagrams; common practice).
+ */
+export function cubicScalarAllChannels<T>(F: Field<T>, k: Kin<T>): T {
+  const n = k.lambda.length
+  if (n < 3) throw new PhysicsError('target', 'the cubic-scalar diagram sum needs at least three legs')
+  if (k.lambdaTilde.length !== n) throw new PhysicsError('target', 'the angle and square spinor lists have different lengths')
+  const m = n - 1
+  const full = (1 << m) - 1
+  const J: T[] = new Array(full + 1)
+  const mom: [T, T, T, T][] = new Array(full + 1)
+  for (let S = 1; S <= full; S++) {
+    const low = S & -S
+    if (S === low) {
+      const a = 31 - Math.clz32(S)
+      const l = k.lambda[a]!, lt = k.lambdaTilde[a]!
+      mom[S] = [F.mul(l[0], lt[0]), F.mul(l[0], lt[1]), F.mul(l[1], lt[0]), F.mul(l[1], lt[1])]
+      J[S] = F.one
+      continue
+    }
+    const P = mom[low]!, Q = mom[S ^ low]!
+    mom[S] = [F.add(P[0], Q[0]), F.add(P[1], Q[1]), F.add(P[2], Q[2]), F.add(P[3], Q[3])]
+    let s = F.zero
+    const rest = S ^ low
+    // A = low ∪ B for every B ⊂ rest with B ≠ rest
+    for (let B = (rest - 1) & rest; ; B = (B - 1) & rest) {
+      s = F.add(s, F.mul(J[low | B]!, J[rest ^ B]!))
+      if (B === 0) break
+    }
+    if (S === full) return s
+    const M = mom[S]!
+    const p2 = F.sub(F.mul(M[0], M[3]), F.mul(M[1], M[2]))
+    J[S] = F.div(s, p2, `the propagator of the legs ${Array.from({ length: m }, (_, t) => t).filter((t) => S & (1 << t)).map((t) => t + 1).join(',')} vanishes`)
+  }
+  return F.one // n = 3
+}

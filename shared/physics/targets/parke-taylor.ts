@@ -3,7 +3,7 @@
 //   MHV:       A_n(…i⁻…j⁻…) = ⟨ij⟩⁴ / (⟨12⟩⟨23⟩…⟨n1⟩)
 //   conjugate: A_n(…i⁺…j⁺…) = (−1)ⁿ [ij]⁴ / ([12][23]…[n1])
 // The BCFW core calls this for MHV sub-blocks, so the loop allocates nothing beyond the Field ops.
-import type { Field } from '../field'
+import { SingularError, negligible, spinorSize, type Field } from '../field'
 import type { Kin } from '../spinors'
 import { PhysicsError } from '../errors'
 
@@ -63,6 +63,9 @@ export function parkeTaylor<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T 
   return c.kind === 'mhv' ? parkeTaylorMhv(F, k, c.i, c.j) : parkeTaylorAntiMhv(F, k, c.i, c.j)
 }
 
+const ADJ_ANGLE = 'an angle bracket of adjacent legs vanishes'
+const ADJ_SQUARE = 'a square bracket of adjacent legs vanishes'
+
 // The two closed forms are written out separately (not through a bracket callback): the BCFW core
 // calls them for every MHV sub-block.
 
@@ -74,12 +77,14 @@ export function parkeTaylorMhv<T>(F: Field<T>, k: Kin<T>, i: number, j: number):
   for (let a = 0; a < n; a++) {
     const x = L[a]!
     const y = L[a + 1 === n ? 0 : a + 1]!
-    den = F.mul(den, F.sub(F.mul(x[0], y[1]), F.mul(x[1], y[0])))
+    const b = F.sub(F.mul(x[0], y[1]), F.mul(x[1], y[0]))
+    if (F.zeroTolerance !== undefined && negligible(F, b, spinorSize(F, x) * spinorSize(F, y))) throw new SingularError(ADJ_ANGLE)
+    den = F.mul(den, b)
   }
   const li = L[i]!, lj = L[j]!
   const ij = F.sub(F.mul(li[0], lj[1]), F.mul(li[1], lj[0]))
   const ij2 = F.mul(ij, ij)
-  return F.div(F.mul(ij2, ij2), den, 'an angle bracket of adjacent legs vanishes')
+  return F.div(F.mul(ij2, ij2), den, ADJ_ANGLE)
 }
 
 /** (−1)ⁿ [ij]⁴ / ([12]…[n1]) with positive-helicity legs i, j (0-based); no helicity checks. */
@@ -90,11 +95,13 @@ export function parkeTaylorAntiMhv<T>(F: Field<T>, k: Kin<T>, i: number, j: numb
   for (let a = 0; a < n; a++) {
     const x = Lt[a]!
     const y = Lt[a + 1 === n ? 0 : a + 1]!
-    den = F.mul(den, F.sub(F.mul(x[1], y[0]), F.mul(x[0], y[1])))
+    const b = F.sub(F.mul(x[1], y[0]), F.mul(x[0], y[1]))
+    if (F.zeroTolerance !== undefined && negligible(F, b, spinorSize(F, x) * spinorSize(F, y))) throw new SingularError(ADJ_SQUARE)
+    den = F.mul(den, b)
   }
   const ti = Lt[i]!, tj = Lt[j]!
   const ij = F.sub(F.mul(ti[1], tj[0]), F.mul(ti[0], tj[1]))
   const ij2 = F.mul(ij, ij)
-  const v = F.div(F.mul(ij2, ij2), den, 'a square bracket of adjacent legs vanishes')
+  const v = F.div(F.mul(ij2, ij2), den, ADJ_SQUARE)
   return n % 2 === 0 ? v : F.neg(v)
 }

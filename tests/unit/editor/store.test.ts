@@ -112,7 +112,8 @@ describe('editor store', () => {
     const { a, b, line, legs } = handBuiltFour(s)
     s.setNodeType(a, 'square')
     let v = s.validation
-    expect(v.nodes[a]!.map(i => i.message).join(' ')).toMatch(/sum to −1 < 0: this is an angle vertex, not a square vertex/)
+    // Decided structurally, as the engine does: the side holding the λ̃-shifted leg 1 is an angle vertex.
+    expect(v.nodes[a]!.map(i => i.message).join(' ')).toMatch(/holds the shifted leg 1 \(λ̃ shifted\): at the pole its square brackets vanish, so only an angle vertex survives here, not a square vertex/)
     s.undo()
     s.updateEdgeData(line, { targetHelicity: 1, helicity: 1 })
     v = s.validation

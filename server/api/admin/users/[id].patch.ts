@@ -1,4 +1,4 @@
-import { eq, sql } from 'drizzle-orm'
+import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 
 const AdminUserUpdate = z.object({
@@ -14,11 +14,15 @@ export default defineEventHandler(async (event) => {
   if (id === auth.user.id && (body.disabled || body.role === 'member')) {
     throw fieldError(422, body.disabled ? 'disabled' : 'role', 'you cannot lock yourself out; ask another administrator')
   }
-  const row = await useDB().update(tables.users).set({
-    ...body,
-    // Disabling ends every existing session at its next request.
-    ...(body.disabled && { sessionVersion: sql`${tables.users.sessionVersion} + 1` }),
-  }).where(eq(tables.users.id, id)).returning().get()
+  // Disabling ends every session at its next request and revokes the API tokens for good:
+  // re-enabling the account later does not bring them back.
+  const row = await useDB().transaction(async (tx) => {
+    const updated = Object.keys(body).length
+      ? await tx.update(tables.users).set(body).where(eq(tables.users.id, id)).returning().get()
+      : await tx.select().from(tables.users).where(eq(tables.users.id, id)).get()
+    if (updated && body.disabled) await revokeCredentials(id, { tokens: true }, tx)
+    return updated
+  })
   if (!row) throw httpError(404, 'id: no such user')
   await audit(null, auth.user.id, body.disabled ? 'user.disable' : 'user.update', 'user', id, body)
   return { id: row.id, email: row.email, name: row.name, role: row.role, disabled: row.disabled }

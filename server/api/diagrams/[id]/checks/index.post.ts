@@ -1,8 +1,12 @@
 import { CheckRunSchema } from '../../../../../shared/schemas/service'
-import type { EvaluateRequest, EvaluateResponse } from '../../../../../shared/schemas/evaluate'
+import type { EvaluateRequest } from '../../../../../shared/schemas/evaluate'
+import { drawingGraph, hasDrawnTerms, type CheckedResponse } from '../../../../../shared/editor/drawing/evaluate'
+import type { EditorEdge, EditorNode } from '../../../../../shared/editor/types'
 
 // Runs a check: the diagram's process (theory, spin, helicities, colour order, shift) at the
 // point in the body, stored with its provenance (engine version, arithmetic, seed, duration, who).
+// A diagram whose graph has drawn terms is checked as drawn: the value, deviation and verdict are
+// the drawing's residue sum against the target, with the comparison in `result.drawing`.
 export default defineEventHandler(async (event) => {
   const id = routeId(event)
   const { diagram, user, project } = await requireDiagramRole(event, id, 'editor')
@@ -17,9 +21,14 @@ export default defineEventHandler(async (event) => {
   }
   precheckProcess(req, 'graph.process.')
   const t0 = performance.now()
-  let result: EvaluateResponse
+  const graph = diagram.graph as { nodes?: EditorNode[], edges?: EditorEdge[] }
+  const drawn = hasDrawnTerms(graph.nodes ?? [])
+  const order = process.order ? { order: process.order } : {}
+  let result: CheckedResponse
   try {
-    result = (await runInPool<EvaluateResponse>({ kind: 'evaluate', req, ...(process.order ? { order: process.order } : {}) }, poolOptions(event))).value
+    result = drawn
+      ? (await runInPool<CheckedResponse>({ kind: 'checkDrawing', req, ...order, process, graph: drawingGraph(graph) }, poolOptions(event))).value
+      : (await runInPool<CheckedResponse>({ kind: 'evaluate', req, ...order }, poolOptions(event))).value
   }
   catch (e) {
     throw evaluationHttpError(e, processField)

@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const db = useDB()
   const user = await db.select().from(tables.users).where(eq(tables.users.email, body.email)).get()
   if (!user) {
-    const invitation = await createInvitation(event, access, body.email, body.role)
+    const invitation = await createInvitation(access, body.email, body.role)
     setResponseStatus(event, 202)
     return { invited: true, invitation }
   }
@@ -19,7 +19,7 @@ export default defineEventHandler(async (event) => {
     .returning().get()
   if (!inserted) throw fieldError(409, 'email', `${body.email} is already a member of this project`)
   await audit(access.project.id, access.user.id, 'member.add', 'user', user.id, { email: user.email, role: body.role })
-  await notifyMemberAdded(event, access, user, body.role)
+  await notifyMemberAdded(access, user, body.role)
   setResponseStatus(event, 201)
   return { userId: user.id, email: user.email, name: user.name, role: body.role }
 })

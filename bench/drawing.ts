@@ -1,0 +1,59 @@
+// Drawing benchmark: a check of a drawn, fully expanded recursion (the worker's checkDrawing task:
+// the process evaluated, then the drawing compiled, compared and evaluated at the same point)
+// against the engine's check of the same process (the worker's evaluate task), tree off and on.
+// Aim: the drawn 8-gluon NMHV check costs < 2× the engine's. Run: node bench/run.mjs drawing [--quick]
+import { expandedGraph } from '../shared/editor/demo'
+import { checkDrawing, drawingGraph } from '../shared/editor/drawing/evaluate'
+import { validateGraph } from '../shared/editor/validate'
+import type { EditorEdge, EditorNode } from '../shared/editor/types'
+import { evaluate } from '../shared/physics/index'
+import type { Process } from '../shared/schemas/graph'
+import { runTask } from '../server/workers/tasks'
+
+const quick = process.argv.includes('--quick')
+const budget = quick ? 300 : 1500
+const gc = (globalThis as { gc?: () => void }).gc
+
+function time(fn: () => unknown): { ms: number, best: number } {
+  gc?.()
+  for (let w = 0; w < 5; w++) fn()
+  const samples: number[] = []
+  const end = performance.now() + budget
+  while (performance.now() < end || samples.length < 5) {
+    const t = performance.now()
+    fn()
+    samples.push(performance.now() - t)
+  }
+  samples.sort((a, b) => a - b)
+  return { ms: samples[Math.floor(samples.length / 2)]!, best: samples[0]! }
+}
+
+const fmt = (x: number) => (x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x >= 1 ? x.toFixed(2) : x.toFixed(3))
+
+const cases: { name: string, p: Process }[] = [
+  { name: '6-gluon NMHV (−+−+−+) [1,2⟩', p: { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], shift: [1, 2] } },
+  { name: '8-gluon NMHV (−−−+++++) [3,4⟩', p: { theory: 'gluon', helicities: [-1, -1, -1, 1, 1, 1, 1, 1], shift: [3, 4] } },
+  { name: '8-gluon NMHV (−+−++−++) [1,2⟩', p: { theory: 'gluon', helicities: [-1, 1, -1, 1, 1, -1, 1, 1], shift: [1, 2] } },
+  { name: '5-graviton NMHV (−−−++) [1,2⟩', p: { theory: 'graviton', helicities: [-2, -2, -2, 2, 2], shift: [1, 2] } },
+]
+
+const rows: string[] = []
+rows.push('| process, fully expanded | nodes | terms | engine check ms (tree off) | engine check ms (tree on) | drawn check ms | drawn / engine (tree off) | drawn / engine (tree on) | of which validate + compile ms | verdict |')
+rows.push('|---|---|---|---|---|---|---|---|---|---|')
+for (const c of cases) {
+  const g = expandedGraph(c.p, true)
+  const graph = { nodes: g.nodes as EditorNode[], edges: g.edges as EditorEdge[] }
+  const process = g.process!
+  const req = { theory: process.theory, helicities: process.helicities, shift: process.shift, kinematics: { kind: 'random' as const, seed: 1 } }
+  // The worker tasks the check route hands off, structured-cloned as postMessage would.
+  const plain = time(() => runTask(structuredClone({ kind: 'evaluate', req })))
+  const tree = time(() => runTask(structuredClone({ kind: 'evaluate', req: { ...req, tree: true } })))
+  // As the check route hands it off: the graph without positions and layout data.
+  const drawn = time(() => runTask(structuredClone({ kind: 'checkDrawing', req, process, graph: drawingGraph(graph) })))
+  const res = evaluate(req)
+  const compile = time(() => validateGraph(graph.nodes, graph.edges, process))
+  const out = checkDrawing(res, process, graph)
+  rows.push(`| ${c.name} | ${graph.nodes.length} | ${out.drawing!.terms.length} | ${fmt(plain.ms)} (${fmt(plain.best)}) | ${fmt(tree.ms)} (${fmt(tree.best)}) | ${fmt(drawn.ms)} (${fmt(drawn.best)}) | ${(drawn.ms / plain.ms).toFixed(2)} | ${(drawn.ms / tree.ms).toFixed(2)} | ${fmt(compile.ms)} | ${out.verdict} |`)
+}
+console.log(rows.join('\n'))
+console.log(`\nmedian (best) ms over ~${budget} ms of runs each; node ${process.version}; load average ${(await import('node:os')).loadavg()[0]!.toFixed(1)}${quick ? '; quick run' : ''}`)

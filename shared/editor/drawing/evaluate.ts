@@ -1,0 +1,226 @@
+// Evaluates the drawn terms at a point and turns a check of the process into a check of the drawing:
+// the drawn residue sum against the target, each drawn term's value, and the comparison with the
+// process's full recursion under the same shift. Every channel is cut with the engine's own
+// kinematics (channelKinematics: z*, the split of P̂, −P̂ as (λ_P, −λ̃_P)), every Block is the
+// engine's sub-amplitude and every vertex its three-point amplitude, so a drawing of the engine's
+// own term tree gives the engine's value.
+import { channelKinematics, subAmplitudeValue } from '../../physics/bcfw'
+import { Complex, SingularError, complexField, parseRational, rationalField, type Field } from '../../physics/field'
+import { ddField, ddOf } from '../../physics/double-double'
+import { toDoubleDouble } from '../../physics/kinematics'
+import type { Kin, Spinor } from '../../physics/spinors'
+import { isValidShift, vanishes, type Process } from '../../physics/theories'
+import { threePoint } from '../../physics/three-point'
+import { decideVerdict, deviationOf, type Verdict } from '../../physics/verdict'
+import type { Process as GraphProcess } from '../../schemas/graph'
+import type { EvaluateResponse, WireComplex } from '../../schemas/evaluate'
+import type { EditorEdge, EditorNode, LineData } from '../types'
+import { validateGraph } from '../validate'
+import { compareDrawing, type DrawingComparison } from './compare'
+import { engineProcess, type DrawnPart, type DrawingStructure } from './structure'
+
+export interface DrawnTermValue {
+  /** The component id. */
+  id: string
+  /** Sorted labels on the side of the shifted leg i, or null when no Line separates a channel. */
+  channel: number[] | null
+  /** Helicity of the top-level Line at leg i's side. */
+  internalHelicity: number | null
+  /** "{1,6} | −". */
+  label: string | null
+  /** The top-level Line (edge id). */
+  lineId: string | null
+  zStar: WireComplex | null
+  pole: WireComplex | null
+  /** A_L · A_R / P² of what is drawn; null when the term cannot be read or meets a singular point. */
+  value: WireComplex | null
+  /** What is wrong with this term (empty: a well-formed term). */
+  problems: string[]
+}
+
+export interface DrawingResult {
+  /** The drawn residue sum (terms that cannot be evaluated are left out and named). */
+  sum: WireComplex | null
+  terms: DrawnTermValue[]
+  comparison: DrawingComparison
+  /** The process's full recursion under the same shift, as a check of the process reports it. */
+  recursion: { value: WireComplex | null, deviation: number | null, verdict: Verdict }
+  /** One sentence: what the verdict rests on. */
+  message: string
+}
+
+export type CheckedResponse = EvaluateResponse & { drawing?: DrawingResult }
+
+interface Parsers<T> {
+  F: Field<T>
+  num: (w: WireComplex) => T
+  kin: (w: { lambda: unknown[], lambdaTilde: unknown[] }) => Kin<T>
+}
+
+function parsersFor(arithmetic: 'float' | 'exact', theory: string): Parsers<unknown> {
+  if (arithmetic === 'exact') {
+    const sp = (s: unknown): Spinor<unknown> => [parseRational(String((s as string[])[0])), parseRational(String((s as string[])[1]))]
+    return { F: rationalField as Field<unknown>, num: w => parseRational(String(w[0])), kin: w => ({ lambda: w.lambda.map(sp), lambdaTilde: w.lambdaTilde.map(sp) }) }
+  }
+  const c = (x: unknown) => new Complex((x as number[])[0]!, (x as number[])[1]!)
+  const sp = (s: unknown): Spinor<Complex> => [c((s as unknown[])[0]), c((s as unknown[])[1])]
+  const kinC = (w: { lambda: unknown[], lambdaTilde: unknown[] }): Kin<Complex> => ({ lambda: w.lambda.map(sp), lambdaTilde: w.lambdaTilde.map(sp) })
+  // The engine's float field: doubles for gluons, double-double for the rest (DEVELOPERS.md "Precision").
+  if (theory === 'gluon') return { F: complexField as Field<unknown>, num: w => c(w), kin: kinC as Parsers<unknown>['kin'] }
+  return { F: ddField as Field<unknown>, num: w => ddOf(Number(w[0]), Number(w[1])), kin: w => toDoubleDouble(kinC(w)) as Kin<unknown> }
+}
+
+/** The value of a drawn part at the kinematics of its legs (in the part's leg order). */
+export function partValue<T>(F: Field<T>, p: Process, x: DrawnPart, k: Kin<T>): T {
+  if (x.kind === 'vertex') return x.zero ? F.zero : threePoint(F, p, k, x.helicities, x.vertexKind)
+  if (x.kind === 'block') {
+    if (x.zero || vanishes(p, x.helicities)) return F.zero
+    return x.helicities.length === 3 ? F.zero : subAmplitudeValue(F, p, k, x.helicities)
+  }
+  const ck = channelKinematics(F, k, x.shift, x.L, x.R)
+  const left = partValue(F, p, x.left, ck.kL)
+  if (F.isZero(left)) return F.zero
+  return F.div(F.mul(left, partValue(F, p, x.right, ck.kR)), ck.P2)
+}
+
+export interface DrawnValues<T> {
+  sum: T
+  terms: { id: string, value: T | null, z: T | null, pole: T | null, singular: string | null }[]
+}
+
+/**
+ * The drawn terms at a point given per leg label (kin.lambda[label − 1]). Terms with no plan, or
+ * that meet a vanishing pole or bracket, get value null and are left out of the sum.
+ */
+export function drawnValues<T>(F: Field<T>, process: GraphProcess, s: DrawingStructure, kinByLabel: Kin<T>): DrawnValues<T> {
+  const p = engineProcess(process)
+  let sum = F.zero
+  const terms: DrawnValues<T>['terms'] = []
+  if (!p) return { sum, terms }
+  const n = process.helicities.length
+  const order = p.colourOrdered && process.order?.length === n ? process.order : Array.from({ length: n }, (_, t) => t + 1)
+  const k0: Kin<T> = { lambda: order.map(l => kinByLabel.lambda[l - 1]!), lambdaTilde: order.map(l => kinByLabel.lambdaTilde[l - 1]!) }
+  for (const t of s.terms) {
+    if (!t.plan || t.plan.kind !== 'term') { terms.push({ id: t.id, value: null, z: null, pole: null, singular: null }); continue }
+    try {
+      const ck = channelKinematics(F, k0, t.plan.shift, t.plan.L, t.plan.R)
+      const left = partValue(F, p, t.plan.left, ck.kL)
+      const v = F.isZero(left) ? F.zero : F.div(F.mul(left, partValue(F, p, t.plan.right, ck.kR)), ck.P2)
+      sum = F.add(sum, v)
+      terms.push({ id: t.id, value: v, z: ck.z, pole: ck.P2, singular: null })
+    }
+    catch (e) {
+      if (!(e instanceof SingularError)) throw e
+      terms.push({ id: t.id, value: null, z: null, pole: null, singular: e.what })
+    }
+  }
+  return { sum, terms }
+}
+
+/**
+ * What the compiler reads of a graph (ids, kinds, wiring, labels, helicities, line names): the rest
+ * (positions, layout data, cached values) need not cross to a worker thread.
+ */
+export function drawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }): { nodes: EditorNode[], edges: EditorEdge[] } {
+  const pick = (d: Record<string, unknown> | undefined, keys: string[]) => {
+    const out: Record<string, unknown> = {}
+    for (const k of keys) if (d && d[k] !== undefined) out[k] = d[k]
+    return out
+  }
+  return {
+    nodes: (g.nodes ?? []).map(n => ({ id: n.id, type: n.type, position: { x: 0, y: 0 }, data: pick(n.data, n.type === 'leg' ? ['label', 'helicity'] : n.type === 'block' ? ['helicities'] : []) })),
+    edges: (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, data: pick(e.data, ['helicity', 'targetHelicity', 'line', 'external']) })),
+  }
+}
+
+/** Whether a graph has drawn terms: a component with a vertex or a Block. */
+export function hasDrawnTerms(nodes: { type: string }[]): boolean {
+  return nodes.some(n => n.type !== 'leg')
+}
+
+/**
+ * A check of the drawing: `res` is the engine's answer for the process (its full recursion, the
+ * target, the point used — in the diagram's labels), `graph` the canvas. The value, deviation and
+ * verdict become the drawing's; the recursion's stay in `drawing.recursion`. An incomplete or
+ * wrong drawing never `agrees`.
+ */
+export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph: { nodes: EditorNode[], edges: EditorEdge[] }): CheckedResponse {
+  const proc: GraphProcess = { ...process, shift: res.shift }
+  const v = validateGraph(graph.nodes, graph.edges, proc)
+  const s = v.drawing
+  const edgeById = new Map(graph.edges.map(e => [e.id, e]))
+  const lineName = (e: string) => ((edgeById.get(e)?.data ?? {}) as LineData).line ?? 'a line'
+  const comparison = compareDrawing(proc, s, lineName)
+  const recursion = { value: res.value, deviation: res.deviation, verdict: res.verdict }
+  const P = parsersFor(res.arithmetic, res.theory)
+  const F = P.F
+  const n = res.n
+  let sumW: WireComplex | null = null
+  const terms: DrawnTermValue[] = []
+  let singular: string | null = res.value === null && res.verdict === 'singular point' ? (res.warnings.find(w => w.startsWith('singular point')) ?? 'singular point') : null
+  let deviation: number | null = null
+  let sum: unknown = null
+  if (!singular) {
+    const dv = drawnValues(F, proc, s, P.kin(res.kinematics))
+    sum = dv.sum
+    sumW = F.toWire(dv.sum) as WireComplex
+    dv.terms.forEach((x, t) => {
+      const st = s.terms[t]!
+      const problems = [...st.problems]
+      if (x.singular) problems.push(`singular point: ${x.singular}`)
+      terms.push({
+        id: x.id,
+        channel: st.channel?.left ?? null,
+        internalHelicity: st.channel?.helicity ?? null,
+        label: st.label,
+        lineId: st.lineId,
+        zStar: x.z === null ? null : (F.toWire(x.z) as WireComplex),
+        pole: x.pole === null ? null : (F.toWire(x.pole) as WireComplex),
+        value: x.value === null ? null : (F.toWire(x.value) as WireComplex),
+        problems,
+      })
+    })
+    const singularTerm = dv.terms.find(x => x.singular)
+    if (singularTerm) comparison.messages.push(`a drawn term meets a singular point: ${singularTerm.singular}`)
+    const target = res.target?.value ? P.num(res.target.value) : null
+    if (target !== null) deviation = deviationOf(F, dv.sum, target, dv.terms.filter(x => x.value !== null).map(x => x.value!))
+    if (F.kind === 'float' && !Number.isFinite(F.abs(dv.sum))) singular = 'a non-finite drawn sum'
+  }
+  const p = engineProcess(proc)!
+  const order = p.colourOrdered && proc.order?.length === n ? proc.order : Array.from({ length: n }, (_, t) => t + 1)
+  const hOrdered = order.map(l => proc.helicities[l - 1]!)
+  const pos = (l: number) => order.indexOf(l)
+  const target = res.target?.value ? P.num(res.target.value) : null
+  let verdict = decideVerdict({
+    singular: !!singular,
+    targetNone: res.target === null,
+    shiftValidByTable: isValidShift(p, hOrdered, pos(res.shift[0]), pos(res.shift[1])),
+    probedExponent: res.falloff ? res.falloff.exponent : null,
+    vanishing: vanishes(p, hOrdered),
+    arithmetic: res.arithmetic,
+    n,
+    deviation: deviation ?? Infinity,
+    exactEqual: sum !== null && target !== null && F.equals(sum, target),
+  })
+  const problem = comparison.messages[0]
+  if (verdict === 'agrees' && problem) verdict = 'disagrees'
+  const message = singular
+    ? `the drawing meets a singular point (${singular})`
+    : problem
+      ? `the drawing is not the recursion of [${res.shift[0]}, ${res.shift[1]}⟩: ${problem}${comparison.messages.length > 1 ? ` (and ${comparison.messages.length - 1} more)` : ''}`
+      : verdict === 'agrees'
+        ? `the drawing holds every term of [${res.shift[0]}, ${res.shift[1]}⟩ once, and its sum agrees with the target`
+        : verdict === 'disagrees'
+          ? 'the drawing holds every term of the recursion once, but its sum disagrees with the target'
+          : `the drawing holds every term of the recursion once (verdict: ${verdict})`
+  const warnings = [...res.warnings]
+  if (problem) warnings.push(`drawing: ${problem}`)
+  return {
+    ...res,
+    value: singular ? null : sumW,
+    deviation: singular ? null : deviation,
+    verdict,
+    warnings,
+    drawing: { sum: singular ? null : sumW, terms, comparison, recursion, message },
+  }
+}

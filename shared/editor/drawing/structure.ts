@@ -1,0 +1,423 @@
+// What a drawn term means, from the canvas alone (no kinematics): each connected component with a
+// vertex or Block is one term of the residue sum. Its top-level Line must separate a channel of the
+// shift (docs/conventions.md "BCFW"); each side is a sub-amplitude: one vertex, one Block, or again
+// one channel term of its own recursion (under its default shift, or the valid shift the drawing
+// fits). Sub-amplitude leg orders are the engine's (A_L(a..b, −P̂), A_R(b+1..a−1, P̂)), so a drawing
+// made from the engine's term tree reads back as exactly that tree. The three-point kind at a pole is
+// structural: the side holding the λ̃-shifted leg is an angle vertex, the other a square vertex.
+import type { Process as GraphProcess } from '../../schemas/graph'
+import { channels, sideSurvives } from '../../physics/bcfw'
+import { defaultShift, isValidShift, processOf, vanishes, type Process } from '../../physics/theories'
+import { threePointSurvives, type VertexKind } from '../../physics/three-point'
+import type { EditorEdge, EditorNode, LineData } from '../types'
+import { helicityText } from '../types'
+
+/** A leg of a drawn sub-amplitude: an external label, or the Line (edge id) that joins it to the rest. */
+export type DrawnLeg = { label: number } | { edge: string }
+
+interface Amp {
+  legs: DrawnLeg[]
+  helicities: number[]
+}
+
+export type DrawnPart =
+  | { kind: 'vertex', node: string, legs: DrawnLeg[], helicities: number[], vertexKind: VertexKind, zero: boolean }
+  | { kind: 'block', node: string, legs: DrawnLeg[], helicities: number[], zero: boolean }
+  | {
+    kind: 'term'
+    legs: DrawnLeg[]
+    helicities: number[]
+    /** 0-based positions in `legs`. */
+    shift: [number, number]
+    /** Positions (in `legs`) of A_L's and A_R's external legs, in the engine's order. */
+    L: number[]
+    R: number[]
+    /** The Line of this channel (edge id) and the helicity at its end on A_L's side. */
+    line: string
+    helicity: number
+    left: DrawnPart
+    right: DrawnPart
+  }
+
+export interface DrawnIssue {
+  /** Node or edge id the message belongs on. */
+  id: string
+  on: 'node' | 'edge'
+  level: 'error' | 'warning'
+  message: string
+}
+
+export interface DrawnChannel {
+  /** Sorted leg labels on the side of the shifted leg i. */
+  left: number[]
+  /** Helicity of the top-level Line at its end on leg i's side (API.md's term `helicity`). */
+  helicity: number
+}
+
+export interface DrawnTerm {
+  /** The component id (validateGraph's `components[].id`). */
+  id: string
+  nodeIds: string[]
+  /** The channel its top-level Line separates, or null when no Line separates one. */
+  channel: DrawnChannel | null
+  /** "{1,6} | −": the label the canvas shows. */
+  label: string | null
+  /** The top-level Line (edge id). */
+  lineId: string | null
+  /** Vertices and Blocks on either side of the top-level Line. */
+  leftNodeIds: string[]
+  rightNodeIds: string[]
+  /** The term's structure, or null when it cannot be read as a term of the recursion. */
+  plan: DrawnPart | null
+  /** Whether the channel and internal helicity give a non-vanishing term of the shift. */
+  live: boolean
+  /** Problems in words: every error message on its nodes and Lines (empty: a well-formed term). */
+  problems: string[]
+  /** A plan with no problem: the term is what it claims to be. */
+  valid: boolean
+}
+
+export interface DrawingStructure {
+  /** The top-level shift, leg labels (the process's, else the engine's default rule). */
+  shift: [number, number] | null
+  terms: DrawnTerm[]
+  issues: DrawnIssue[]
+}
+
+/** What validateGraph already knows about the canvas. */
+export interface StructureInput {
+  nodes: EditorNode[]
+  edges: EditorEdge[]
+  process?: GraphProcess
+  components: { id: string, nodeIds: string[], legIds: string[], labels: number[], lineIds: string[], isTree: boolean }[]
+  slots: Record<string, { handle: string, edges: EditorEdge[], helicity: number | null, other: { kind: 'leg', label: number, nodeId: string } | { kind: 'line', nodeId: string, edgeId: string } | null }[]>
+  /** Ids (nodes and edges) that already carry an error. */
+  errorIds: Set<string>
+}
+
+/** The engine's process of a diagram's process (null for an unknown spin). */
+export function engineProcess(p: GraphProcess): Process | null {
+  if (p.theory === 'spin' && (p.spin === undefined || !Number.isInteger(p.spin) || p.spin < 0)) return null
+  return processOf(p.theory, p.spin)
+}
+
+/** Colour order (labels) of a process: `order` when it is a permutation, else 1..n. */
+function colourOrder(p: GraphProcess, colourOrdered: boolean): number[] {
+  const n = p.helicities.length
+  const id = Array.from({ length: n }, (_, t) => t + 1)
+  if (!colourOrdered || !p.order || p.order.length !== n) return id
+  const seen = new Set(p.order)
+  return seen.size === n && p.order.every(l => Number.isInteger(l) && l >= 1 && l <= n) ? p.order : id
+}
+
+/** The shift a check of this process uses, in leg labels (the process's, else the default rule in colour order). */
+export function drawingShift(p: GraphProcess): [number, number] | null {
+  const n = p.helicities.length
+  if (p.shift) return p.shift[0] !== p.shift[1] && p.shift.every(l => l >= 1 && l <= n) ? p.shift : null
+  const ep = engineProcess(p)
+  if (!ep) return null
+  const order = colourOrder(p, ep.colourOrdered)
+  const d = defaultShift(ep, order.map(l => p.helicities[l - 1]!))
+  return [order[d[0]]!, order[d[1]]!]
+}
+
+export const channelText = (left: number[]): string => `{${left.join(',')}}`
+export const channelLabel = (c: DrawnChannel): string => `${channelText(c.left)} | ${helicityText(c.helicity)}`
+
+const hsOf = (p: Process): number[] => (p.s === 0 ? [0] : [p.s, -p.s])
+
+/** The live (channel, internal helicity) pairs of an amplitude under a shift: the terms the recursion sums. */
+export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number]): readonly LiveChannel[] {
+  const key = `${p.theory}:${p.s}:${shift[0]}:${shift[1]}:${h.join(',')}`
+  let out = liveCache.get(key)
+  if (!out) {
+    if (liveCache.size > 5000) liveCache.clear()
+    liveCache.set(key, (out = computeLive(p, h, shift)))
+  }
+  return out
+}
+
+interface LiveChannel { L: readonly number[], R: readonly number[], helicity: number }
+const liveCache = new Map<string, readonly LiveChannel[]>()
+
+function computeLive(p: Process, h: readonly number[], shift: readonly [number, number]): LiveChannel[] {
+  const out: LiveChannel[] = []
+  if (vanishes(p, h)) return out
+  for (const { L, R } of channels(h.length, shift[0], shift[1], p.colourOrdered)) {
+    for (const x of hsOf(p)) {
+      if (sideSurvives(p, [...L.map(t => h[t]!), x], 'angle') && sideSurvives(p, [...R.map(t => h[t]!), -x], 'square')) out.push({ L, R, helicity: x })
+    }
+  }
+  return out
+}
+
+type ChannelList = ReturnType<typeof channels>
+const keyCache = new Map<string, Map<string, ChannelList[number]>>()
+
+/** The channels of a shift keyed by their sorted left positions (cached: the same few recur at every level). */
+function channelsByKey(n: number, sh: readonly [number, number], colourOrdered: boolean): Map<string, ChannelList[number]> {
+  const k = `${n}:${sh[0]}:${sh[1]}:${colourOrdered ? 1 : 0}`
+  let m = keyCache.get(k)
+  if (!m) keyCache.set(k, (m = new Map(channels(n, sh[0], sh[1], colourOrdered).map(c => [[...c.L].sort((u, v) => u - v).join(','), c]))))
+  return m
+}
+
+interface Slot { leg: number | null, edge: string | null, to: string | null, helicity: number | null }
+
+interface Ctx {
+  p: Process
+  slots: Map<string, Slot[]>
+  byId: Map<string, EditorNode>
+  edgeById: Map<string, EditorEdge>
+  lineName: (edge: string) => string
+}
+
+interface Found { part: DrawnPart | null, issues: DrawnIssue[] }
+
+const legKey = (l: DrawnLeg) => ('label' in l ? `l${l.label}` : `e${l.edge}`)
+
+function legText(ctx: Ctx, l: DrawnLeg): string {
+  return 'label' in l ? `leg ${l.label}` : `line ${ctx.lineName(l.edge)}`
+}
+
+/** Line number of a generated Line ("L12" → 12): the engine numbers a channel's Line before the Lines below it. */
+function lineRank(e: EditorEdge | undefined): number {
+  const m = /^L(\d+)$/.exec(String(((e?.data ?? {}) as LineData).line ?? ''))
+  return m ? Number(m[1]) : Number.MAX_SAFE_INTEGER
+}
+
+/**
+ * Reads a region of the canvas (a connected set of vertices and Blocks) as the amplitude `amp`.
+ * `kind` is the three-point kind the parent's shift allows for it; `shift` is fixed at the top.
+ */
+function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, whyOf: () => string, shift: [number, number] | null): Found {
+  const { p } = ctx
+  if (region.length === 1) {
+    const id = region[0]!
+    const node = ctx.byId.get(id)!
+    const legs = amp.legs
+    if (node.type === 'block') {
+      const zero = vanishes(p, amp.helicities)
+      const issues: DrawnIssue[] = []
+      if (legs.length === 3 && kind && !threePointSurvives(p, amp.helicities, kind)) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${kind === 'angle' ? 'an angle' : 'a square'} three-point amplitude survives, and helicities (${amp.helicities.map(helicityText).join(',')}) do not allow one` })
+      return { part: { kind: 'block', node: id, legs, helicities: amp.helicities, zero: zero || issues.length > 0 }, issues }
+    }
+    const vk = kind ?? (node.type as VertexKind)
+    const issues: DrawnIssue[] = []
+    if (node.type !== vk) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}: at the pole its ${vk === 'angle' ? 'square' : 'angle'} brackets vanish, so only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives here, not ${vk === 'angle' ? 'a square' : 'an angle'} vertex` })
+    else if (!threePointSurvives(p, amp.helicities, vk)) {
+      const sum = amp.helicities.reduce((a, b) => a + b, 0)
+      issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only an ${vk} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) ${sum === 0 ? 'sum to 0' : `sum to ${helicityText(sum)}`}: this term vanishes (flip the internal helicity)` })
+    }
+    return { part: { kind: 'vertex', node: id, legs, helicities: amp.helicities, vertexKind: vk, zero: issues.length > 0 }, issues }
+  }
+  // Several nodes: one channel term of this amplitude's own recursion.
+  const inside = new Set(region)
+  const index = new Map<string, number>()
+  amp.legs.forEach((l, t) => index.set(legKey(l), t))
+  const lines: { edge: string, a: string, b: string, rank: number }[] = []
+  for (const id of region) {
+    for (const s of ctx.slots.get(id)!) {
+      if (s.edge && s.to && inside.has(s.to) && id < s.to && ctx.slots.get(s.to)?.some(o => o.edge === s.edge)) lines.push({ edge: s.edge, a: id, b: s.to, rank: lineRank(ctx.edgeById.get(s.edge)) })
+    }
+  }
+  lines.sort((x, y) => x.rank - y.rank)
+  // For each Line: the amplitude's legs and the nodes on its `a` side.
+  const sideOf = (line: { edge: string, a: string }) => {
+    const legs: number[] = []
+    const nodes: string[] = []
+    const seen = new Set([line.a])
+    const stack = [line.a]
+    while (stack.length) {
+      const x = stack.pop()!
+      nodes.push(x)
+      for (const s of ctx.slots.get(x)!) {
+        if (s.edge === line.edge) continue
+        if (s.to && inside.has(s.to)) {
+          if (!seen.has(s.to)) { seen.add(s.to); stack.push(s.to) }
+          continue
+        }
+        const k = s.leg !== null ? `l${s.leg}` : `e${s.edge}`
+        const t = index.get(k)
+        if (t !== undefined) legs.push(t)
+      }
+    }
+    return { legs: legs.sort((u, v) => u - v), nodes }
+  }
+  const sides: ({ legs: number[], nodes: string[] } | undefined)[] = new Array(lines.length)
+  const n = amp.legs.length
+  // The given shift at the top; below, the default shift first, then the other valid ones.
+  const d = shift ?? defaultShift(p, amp.helicities)
+  let others: [number, number][] | null = null
+  let best: Found | null = null
+  for (let si = 0; ; si++) {
+    if (si === 1) {
+      if (shift) break
+      others = []
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) if (a !== b && !(a === d[0] && b === d[1]) && isValidShift(p, amp.helicities, a, b)) others.push([a, b])
+    }
+    const sh = si === 0 ? d : others![si - 1]
+    if (!sh) break
+    const byKey = channelsByKey(n, sh, p.colourOrdered)
+    for (let t = 0; t < lines.length; t++) {
+      const line = lines[t]!
+      const side = (sides[t] ??= sideOf(line))
+      let ch = byKey.get(side.legs.join(','))
+      let flip = false
+      if (!ch) {
+        const other: number[] = []
+        for (let u = 0; u < n; u++) if (!side.legs.includes(u)) other.push(u)
+        ch = byKey.get(other.join(','))
+        flip = true
+      }
+      if (!ch) continue
+      const sideSet = new Set(side.nodes)
+      const leftEnd = flip ? line.b : line.a
+      const rightEnd = flip ? line.a : line.b
+      const leftNodes = flip ? region.filter(x => !sideSet.has(x)) : side.nodes
+      const rightNodes = flip ? side.nodes : region.filter(x => !sideSet.has(x))
+      const hAt = (node: string) => ctx.slots.get(node)!.find(s => s.edge === line.edge)?.helicity ?? null
+      const h = hAt(leftEnd)
+      const hr = hAt(rightEnd)
+      if (h === null || hr === null) continue
+      const edgeLeg: DrawnLeg = { edge: line.edge }
+      const ampL: Amp = { legs: [...ch.L.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.L.map(u => amp.helicities[u]!), h] }
+      const ampR: Amp = { legs: [...ch.R.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.R.map(u => amp.helicities[u]!), hr] }
+      const [si, sj] = sh
+      const left = readAmp(ctx, ampL, leftNodes, 'angle', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[si]!)} (λ̃ shifted)`, null)
+      const right = readAmp(ctx, ampR, rightNodes, 'square', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[sj]!)} (λ shifted)`, null)
+      const issues = left.issues.length || right.issues.length ? [...left.issues, ...right.issues] : left.issues
+      const found: Found = {
+        part: left.part && right.part ? { kind: 'term', legs: amp.legs, helicities: amp.helicities, shift: sh, L: [...ch.L], R: [...ch.R], line: line.edge, helicity: h, left: left.part, right: right.part } : null,
+        issues,
+      }
+      if (found.part && issues.length === 0) return found
+      if (!best || (found.part && !best.part) || (!!found.part === !!best.part && issues.length < best.issues.length)) best = found
+    }
+  }
+  if (best) return best
+  const names = amp.legs.map(l => legText(ctx, l).replace(/^leg /, '').replace(/^line /, '')).join(', ')
+  if (shift) return { part: null, issues: [] }
+  return {
+    part: null,
+    issues: [{ id: region[0]!, on: 'node', level: 'error', message: `the sub-amplitude (${names}) drawn here is not one channel term of its recursion under any valid shift: no line inside it separates a channel` }],
+  }
+}
+
+/**
+ * Compiles the drawn terms of a canvas. Components that already carry an error (open slots, a loop,
+ * missing legs, …) are listed with those problems and no plan; the shifted-legs rule applies to
+ * every component, complete or not, so a node says so while it is being drawn.
+ */
+export function compileStructure(input: StructureInput): DrawingStructure {
+  const { nodes, edges, process } = input
+  const issues: DrawnIssue[] = []
+  const terms: DrawnTerm[] = []
+  const p = process ? engineProcess(process) : null
+  const shift = process ? drawingShift(process) : null
+  const byId = new Map(nodes.map(n => [n.id, n]))
+  const edgeById = new Map(edges.map(e => [e.id, e]))
+  let anon = 0
+  const anonNames = new Map<string, string>()
+  const lineName = (edge: string) => {
+    const name = ((edgeById.get(edge)?.data ?? {}) as LineData).line
+    if (name) return name
+    if (!anonNames.has(edge)) anonNames.set(edge, `#${++anon}`)
+    return anonNames.get(edge)!
+  }
+  const slots = new Map<string, Slot[]>()
+  for (const [id, list] of Object.entries(input.slots)) {
+    slots.set(id, list.map(s => ({
+      leg: s.other?.kind === 'leg' ? s.other.label : null,
+      edge: s.other?.kind === 'line' ? s.other.edgeId : null,
+      to: s.other?.kind === 'line' ? s.other.nodeId : null,
+      helicity: s.helicity,
+    })))
+  }
+  const ctx: Ctx | null = p ? { p, slots, byId, edgeById, lineName } : null
+  const n = process?.helicities.length ?? 0
+  const order = process && p ? colourOrder(process, p.colourOrdered) : []
+  const pos = new Map(order.map((l, k) => [l, k]))
+  for (const comp of input.components) {
+    const inner = comp.nodeIds.filter(id => byId.get(id)?.type !== 'leg')
+    if (!inner.length) continue
+    const term: DrawnTerm = { id: comp.id, nodeIds: comp.nodeIds, channel: null, label: null, lineId: null, leftNodeIds: [], rightNodeIds: [], plan: null, live: false, problems: [], valid: false }
+    terms.push(term)
+    // Both shifted legs on one vertex or Block: no line of this term can separate them.
+    if (shift) {
+      for (const id of inner) {
+        const legs = (slots.get(id) ?? []).map(s => s.leg)
+        if (legs.includes(shift[0]) && legs.includes(shift[1])) {
+          const what = byId.get(id)!.type === 'block' ? 'Block' : 'vertex'
+          const message = `both shifted legs ${shift[0]} and ${shift[1]} of [${shift[0]}, ${shift[1]}⟩ sit on this ${what}: a term's top-level line must separate them`
+          issues.push({ id, on: 'node', level: 'error', message })
+          term.problems.push(message)
+        }
+      }
+    }
+    if (!ctx || !shift || !process) continue
+    const broken = comp.nodeIds.some(id => input.errorIds.has(id)) || comp.lineIds.some(id => input.errorIds.has(id)) || !comp.isTree
+    const labels = new Set(comp.labels)
+    if (broken || labels.size !== n || comp.labels.length !== n) {
+      if (!term.problems.length) term.problems.push('this term is not complete yet (see the messages on its nodes)')
+      continue
+    }
+    if (term.problems.length) continue
+    const amp: Amp = { legs: order.map(l => ({ label: l })), helicities: order.map(l => process.helicities[l - 1]!) }
+    const top: [number, number] = [pos.get(shift[0])!, pos.get(shift[1])!]
+    const found = readAmp(ctx, amp, inner, null, () => '', top)
+    issues.push(...found.issues)
+    term.problems.push(...found.issues.map(x => x.message))
+    const part = found.part
+    if (!part || part.kind !== 'term') {
+      // Say which lines separate the shifted legs without being a channel of the shift.
+      const message = lineProblems(ctx, inner, comp.lineIds, shift, order, issues)
+      term.problems.push(message)
+      issues.push({ id: inner[0]!, on: 'node', level: 'error', message })
+      continue
+    }
+    const left = part.L.map(t => order[t]!).sort((a, b) => a - b)
+    term.channel = { left, helicity: part.helicity }
+    term.label = channelLabel(term.channel)
+    term.lineId = part.line
+    const collect = (x: DrawnPart, out: string[]) => {
+      if (x.kind === 'term') { collect(x.left, out); collect(x.right, out) }
+      else out.push(x.node)
+    }
+    collect(part.left, term.leftNodeIds)
+    collect(part.right, term.rightNodeIds)
+    term.live = liveChannels(ctx.p, amp.helicities, top).some(c => c.helicity === part.helicity && c.L.length === part.L.length && c.L.every((u, k) => u === part.L[k]))
+    term.plan = part
+    term.valid = found.issues.length === 0
+  }
+  return { shift, terms, issues }
+}
+
+/** The message for a complete term with no channel Line, naming the lines on the path between the shifted legs. */
+function lineProblems(ctx: Ctx, inner: string[], lineIds: string[], shift: [number, number], order: number[], issues: DrawnIssue[]): string {
+  const [i, j] = shift
+  const sh = `[${i}, ${j}⟩`
+  const inside = new Set(inner)
+  for (const edge of lineIds) {
+    const e = ctx.edgeById.get(edge)
+    if (!e || !inside.has(e.source) || !inside.has(e.target)) continue
+    // Labels on the source side.
+    const legs: number[] = []
+    const seen = new Set([e.source])
+    const stack = [e.source]
+    while (stack.length) {
+      const x = stack.pop()!
+      for (const s of ctx.slots.get(x)!) {
+        if (s.edge === edge) continue
+        if (s.leg !== null) legs.push(s.leg)
+        if (s.to && !seen.has(s.to)) { seen.add(s.to); stack.push(s.to) }
+      }
+    }
+    if (legs.includes(i) === legs.includes(j)) continue
+    const side = (legs.includes(i) ? legs : order.filter(l => !legs.includes(l))).sort((a, b) => a - b)
+    const other = order.filter(l => !side.includes(l)).sort((a, b) => a - b)
+    const why = ctx.p.colourOrdered ? 'its legs are not consecutive in the colour order' : 'each side needs at least two legs'
+    issues.push({ id: edge, on: 'edge', level: 'error', message: `line ${ctx.lineName(edge)} separates ${channelText(side)} from ${channelText(other)}: not a channel of ${sh} (${why})` })
+  }
+  return `no line of this term separates a channel of ${sh}: its top-level line must have the shifted leg ${i} on one side and ${j} on the other, with a channel of the shift on each side`
+}

@@ -1,0 +1,71 @@
+// A stored check of a diagram with drawn terms evaluates the drawing: the complete six-gluon
+// expansion agrees with Berends–Giele, the same drawing with one channel term removed disagrees and
+// names the channel, and the stored check keeps the comparison.
+import { beforeAll, describe, expect, it } from 'vitest'
+import { projectWithRoles } from '../helpers/api'
+import { expandedGraph } from '../../shared/editor/demo'
+import { validateGraph } from '../../shared/editor/validate'
+import type { EditorEdge, EditorNode } from '../../shared/editor/types'
+import { DrawingResultSchema } from '../../shared/schemas/drawing'
+import type { Graph } from '../../shared/schemas/graph'
+
+type Roles = Awaited<ReturnType<typeof projectWithRoles>>
+let r: Roles
+
+async function diagramWith(graph: Graph) {
+  const res = await r.owner.post(`/api/projects/${r.project.id}/diagrams`, { title: 'Drawn check', graph })
+  expect(res.status, JSON.stringify(res.body)).toBe(201)
+  return res.body as { id: number, version: number }
+}
+
+beforeAll(async () => {
+  r = await projectWithRoles()
+})
+
+describe('checks of a drawing', () => {
+  const full = expandedGraph({ theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], shift: [1, 2] }, true)
+  const terms = validateGraph(full.nodes as EditorNode[], full.edges as EditorEdge[], full.process).drawing.terms
+
+  it('the complete drawing agrees, with every drawn term and the recursion beside it', async () => {
+    const d = await diagramWith(full)
+    const res = await r.editor.post(`/api/diagrams/${d.id}/checks`, { kinematics: { kind: 'random', seed: 4 } })
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    expect(res.body.verdict).toBe('agrees')
+    const drawing = res.body.result.drawing
+    expect(DrawingResultSchema.safeParse(drawing).success).toBe(true)
+    expect(drawing.comparison).toMatchObject({ complete: true, missing: [], duplicated: [], foreign: [], wrongHelicity: [], messages: [] })
+    expect(drawing.terms).toHaveLength(terms.length)
+    expect(res.body.result.value).toEqual(drawing.sum)
+    expect(drawing.recursion.verdict).toBe('agrees')
+    expect(res.body.result.target.name).toBe('berends-giele')
+    expect(res.body.summary.drawing).toMatchObject({ terms: terms.length, complete: true })
+    const again = await r.viewer.get(`/api/checks/${res.body.id}`)
+    expect(again.body.result.drawing.comparison.complete).toBe(true)
+  })
+
+  it('one channel term removed: disagrees, naming the missing channel', async () => {
+    const gone = terms[0]!
+    const ids = new Set(gone.nodeIds)
+    const graph: Graph = { ...full, nodes: full.nodes.filter(n => !ids.has(n.id)), edges: full.edges.filter(e => !ids.has(e.source) && !ids.has(e.target)) }
+    const d = await diagramWith(graph)
+    const res = await r.editor.post(`/api/diagrams/${d.id}/checks`, { kinematics: { kind: 'random', seed: 4 } })
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    expect(res.body.verdict).toBe('disagrees')
+    const want = `channel {${gone.channel!.left.join(',')}} with internal helicity ${gone.channel!.helicity > 0 ? '+' : '−'}`
+    const drawing = res.body.result.drawing
+    expect(drawing.comparison.complete).toBe(false)
+    expect(drawing.comparison.missing.length + drawing.comparison.incomplete.length).toBeGreaterThan(0)
+    expect(drawing.message).toContain(want)
+    expect(res.body.summary.drawing.message).toContain(want)
+    // The process's own recursion still agrees: the drawing is what is wrong.
+    expect(drawing.recursion.verdict).toBe('agrees')
+  })
+
+  it('a diagram without drawn terms keeps the process check', async () => {
+    const d = await diagramWith({ schemaVersion: 1, process: full.process, nodes: [], edges: [] })
+    const res = await r.editor.post(`/api/diagrams/${d.id}/checks`, { kinematics: { kind: 'random', seed: 4 } })
+    expect(res.status).toBe(201)
+    expect(res.body.verdict).toBe('agrees')
+    expect(res.body.result.drawing).toBeUndefined()
+  })
+})
