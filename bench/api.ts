@@ -1,4 +1,4 @@
-// Load figures of the evaluation service (issue 4 "Speed and load"): the built server on loopback,
+// Load figures of the evaluation service: the built server on loopback,
 // driven by autocannon. Run: `npm run bench:api` (after a build; POLEWRIGHT_BENCH_OUTPUT picks
 // another build folder, --quick shortens every run).
 //   1. 6-gluon MHV and NMHV at 32 connections: req/s, p50, p99, errors.

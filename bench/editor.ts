@@ -1,4 +1,4 @@
-// Editor figures (issue 5 "Speed"): `node bench/run.mjs editor` after a build
+// Editor figures: `node bench/run.mjs editor` after a build
 // (POLEWRIGHT_BENCH_OUTPUT picks another build folder).
 //   1. Expand + layout of an 8-gluon NMHV recursion fully to three-point vertices: the pure
 //      functions in node, and end to end in chromium (click → every node rendered), cold (term tree

@@ -1,4 +1,4 @@
-// Engine benchmark (issue 3 "Speed"): per n = 4..12 and helicity class, BCFW float time,
+// Engine benchmark: per n = 4..12 and helicity class, BCFW float time,
 // Berends–Giele float time, their ratio, exact BCFW time, agreement and heap growth.
 // Run: node bench/run.mjs  [--quick] [--exact]
 import { complexField as C, rationalField as Q } from '../shared/physics/field'

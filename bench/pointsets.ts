@@ -1,4 +1,4 @@
-// Batch-check throughput (issue 6 "Speed"): the built server on loopback evaluates a six-gluon NMHV
+// Batch-check throughput: the built server on loopback evaluates a six-gluon NMHV
 // process (−−−+++) over a generated set of 10,000 physical points (RAMBO) in its worker pool,
 // streaming progress over SSE; we time it end to end and sample the server's resident memory.
 // Run: `npm run bench -- pointsets` or `node bench/run.mjs pointsets [--points=N]` after a build

@@ -1,8 +1,10 @@
 // Runs a benchmark: `node bench/run.mjs [name] [args…]` bundles bench/<name>.ts (default: engine)
 // with esbuild (installed with Nuxt) and runs it with --expose-gc; a bench/<name>.mjs runs as is.
+// Its output goes to the terminal and replaces the benchmark's section of bench/RESULTS.md.
 import { build } from 'esbuild'
-import { spawnSync } from 'node:child_process'
-import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs'
+import { spawn, spawnSync } from 'node:child_process'
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
+import { loadavg, tmpdir } from 'node:os'
 import { join, dirname } from 'node:path'
 import { fileURLToPath } from 'node:url'
 
@@ -23,6 +25,28 @@ if (existsSync(ts)) {
   console.error(`no benchmark bench/${name}.ts or bench/${name}.mjs`)
   process.exit(2)
 }
-const r = spawnSync(process.execPath, ['--expose-gc', entry, ...args], { stdio: 'inherit', cwd: join(here, '..') })
+const child = spawn(process.execPath, ['--expose-gc', entry, ...args], { stdio: ['inherit', 'pipe', 'inherit'], cwd: join(here, '..') })
+let out = ''
+child.stdout.on('data', (d) => {
+  process.stdout.write(d)
+  out += d
+})
+const status = await new Promise(resolve => child.on('close', resolve))
 if (dir) rmSync(dir, { recursive: true, force: true })
-process.exit(r.status ?? 1)
+if (status === 0) writeResults(name, args, out)
+process.exit(status ?? 1)
+
+/** Replaces the section of bench/RESULTS.md between `<!-- bench:name -->` markers (or appends it). */
+function writeResults(name, args, text) {
+  const file = join(here, 'RESULTS.md')
+  const head = '# Benchmark results\n\nWritten by `node bench/run.mjs <name>` (`npm run bench*`); each section is replaced by the next run of its benchmark. Figures depend on the machine and its load: compare runs of one machine only.\n'
+  const old = existsSync(file) ? readFileSync(file, 'utf8') : head
+  const open = `<!-- bench:${name} -->`
+  const close = `<!-- /bench:${name} -->`
+  const when = new Date().toISOString().slice(0, 16).replace('T', ' ')
+  const body = `${open}\n## ${name}\n\n\`node bench/run.mjs ${[name, ...args].join(' ')}\` — ${when} UTC, load average ${loadavg()[0].toFixed(1)} at the end\n\n${text.trim()}\n${close}`
+  const a = old.indexOf(open)
+  const b = old.indexOf(close)
+  const next = a >= 0 && b > a ? old.slice(0, a) + body + old.slice(b + close.length) : `${old.trimEnd()}\n\n${body}\n`
+  writeFileSync(file, next)
+}

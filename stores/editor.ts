@@ -11,7 +11,7 @@ import type { BlockData, EditorEdge, EditorNode, LegData, LineData, NodeKind } f
 import { validateGraph, particleSpin } from '~~/shared/editor/validate'
 import { blockPaths, collapseSpec, compId, expandAllSpecs, expandSpec, specsToGraph, topSpecs, type CompSpec } from '~~/shared/editor/expand'
 import { matchTerms, processFromCanvas, processKey } from '~~/shared/editor/process'
-import { layoutGraph } from '~~/composables/useLayout'
+import { layoutGraph } from '~~/shared/editor/layout'
 
 export interface Expansion {
   /** processKey() of the process it was made for. */

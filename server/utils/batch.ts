@@ -8,7 +8,8 @@ import { ENGINE_VERSION } from '../../shared/physics/index'
 import type { EvaluateRequestInput, EvaluateResponse } from '../../shared/schemas/evaluate'
 import type { Process } from '../../shared/schemas/graph'
 import { VERDICTS, type BatchProgressView, type PointData, type Verdict } from '../../shared/pointsets'
-import { checkOrder, isIdentity } from '../workers/tasks'
+import { checkOrder, effectiveOrder, inOrder, shiftInOrder } from '../../shared/physics/colour-order'
+import { isColourOrdered, pdgOf } from '../../shared/physics/theories'
 
 type CheckRow = typeof tables.checks.$inferSelect
 
@@ -17,9 +18,6 @@ export const BATCH_CHUNK = 250
 /** Batches running at once (the pool is shared; more wait as "queued"). */
 const MAX_RUNNING = 2
 const TERMINAL = new Set(['done', 'failed', 'cancelled'])
-const COLOUR_ORDERED = new Set(['gluon', 'scalar-cubic'])
-/** Particle codes a process needs on every leg of an event (PDG numbering: gluon 21, graviton 39). */
-const CODE_OF: Partial<Record<Process['theory'], number>> = { gluon: 21, graviton: 39 }
 
 export type BatchProgress = BatchProgressView
 
@@ -50,9 +48,8 @@ export interface BatchPlan {
 
 export function requestFor(plan: BatchPlan, data: PointData): EvaluateRequestInput {
   const { process: p } = plan
-  const order = p.order && COLOUR_ORDERED.has(p.theory) && !isIdentity(p.order) ? p.order : null
-  const pick = <T>(xs: T[]): T[] => (order ? order.map(l => xs[l - 1]!) : xs)
-  const pos = order ? new Map(order.map((l, k) => [l, k + 1])) : null
+  const order = effectiveOrder(p.theory, p.order)
+  const pick = <T>(xs: T[]): T[] => (order ? inOrder(xs, order) : xs)
   const shift = plan.shift ?? p.shift
   return {
     theory: p.theory,
@@ -61,7 +58,7 @@ export function requestFor(plan: BatchPlan, data: PointData): EvaluateRequestInp
     kinematics: data.momenta
       ? { kind: 'momenta', momenta: pick(data.momenta) }
       : { kind: 'spinors', lambda: pick(data.lambda!), lambdaTilde: pick(data.lambdaTilde!) },
-    ...(shift ? { shift: (pos ? shift.map(l => pos.get(l) ?? l) : shift) as [number, number] } : {}),
+    ...(shift ? { shift: order ? shiftInOrder(shift, order) : shift } : {}),
     target: plan.target,
     arithmetic: 'float',
   }
@@ -69,8 +66,8 @@ export function requestFor(plan: BatchPlan, data: PointData): EvaluateRequestInp
 
 /** Why a point's particles do not fit the process, or null. */
 export function codeMismatch(theory: Process['theory'], codes: number[] | undefined): string | null {
-  const want = CODE_OF[theory]
-  if (!codes || want === undefined) return null
+  const want = pdgOf(theory)
+  if (!codes || want === null) return null
   const k = codes.findIndex(c => c !== want)
   return k < 0 ? null : `leg ${k + 1} has particle code ${codes[k]}; a ${theory} process needs code ${want} on every leg`
 }
@@ -79,7 +76,7 @@ export function codeMismatch(theory: Process['theory'], codes: number[] | undefi
 export function checkPlan(plan: BatchPlan, set: typeof tables.pointSets.$inferSelect) {
   const n = plan.process.helicities.length
   if (set.n !== n) throw fieldError(422, 'pointSetId', `the point set "${set.name}" has ${set.n} legs per point; the process has ${n}`)
-  if (plan.process.order && COLOUR_ORDERED.has(plan.process.theory)) {
+  if (plan.process.order && isColourOrdered(plan.process.theory)) {
     try {
       checkOrder(plan.process.order, n)
     }

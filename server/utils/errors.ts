@@ -7,7 +7,7 @@ const statusMessages: Record<number, string> = {
   413: 'Payload Too Large', 415: 'Unsupported Media Type', 422: 'Unprocessable Entity', 429: 'Too Many Requests', 503: 'Service Unavailable',
 }
 
-/** An h3 error whose message starts with the field path, as API.md requires. */
+/** An h3 error whose message starts with the field path, as docs/api.md "Errors" requires. */
 export function fieldError(statusCode: number, field: string, message: string, data: Record<string, unknown> = {}) {
   return createError({
     statusCode,

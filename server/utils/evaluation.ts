@@ -1,5 +1,5 @@
 // The evaluation routes' glue: cheap checks before any work (limits, shift), the time budget of
-// a request, cancelling when the client goes away, and pool failures as API.md's errors.
+// a request, cancelling when the client goes away, and pool failures as the errors of docs/api.md.
 import type { H3Event } from 'h3'
 import { PhysicsError } from '../../shared/physics/errors'
 import { checkShift, validateProcess, type TheoryName } from '../../shared/physics/theories'
@@ -29,7 +29,7 @@ export function physicsHttpError(e: PhysicsError, prefix = '') {
   return createError({ statusCode: 422, statusMessage: 'Unprocessable Entity', message: `${prefix}${e.message}`, data: { field: `${prefix}${e.field}` } })
 }
 
-/** An EvaluationError from the pool as the h3 error API.md describes; other errors pass through. */
+/** An EvaluationError from the pool as the h3 error docs/api.md describes; other errors pass through. */
 export function evaluationHttpError(e: unknown, rootFields: (field: string) => string = f => f) {
   if (!(e instanceof EvaluationError)) return e
   const field = e.field ? rootFields(e.field) : ''

@@ -133,7 +133,7 @@ export async function runInPool<T>(task: Task, opts: PoolOptions = {}): Promise<
   return { value: unwrap<T>(o), thread: o.ok ? o.thread : 0 }
 }
 
-/** One evaluation (API.md "Evaluation"), off the request thread. `order`: a colour order of the labels. */
+/** One evaluation (docs/api.md "Evaluation request"), off the request thread. `order`: a colour order of the labels. */
 export async function evaluateInPool(req: EvaluateRequestInput, opts: PoolOptions & { order?: number[] } = {}): Promise<EvaluateResponse> {
   const { order, ...rest } = opts
   return (await runInPool<EvaluateResponse>({ kind: 'evaluate', req, ...(order ? { order } : {}) }, rest)).value

@@ -18,13 +18,13 @@ import {
   floatTolerance,
   kinToWire,
   probeFalloff,
-  processOf,
   validateProcess,
   type Field,
 } from '../../shared/physics/index'
-import { TARGETS } from '../../shared/physics/targets/index'
+import { TARGET_INFO } from '../../shared/physics/targets/index'
 import { checkLimit } from '../../shared/physics/checks/index'
 import type { LimitCheckRequestInput } from '../../shared/schemas/limit-checks'
+import { checkOrder, effectiveOrder, inOrder, isIdentity, responseToLabels, shiftInOrder } from '../../shared/physics/colour-order'
 import { MAX_SPIN } from '../../shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
 import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
@@ -119,25 +119,8 @@ const round3 = (ms: number) => Math.round(ms * 1000) / 1000
 // shift) and the answer is mapped back to the diagram's labels. A seeded point belongs to the
 // labels 1..n: leg σ_k keeps the momentum it has in the natural order.
 
-const COLOUR_ORDERED = new Set(['gluon', 'scalar-cubic'])
-
-export function isIdentity(order: readonly number[]): boolean {
-  return order.every((l, k) => l === k + 1)
-}
-
-/** Checks that an order is a permutation of 1..n (PhysicsError on `order`). */
-export function checkOrder(order: readonly number[], n: number): void {
-  if (order.length !== n) throw new PhysicsError('order', `${order.length} labels given for ${n} legs`)
-  const seen = new Set<number>()
-  order.forEach((l, k) => {
-    if (!Number.isInteger(l) || l < 1 || l > n) throw new PhysicsError(`order[${k}]`, `leg ${l} does not exist (legs are 1..${n})`)
-    if (seen.has(l)) throw new PhysicsError(`order[${k}]`, `leg ${l} appears twice; the colour order must name every leg once`)
-    seen.add(l)
-  })
-}
-
 function permuteKinematics(kin: Kinematics, order: number[], n: number, arithmetic: 'float' | 'exact'): { kin: Kinematics; seeded: boolean } {
-  const pick = <T>(xs: readonly T[]): T[] => order.map((l) => xs[l - 1]!)
+  const pick = <T>(xs: readonly T[]): T[] => inOrder(xs, order)
   switch (kin.kind) {
     case 'spinors':
     case 'exact-spinors':
@@ -160,55 +143,27 @@ function permuteKinematics(kin: Kinematics, order: number[], n: number, arithmet
   }
 }
 
-function relabelLegs(x: unknown, order: number[]): unknown {
-  if (Array.isArray(x)) return x.map((y) => relabelLegs(y, order))
-  if (x && typeof x === 'object') {
-    const o = x as Record<string, unknown>
-    if (typeof o.label === 'number' && Object.keys(o).length === 1) return { label: order[o.label - 1] }
-    const out: Record<string, unknown> = {}
-    for (const [k, v] of Object.entries(o)) out[k] = k === 'legs' || k === 'leftLegs' || k === 'children' || k === 'left' || k === 'right' || k === 'terms' ? relabelLegs(v, order) : v
-    return out
-  }
-  return x
-}
-
 /** Evaluates a request whose labels 1..n are taken in the colour order `order`. */
 export function evaluateInOrder(input: EvaluateRequestInput, order: number[]): EvaluateResponse {
   const req = EvaluateRequestSchema.parse(input)
   const n = req.helicities.length
-  if (!COLOUR_ORDERED.has(req.theory) || isIdentity(order)) {
+  if (!effectiveOrder(req.theory, order)) {
     const res = evaluate(req)
     if (!isIdentity(order)) res.warnings.unshift(`order: ignored, ${req.theory === 'spin' ? `spin ${req.spin}` : req.theory} amplitudes carry no colour order`)
     return res
   }
   checkOrder(order, n)
-  const pos = new Map(order.map((l, k) => [l, k + 1]))
   const { kin, seeded } = permuteKinematics(req.kinematics, order, n, req.arithmetic)
   const res = evaluate({
     ...req,
-    helicities: order.map((l) => req.helicities[l - 1]!),
+    helicities: inOrder(req.helicities, order),
     kinematics: kin,
-    shift: req.shift ? (req.shift.map((l) => pos.get(l) ?? l) as [number, number]) : undefined,
+    shift: req.shift ? shiftInOrder(req.shift as [number, number], order) : undefined,
   })
-  const back = <T>(xs: T[]): T[] => {
-    const out = new Array<T>(n)
-    xs.forEach((x, k) => (out[order[k]! - 1] = x))
-    return out
-  }
   // Re-solving the last two square spinors of a seeded point only absorbs rounding: not news.
   const warnings = res.warnings.filter((w) => !(seeded && w.startsWith('kinematics: exact momentum conservation restored')))
   warnings.unshift(`order: evaluated in the colour order (${order.join(', ')}); legs in the warnings below are numbered by their position in that order`)
-  return {
-    ...res,
-    shift: [order[res.shift[0] - 1]!, order[res.shift[1] - 1]!],
-    terms: res.terms.map((t): WireTerm => ({
-      ...t,
-      left: t.left.map((p) => order[p - 1]!).sort((a, b) => a - b),
-      children: t.children ? (relabelLegs(t.children, order) as WireTerm['children']) : null,
-    })),
-    kinematics: { lambda: back(res.kinematics.lambda), lambdaTilde: back(res.kinematics.lambdaTilde) },
-    warnings,
-  }
+  return { ...responseToLabels(res, order), warnings }
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -285,13 +240,6 @@ const KINEMATICS_INFO: Record<Kinematics['kind'], { description: string; arithme
   physical: { description: 'A seeded physical point by RAMBO: legs 1 and 2 incoming along ±z with total energy √s = energy (default 1), crossed to all-outgoing.', arithmetic: ['float'], fields: ['seed', 'energy'] },
 }
 
-const HELICITY_INFO: Record<string, string> = {
-  gluon: '±1',
-  graviton: '±2',
-  'scalar-cubic': '0',
-  spin: '±s (integer s given as `spin`; s ≠ 2 only at n = 4)',
-}
-
 const FORMULA_SYNTAX = [
   { form: '<1 2>', meaning: 'angle bracket ⟨12⟩ (also <12> and <1,2> for n ≤ 9)' },
   { form: '[1 2]', meaning: 'square bracket [12]' },
@@ -312,18 +260,19 @@ export const VERDICTS = [
 
 function catalogue() {
   const theories = Object.values(THEORIES).map((t) => {
-    const s = processOf(t.name, t.name === 'spin' ? 2 : undefined).s
+    const s = t.species[0]!.spin
     return {
       name: t.name,
       label: t.label,
       colourOrdered: t.colourOrdered,
-      helicities: t.name === 'spin' ? null : t.name === 'scalar-cubic' ? [0] : [-s, s],
-      helicityRule: HELICITY_INFO[t.name],
-      needsSpin: t.name === 'spin',
-      ...(t.name === 'spin' ? { maxSpin: MAX_SPIN } : {}),
+      species: t.species,
+      helicities: s === null ? null : s === 0 ? [0] : [-s, s],
+      helicityRule: t.helicityRule,
+      needsSpin: t.needsSpin,
+      ...(t.needsSpin ? { maxSpin: MAX_SPIN } : {}),
       minLegs: t.minLegs,
-      limits: t.limits,
-      targets: [...TARGETS.filter((x) => x.theories.includes(t.name)).map((x) => x.name), 'formula', 'none'],
+      limits: { float: t.limits.float, exact: t.limits.exact },
+      targets: [...TARGET_INFO.filter((x) => x.theories.includes(t.name)).map((x) => x.name), 'formula', 'none'],
       ...(t.name === 'spin' ? { targetsNote: 'hodges and klt apply to spin 2 only; for any other s, auto means none' } : {}),
     }
   })
@@ -332,7 +281,7 @@ function catalogue() {
     theories,
     targets: [
       { name: 'auto', label: 'automatic', theories: Object.keys(THEORIES), description: 'The best independent target for the theory and helicities (none for spin s ≠ 2).', source: '' },
-      ...TARGETS,
+      ...TARGET_INFO,
       { name: 'formula', label: 'your formula', theories: Object.keys(THEORIES), description: 'An expression in bracket notation, sent as { "formula": "…" }.', source: '' },
       { name: 'none', label: 'none', theories: Object.keys(THEORIES), description: 'No comparison; the verdict is "not evaluated".', source: '' },
     ],

@@ -154,7 +154,7 @@ export const API_SECTIONS: ApiSection[] = [
       },
       { id: 'catalogue', method: 'GET', path: '/api/catalogue', access: 'signed in', summary: 'What the engine offers: theories and their helicities, targets per theory, limits, kinematics kinds, arithmetics and tolerances, verdicts, the formula syntax, the time budget.', response: '`{ engine, theories[], targets[], limits[], kinematics[], arithmetics[], verdicts[], formula, shifts, service }`.', statuses: [[200, 'the catalogue'], ...commonErrors], runnable: true },
       {
-        id: 'shifts', method: 'POST', path: '/api/shifts', access: 'signed in', summary: 'Every [i,j⟩ shift of a process with its large-z falloff exponent and validity — from the table of CONVENTIONS.md, or measured exactly with `measure: true` (n ≤ 7 gluons, 6 gravitons, 8 cubic scalars; the catalogue lists the limits).',
+        id: 'shifts', method: 'POST', path: '/api/shifts', access: 'signed in', summary: 'Every [i,j⟩ shift of a process with its large-z falloff exponent and validity — from the table of valid shifts (docs/conventions.md "Falloff"), or measured exactly with `measure: true` (n ≤ 7 gluons, 6 gravitons, 8 cubic scalars; the catalogue lists the limits).',
         schema: ShiftsRequestSchema,
         examples: [
           example(ShiftsRequestSchema, 'the table for six gluons', { theory: 'gluon', helicities: [-1, -1, 1, -1, 1, 1] }),

@@ -1,6 +1,8 @@
 // The parts of GET /api/catalogue the editor reads (the route returns more).
+import { THEORIES, type TheoryName } from '../physics/theories'
+
 export interface CatalogueTheory {
-  name: 'gluon' | 'graviton' | 'scalar-cubic' | 'spin'
+  name: TheoryName
   label: string
   colourOrdered: boolean
   helicities: number[] | null
@@ -9,6 +11,18 @@ export interface CatalogueTheory {
   limits: { float: number, exact: number }
   targets: string[]
 }
+
+/** The theories from the registry, for the editor before the catalogue has loaded. */
+export const FALLBACK_THEORIES: CatalogueTheory[] = Object.values(THEORIES).map(t => ({
+  name: t.name,
+  label: t.label,
+  colourOrdered: t.colourOrdered,
+  helicities: t.species[0]!.spin === null ? null : t.species[0]!.spin === 0 ? [0] : [-t.species[0]!.spin, t.species[0]!.spin],
+  needsSpin: t.needsSpin,
+  minLegs: t.minLegs,
+  limits: { float: t.limits.float, exact: t.limits.exact },
+  targets: [],
+}))
 
 export interface Catalogue {
   engine: { version: string }

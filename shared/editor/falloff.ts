@@ -1,5 +1,5 @@
 // The points of the falloff plot: A(z) at the [i,j⟩-shifted point for growing z, each from one
-// exact evaluation on the server (CONVENTIONS.md "Numerical advice": double precision cannot
+// exact evaluation on the server (docs/conventions.md "Falloff": double precision cannot
 // measure large-z behaviour, so the shifted point is an exact rational point; it stays on shell
 // and momentum-conserving, so A(z) there comes from the recursion under another, valid shift).
 import type { WireComplex } from '../schemas/evaluate'

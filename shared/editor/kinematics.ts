@@ -1,4 +1,4 @@
-// The kinematics panel's choices turned into the request's `kinematics` (API.md), with pasted
+// The kinematics panel's choices turned into the request's `kinematics` (docs/api.md), with pasted
 // spinors or momenta checked against the same schema the server uses, errors naming the field.
 import { KinematicsSchema, zodIssuePath, type Kinematics } from '../schemas/evaluate'
 

@@ -1,7 +1,8 @@
 // LaTeX for what the editor shows through KatexMath: each three-point vertex by the
-// little-group formula of CONVENTIONS.md "Amplitudes", each channel term, a process.
+// little-group formula of docs/conventions.md "Amplitudes and normalisations", each channel term, a process.
 import type { Process } from '../schemas/graph'
 import { helicityText } from './types'
+import { THEORIES } from '../physics/theories'
 
 /** A leg name in TeX: labels as they are, lines L3 as P_{3}, the shifted legs hatted. */
 export function legTex(name: string, hatted: string[] = []): string {
@@ -16,7 +17,7 @@ function bracket(kind: 'angle' | 'square', a: string, b: string): string {
 /**
  * The three-point amplitude of a vertex with legs (a, b, c) and helicities (h1, h2, h3):
  * angle ⟨12⟩^(h3−h1−h2)⟨23⟩^(h1−h2−h3)⟨31⟩^(h2−h3−h1); square σ[12]^(h1+h2−h3)[23]^(h2+h3−h1)[31]^(h3+h1−h2),
- * σ = (−1)^s (CONVENTIONS.md); the cubic scalar's is 1.
+ * σ = (−1)^s (docs/conventions.md); the cubic scalar's is 1.
  */
 export function vertexTex(kind: 'angle' | 'square', legs: string[], h: number[], s: number | null, hatted: string[] = []): string {
   if (legs.length !== 3 || h.length !== 3) return kind === 'angle' ? 'A_3^{\\langle\\rangle}' : 'A_3^{[\\,]}'
@@ -34,7 +35,7 @@ export function vertexTex(kind: 'angle' | 'square', legs: string[], h: number[],
   return `${sigma}\\frac{${num || '1'}}{${den}}`
 }
 
-/** A channel term: A_L(…, −P̂^h) A_R(…, P̂^−h) / P²_L (CONVENTIONS.md "BCFW"). */
+/** A channel term: A_L(…, −P̂^h) A_R(…, P̂^−h) / P²_L (docs/conventions.md "BCFW"). */
 export function termTex(left: number[], right: number[], h: number, shift?: [number, number]): string {
   const hat = (l: number) => (shift && (l === shift[0] || l === shift[1]) ? `\\hat{${l}}` : String(l))
   const hs = (x: number) => (x === 0 ? '' : `^{${helicityText(x).replace('−', '-')}}`)
@@ -47,6 +48,5 @@ export function termTex(left: number[], right: number[], h: number, shift?: [num
 export function processTex(p: Process): string {
   const order = p.order && p.order.length === p.helicities.length ? p.order : p.helicities.map((_, t) => t + 1)
   const legs = order.map(l => `${l}^{${helicityText(p.helicities[l - 1]!).replace('−', '-')}}`)
-  const name = p.theory === 'graviton' ? 'M' : 'A'
-  return `${name}_{${p.helicities.length}}(${legs.join(',')})`
+  return `${THEORIES[p.theory].amplitudeLatex}_{${p.helicities.length}}(${legs.join(',')})`
 }

@@ -2,6 +2,8 @@
 // POST /api/evaluate, the colour order, and which channel terms of the shift the canvas holds.
 import type { Process } from '../schemas/graph'
 import type { EvaluateRequestInput, EvaluateResponse, Kinematics, WireTerm } from '../schemas/evaluate'
+import { inOrder, orderProblem, responseToLabels, shiftInOrder } from '../physics/colour-order'
+import { THEORIES, theoryOfSpin } from '../physics/theories'
 import type { EditorEdge, EditorNode, LegData } from './types'
 import type { Component } from './validate'
 import { helicityAt, isExternal } from './validate'
@@ -14,14 +16,8 @@ export function orderOf(p: Process): number[] {
 
 /** Checks a colour order: a permutation of 1..n. Returns an error message or null. */
 export function orderError(order: number[], n: number): string | null {
-  if (order.length !== n) return `order: ${order.length} labels given for ${n} legs`
-  const seen = new Set<number>()
-  for (const l of order) {
-    if (!Number.isInteger(l) || l < 1 || l > n) return `order: leg ${l} does not exist (legs are 1..${n})`
-    if (seen.has(l)) return `order: leg ${l} appears twice`
-    seen.add(l)
-  }
-  return null
+  const e = orderProblem(order, n)
+  return e ? `order: ${e.message}` : null
 }
 
 /**
@@ -30,13 +26,12 @@ export function orderError(order: number[], n: number): string | null {
  */
 export function evaluateRequest(p: Process, opts: { kinematics: Kinematics | EvaluateRequestInput['kinematics'], target?: EvaluateRequestInput['target'], arithmetic?: 'float' | 'exact', tree?: boolean, probeFalloff?: boolean }): EvaluateRequestInput {
   const order = orderOf(p)
-  const pos = (label: number) => order.indexOf(label) + 1
   return {
     theory: p.theory,
-    ...(p.theory === 'spin' ? { spin: p.spin } : {}),
-    helicities: order.map(l => p.helicities[l - 1]!),
+    ...(THEORIES[p.theory].needsSpin ? { spin: p.spin } : {}),
+    helicities: inOrder(p.helicities, order),
     kinematics: opts.kinematics,
-    ...(p.shift ? { shift: [pos(p.shift[0]), pos(p.shift[1])] as [number, number] } : {}),
+    ...(p.shift ? { shift: shiftInOrder(p.shift, order) } : {}),
     target: opts.target ?? 'auto',
     arithmetic: opts.arithmetic ?? 'float',
     tree: opts.tree ?? false,
@@ -49,43 +44,13 @@ export function labelMap(p: Process): (pos: number) => number {
   return pos => order[pos - 1] ?? pos
 }
 
-function relabelLegs(x: unknown, order: number[]): unknown {
-  if (Array.isArray(x)) return x.map(y => relabelLegs(y, order))
-  if (x && typeof x === 'object') {
-    const o = x as Record<string, unknown>
-    if (typeof o.label === 'number' && Object.keys(o).length === 1) return { label: order[o.label - 1] ?? o.label }
-    const out: Record<string, unknown> = {}
-    for (const [k, v] of Object.entries(o)) out[k] = k === 'legs' || k === 'leftLegs' || k === 'children' || k === 'left' || k === 'right' || k === 'terms' ? relabelLegs(v, order) : v
-    return out
-  }
-  return x
-}
-
 /**
  * A response of POST /api/evaluate for evaluateRequest(p) in the diagram's labels: positions in
  * the colour order become leg labels (as the stored checks already report them).
  */
 export function toLabels(r: EvaluateResponse, p: Process): EvaluateResponse {
-  const order = orderOf(p)
-  if (order.every((l, k) => l === k + 1)) return r
-  const back = <T>(xs: T[]): T[] => {
-    const out = new Array<T>(xs.length)
-    xs.forEach((x, k) => (out[order[k]! - 1] = x))
-    return out
-  }
-  return {
-    ...r,
-    shift: [order[r.shift[0] - 1]!, order[r.shift[1] - 1]!],
-    terms: r.terms.map(t => ({
-      ...t,
-      left: t.left.map(q => order[q - 1]!).sort((a, b) => a - b),
-      children: t.children ? (relabelLegs(t.children, order) as WireTerm['children']) : null,
-    })),
-    kinematics: { lambda: back(r.kinematics.lambda), lambdaTilde: back(r.kinematics.lambdaTilde) },
-  }
+  return responseToLabels(r, orderOf(p))
 }
-
-const THEORY_OF_SPIN: Record<number, Process['theory']> = { 0: 'scalar-cubic', 1: 'gluon', 2: 'graviton' }
 
 /**
  * The process a hand-built canvas describes: helicities by leg label from its legs. Returns the
@@ -106,11 +71,11 @@ export function processFromCanvas(nodes: EditorNode[], base?: Process): { proces
   const helicities = Array.from({ length: n }, (_, t) => byLabel.get(t + 1)!)
   const s = Math.abs(helicities[0]!)
   if (helicities.some(h => Math.abs(h) !== s)) return { error: 'the legs mix particles of different spin; one theory at a time' }
-  const theory = base?.theory ?? THEORY_OF_SPIN[s] ?? 'spin'
+  const theory = base?.theory ?? theoryOfSpin(s)
   return {
     process: {
       theory,
-      ...(theory === 'spin' ? { spin: base?.spin ?? s } : {}),
+      ...(THEORIES[theory].needsSpin ? { spin: base?.spin ?? s } : {}),
       helicities,
       ...(base?.order && base.order.length === n ? { order: base.order } : {}),
       ...(base?.shift && base.shift.every(l => l <= n) ? { shift: base.shift } : {}),
@@ -121,7 +86,7 @@ export function processFromCanvas(nodes: EditorNode[], base?: Process): { proces
 export interface CanvasChannel {
   /** Sorted labels on the side of shifted leg i. */
   left: number[]
-  /** Helicity of the line at the end on leg i's side (API.md's term `helicity`). */
+  /** Helicity of the line at the end on leg i's side (the term `helicity` of docs/api.md). */
   helicity: number
   edgeId: string
 }

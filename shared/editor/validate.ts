@@ -1,9 +1,10 @@
 // Checks a hand-assembled (or generated) canvas node by node and says in words what is wrong,
-// on the node that is wrong. The rules are the trade's (CONVENTIONS.md "Amplitudes"):
+// on the node that is wrong. The rules are the trade's (docs/conventions.md "Amplitudes and normalisations"):
 // a three-point vertex's helicities decide its kind (Σh < 0 angle, Σh > 0 square), pure gluon
 // and graviton theories have no all-equal three-point vertex, an internal line joins opposite
 // helicities, and momentum routing closes only on a tree holding every external leg once.
 import type { Process } from '../schemas/graph'
+import { THEORIES, spinOf } from '../physics/theories'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
 import { handleIds, helicityText, sign } from './types'
 import { compileStructure, type DrawingStructure } from './drawing/structure'
@@ -45,14 +46,8 @@ export interface Validation {
 
 /** |h| of the process's particles, or null when no process is set. */
 export function particleSpin(p: Process | undefined): number | null {
-  if (!p) return null
-  if (p.theory === 'gluon') return 1
-  if (p.theory === 'graviton') return 2
-  if (p.theory === 'scalar-cubic') return 0
-  return p.spin ?? null
+  return p ? spinOf(p.theory, p.spin) : null
 }
-
-const THEORY_WORDS: Record<string, string> = { gluon: 'gluons', graviton: 'gravitons', 'scalar-cubic': 'cubic scalars', spin: 'this spin-s species' }
 
 /** The helicity an edge brings to the given end (node, handle). */
 export function helicityAt(edge: EditorEdge, nodeId: string, nodes: Map<string, EditorNode>): number | null {
@@ -123,7 +118,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
         addEdge(e.id, 'error', msg, false)
         add(e.target, 'error', msg, false)
       }
-      if (s !== null && Math.abs(d.helicity) !== s) addEdge(e.id, 'error', `helicity ${helicityText(d.helicity)} on a line of ${THEORY_WORDS[process!.theory]}, whose helicities are ${s === 0 ? '0' : `±${s}`}`)
+      if (s !== null && Math.abs(d.helicity) !== s) addEdge(e.id, 'error', `helicity ${helicityText(d.helicity)} on a line of ${THEORIES[process!.theory].particles}, whose helicities are ${s === 0 ? '0' : `±${s}`}`)
     }
   }
 
@@ -138,7 +133,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
         if (!Number.isInteger(d.label) || d.label < 1 || d.label > n) add(node.id, 'error', `leg ${d.label} does not exist (legs are 1..${n})`)
         else if (process.helicities[d.label - 1] !== d.helicity) add(node.id, 'error', `leg ${d.label} is ${helicityText(d.helicity)} here but ${helicityText(process.helicities[d.label - 1]!)} in the process`)
       }
-      if (s !== null && Math.abs(d.helicity) !== s) add(node.id, 'error', `helicity ${helicityText(d.helicity)} does not belong to ${THEORY_WORDS[process!.theory]} (${s === 0 ? '0' : `±${s}`})`)
+      if (s !== null && Math.abs(d.helicity) !== s) add(node.id, 'error', `helicity ${helicityText(d.helicity)} does not belong to ${THEORIES[process!.theory].particles} (${s === 0 ? '0' : `±${s}`})`)
       continue
     }
     const info: SlotInfo[] = []
@@ -169,7 +164,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
         const sum = hv[0]! + hv[1]! + hv[2]!
         const txt = () => `(${hv.map(sign).join(',')})`
         const allSame = hv.every(h => h > 0) || hv.every(h => h < 0)
-        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt()}: ${THEORY_WORDS[process!.theory]} have no three-point amplitude with all helicities equal`)
+        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt()}: ${THEORIES[process!.theory].particles} have no three-point amplitude with all helicities equal`)
         else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt()} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
         else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt()} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
         else if (sum === 0 && s !== 0 && s !== null) addKind(node.id, `helicities ${txt()} sum to 0: only scalars have such a vertex`)

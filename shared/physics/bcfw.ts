@@ -1,5 +1,5 @@
 // BCFW on-shell recursion (Britto, Cachazo, Feng, Witten, PRL 94 (2005) 181602) with the signs and
-// orientation of CONVENTIONS.md "BCFW": the [i,j⟩ shift λ̃_i → λ̃_i + z λ̃_j, λ_j → λ_j − z λ_i;
+// orientation of docs/conventions.md "BCFW": the [i,j⟩ shift λ̃_i → λ̃_i + z λ̃_j, λ_j → λ_j − z λ_i;
 // term(L, h) = A_L(…, −P̂^h) A_R(…, P̂^−h) / P², with −P̂ carried by (λ_P, −λ̃_P).
 import { SingularError, negligible, spinorSize, type Field } from './field'
 import { sandwichOf, type Bispinor, type Kin, type Spinor } from './spinors'

@@ -1,4 +1,4 @@
-// Physics-invalid input (API.md: 422). The message starts with the field path so the route can
+// Physics-invalid input (422, docs/api.md "Errors"). The message starts with the field path so the route can
 // pass it through unchanged; `field` carries the same path for `data.field`.
 export class PhysicsError extends Error {
   readonly status = 422

@@ -1,5 +1,5 @@
 // The large-z behaviour of A(z) along an [i,j⟩ shift. Double precision cannot measure it
-// (CONVENTIONS.md "Numerical advice"), so it is measured exactly at a seeded rational point of the
+// (docs/conventions.md "Falloff"), so it is measured exactly at a seeded rational point of the
 // same process, with A(z) at the shifted (still on-shell, momentum-conserving) point computed by
 // BCFW under another shift that is valid there.
 import { Fraction, rationalField as Q, SingularError, type Field } from './field'
@@ -68,7 +68,7 @@ export function alternativeShift(p: Process, h: readonly number[], i: number, j:
 }
 
 /**
- * A(z) at the shifted point (CONVENTIONS.md allows any exact method there): for gluons
+ * A(z) at the shifted point (docs/conventions.md allows any exact method there): for gluons
  * Parke–Taylor, BCFW under another valid shift or Berends–Giele, whichever is cheapest; the
  * planar diagram sum for the cubic scalar, the sum of all cubic diagrams for a single scalar
  * species; else BCFW under another valid shift.
@@ -151,12 +151,12 @@ export function probeFalloff(p: Process, h: number[], i: number, j: number, seed
 export interface FalloffRow {
   /** 1-based. */
   shift: [number, number]
-  /** CONVENTIONS.md table (null where it has none: spin s ≠ 2). */
+  /** docs/conventions.md falloff table (null where it has none: spin s ≠ 2). */
   exponent: number | null
   valid: boolean
 }
 
-/** Exponent and validity of every [i,j⟩ shift by CONVENTIONS.md's table, for the editor. */
+/** Exponent and validity of every [i,j⟩ shift by the falloff table (docs/conventions.md), for the editor. */
 export function falloffTable(theory: TheoryName, helicities: number[], spin?: number): FalloffRow[] {
   const p = processOf(theory, spin)
   const n = helicities.length

@@ -1,4 +1,4 @@
-// The one entry to the engine: evaluate(request) → the API.md response. The route, the worker,
+// The one entry to the engine: evaluate(request) → the response of docs/api.md. The route, the worker,
 // the batch runner and the tests all call this.
 import { Complex, Fraction, SingularError, complexField, rationalField, type Field } from './field'
 import type { Kin } from './spinors'
@@ -181,7 +181,7 @@ function resolveTarget(target: EvaluateRequestInput['target'], theory: Process['
   return { kind: 'named', name: t }
 }
 
-/** Evaluates one amplitude by on-shell recursion and compares it with its target (API.md "Evaluation"). */
+/** Evaluates one amplitude by on-shell recursion and compares it with its target (docs/api.md "Evaluation request"). */
 export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   const t0 = performance.now()
   const req = EvaluateRequestSchema.parse(input)
@@ -327,7 +327,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       verdict = 'not evaluated'
       warnings.push(`precision loss: the recursion reached about ${estimated!.toExponential(1)} relative precision at this point, above the tolerance ${floatTolerance(n).toExponential(1)}, so the deviation ${deviation!.toExponential(1)} decides nothing`)
     }
-    if (!validByTable && !vanishing) warnings.push(`shift: [${i + 1}, ${j + 1}⟩ is not a valid shift for these helicities (CONVENTIONS.md table); a boundary term is expected`)
+    if (!validByTable && !vanishing) warnings.push(`shift: [${i + 1}, ${j + 1}⟩ is not a valid shift for these helicities (by the table of valid shifts); a boundary term is expected`)
     return {
       n,
       theory,

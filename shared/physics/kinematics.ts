@@ -1,4 +1,4 @@
-// Phase-space points in spinor form (CONVENTIONS.md "Momenta and spinors"): spinors of real
+// Phase-space points in spinor form (docs/conventions.md "Momenta and spinors"): spinors of real
 // massless momenta, seeded complex and exact rational points, physical points by RAMBO, and the
 // validation of user-given momenta and spinors.
 import seedrandom from 'seedrandom'
@@ -9,15 +9,15 @@ import { ddField, ddOf, type DD } from './double-double'
 
 export type Momentum = [number, number, number, number]
 
-/** Relative tolerance for given momenta and spinors (API.md: 1e-8 of the point's scale). */
+/** Relative tolerance for given momenta and spinors (docs/api.md: 1e-8 of the point's scale). */
 export const INPUT_TOLERANCE = 1e-8
-/** Seeded points are redrawn until min |s_S| ≥ this fraction of max |s_ij| (API.md). */
+/** Seeded points are redrawn until min |s_S| ≥ this fraction of max |s_ij| (docs/api.md). */
 export const CONDITION_THRESHOLD = 1e-3
 
 const C = (re: number, im = 0) => new Complex(re, im)
 
 /**
- * Spinors of a real massless momentum, CONVENTIONS.md: for p0 > 0 and p+ = p0 + p3 ≥ 1e-10 p0,
+ * Spinors of a real massless momentum, docs/conventions.md: for p0 > 0 and p+ = p0 + p3 ≥ 1e-10 p0,
  * λ = (√p+, (p1 + i p2)/√p+), λ̃ = (√p+, (p1 − i p2)/√p+); along −z (p− = p0 − p3)
  * λ = ((p1 − i p2)/√p−, √p−), λ̃ = ((p1 + i p2)/√p−, √p−); for p0 < 0, λ(p) = λ(−p), λ̃(p) = −λ̃(−p).
  */

@@ -1,4 +1,4 @@
-// Spinor-helicity primitives, exactly as in the conventions document (CONVENTIONS.md):
+// Spinor-helicity primitives, exactly as in docs/conventions.md:
 // P = [[p0+p3, p1 − i p2], [p1 + i p2, p0 − p3]], P_ab = λ_a λ̃_b,
 // ⟨ij⟩ = λ_i[0] λ_j[1] − λ_i[1] λ_j[0], [ij] = λ̃_i[1] λ̃_j[0] − λ̃_i[0] λ̃_j[1], s_ij = ⟨ij⟩[ji].
 import type { Field } from './field'

@@ -1,25 +1,163 @@
-// The theories the engine knows, their limits, helicities, valid shifts (CONVENTIONS.md "BCFW")
-// and the default-shift rule. Data here is what the catalogue lists.
+// The theory registry: every fact about a theory lives in its entry here — its particle species,
+// limits, the valid-shift rule and falloff table (docs/conventions.md "Falloff"), the default
+// shift and the vanishing classes. The zod enums, the catalogue, the batch runner and the editor
+// derive from it; adding a theory is adding an entry (DEVELOPERS.md "Adding a theory").
 import { PhysicsError } from './errors'
 import type { Arithmetic } from './field'
 
-export type TheoryName = 'gluon' | 'graviton' | 'scalar-cubic' | 'spin'
+/** The theory names, in catalogue order (a tuple so zod can build its enum from it). */
+export const THEORY_NAMES = ['gluon', 'graviton', 'scalar-cubic', 'spin'] as const
+export type TheoryName = (typeof THEORY_NAMES)[number]
+
+/** A particle species a theory's legs may carry. */
+export interface Species {
+  name: string
+  /** |h| of the species; null for the `spin` theory, whose spin the request gives. */
+  spin: number | null
+  /** Carries colour: channels of amplitudes with it are cyclically consecutive sets. */
+  colourOrdered: boolean
+  /** Particle code of the species in point files (PDG numbering), null when none is standard. */
+  pdg: number | null
+  /** LaTeX letter for the species in exports. */
+  latex: string
+}
+
+/** One external leg: its species (a name from the theory's `species`) and helicity. */
+export interface Leg {
+  species: string
+  h: number
+}
+
+/** Largest n per use: evaluation in float and in exact arithmetic, exact falloff measurement. */
+export interface Limits {
+  float: number
+  exact: number
+  /** Largest n for which POST /api/shifts measures every exponent (`measure: true`). */
+  measure: number
+}
 
 export interface TheoryInfo {
   name: TheoryName
   label: string
+  /** The particles in words, as a sentence names them ("gluons"). */
+  particles: string
+  /** LaTeX letter of the amplitude in exports (A_n, M_n for gravity). */
+  amplitudeLatex: string
+  species: Species[]
   /** Colour-ordered: channels are cyclically consecutive sets; else every subset. */
   colourOrdered: boolean
-  /** Largest n accepted, per arithmetic (API.md "Limits"). */
-  limits: Record<Arithmetic, number>
+  limits: Limits
   minLegs: number
+  /** The request must give `spin` (the species' |h|). */
+  needsSpin: boolean
+  /** The allowed helicities, in words, for the catalogue. */
+  helicityRule: string
+  /** Large-z exponent of A(z) under [i,j⟩ (0-based; common practice, measured); null: no entry. */
+  falloff(legs: readonly Leg[], i: number, j: number): number | null
+  /** The [i,j⟩ shift has no boundary term by the table. */
+  validShift(legs: readonly Leg[], i: number, j: number): boolean
+  /** The shift used when the request names none (0-based). */
+  defaultShift(legs: readonly Leg[]): [number, number]
+  /** The amplitude vanishes identically at tree level. */
+  vanishes(legs: readonly Leg[], s: number): boolean
 }
 
+function adjacent(n: number, i: number, j: number): boolean {
+  return (i - j + n) % n === 1 || (j - i + n) % n === 1
+}
+
+/** [+,−⟩ is the shift with a boundary term for gluons and gravitons. */
+const plusMinus = (legs: readonly Leg[], i: number, j: number) => legs[i]!.h > 0 && legs[j]!.h < 0
+
+/**
+ * Fewer than two minus or fewer than two plus helicities at n ≥ 4: zero by the supersymmetric
+ * Ward identities (common practice).
+ */
+function helicityVanishing(legs: readonly Leg[]): boolean {
+  if (legs.length < 4) return false
+  let minus = 0
+  for (const l of legs) if (l.h < 0) minus++
+  return minus < 2 || legs.length - minus < 2
+}
+
+/** [i, i+1⟩ with i the first negative-helicity leg, an [−,±⟩ shift ([1,2⟩ with none). */
+function firstMinusShift(legs: readonly Leg[]): [number, number] {
+  const i = legs.findIndex((l) => l.h < 0)
+  return i < 0 ? [0, 1] : [i, (i + 1) % legs.length]
+}
+
+const gravityFalloff = (legs: readonly Leg[], i: number, j: number) => (plusMinus(legs, i, j) ? 6 : -2)
+
 export const THEORIES: Record<TheoryName, TheoryInfo> = {
-  gluon: { name: 'gluon', label: 'gluons (colour-ordered)', colourOrdered: true, limits: { float: 12, exact: 9 }, minLegs: 4 },
-  graviton: { name: 'graviton', label: 'gravitons', colourOrdered: false, limits: { float: 7, exact: 6 }, minLegs: 4 },
-  'scalar-cubic': { name: 'scalar-cubic', label: 'cubic scalar (colour-ordered)', colourOrdered: true, limits: { float: 8, exact: 8 }, minLegs: 4 },
-  spin: { name: 'spin', label: 'single species of spin s', colourOrdered: false, limits: { float: 7, exact: 6 }, minLegs: 4 },
+  gluon: {
+    name: 'gluon',
+    amplitudeLatex: 'A',
+    particles: 'gluons',
+    label: 'gluons (colour-ordered)',
+    species: [{ name: 'gluon', spin: 1, colourOrdered: true, pdg: 21, latex: 'g' }],
+    colourOrdered: true,
+    limits: { float: 12, exact: 9, measure: 7 },
+    minLegs: 4,
+    needsSpin: false,
+    helicityRule: '±1',
+    falloff: (legs, i, j) => {
+      const bad = plusMinus(legs, i, j)
+      return adjacent(legs.length, i, j) ? (bad ? 3 : -1) : bad ? 2 : -2
+    },
+    validShift: (legs, i, j) => !plusMinus(legs, i, j),
+    defaultShift: firstMinusShift,
+    vanishes: helicityVanishing,
+  },
+  graviton: {
+    name: 'graviton',
+    amplitudeLatex: 'M',
+    particles: 'gravitons',
+    label: 'gravitons',
+    species: [{ name: 'graviton', spin: 2, colourOrdered: false, pdg: 39, latex: 'h' }],
+    colourOrdered: false,
+    limits: { float: 7, exact: 6, measure: 6 },
+    minLegs: 4,
+    needsSpin: false,
+    helicityRule: '±2',
+    falloff: gravityFalloff,
+    validShift: (legs, i, j) => !plusMinus(legs, i, j),
+    defaultShift: firstMinusShift,
+    vanishes: helicityVanishing,
+  },
+  'scalar-cubic': {
+    name: 'scalar-cubic',
+    amplitudeLatex: 'A',
+    particles: 'cubic scalars',
+    label: 'cubic scalar (colour-ordered)',
+    species: [{ name: 'scalar', spin: 0, colourOrdered: true, pdg: null, latex: '\\phi' }],
+    colourOrdered: true,
+    limits: { float: 8, exact: 8, measure: 8 },
+    minLegs: 4,
+    needsSpin: false,
+    helicityRule: '0',
+    falloff: (legs, i, j) => (adjacent(legs.length, i, j) ? 0 : -2),
+    validShift: (legs, i, j) => !adjacent(legs.length, i, j),
+    defaultShift: () => [0, 2], // [1,3⟩: non-adjacent for n ≥ 4
+    vanishes: () => false,
+  },
+  spin: {
+    name: 'spin',
+    amplitudeLatex: 'A',
+    particles: 'this spin-s species',
+    label: 'single species of spin s',
+    species: [{ name: 'spin', spin: null, colourOrdered: false, pdg: null, latex: '\\varphi' }],
+    colourOrdered: false,
+    limits: { float: 7, exact: 6, measure: 6 },
+    minLegs: 4,
+    needsSpin: true,
+    helicityRule: '±s (integer s given as `spin`; s ≠ 2 only at n = 4)',
+    // Spin 2 is the graviton; the table has no entry for any other s.
+    // spin 0 (one scalar species, every channel): some diagram never sees the shift, A(z) → constant
+    falloff: (legs, i, j) => (Math.abs(legs[0]!.h) === 2 ? gravityFalloff(legs, i, j) : legs[0]!.h === 0 ? 0 : null),
+    validShift: (legs, i, j) => legs[0]!.h !== 0 && !plusMinus(legs, i, j),
+    defaultShift: firstMinusShift,
+    vanishes: (legs, s) => s === 2 && helicityVanishing(legs),
+  },
 }
 
 /** Largest spin s offered for theory `spin` (the bracket powers grow like 3s). */
@@ -28,28 +166,60 @@ export const MAX_SPIN = 12
 /** Limits as a flat list for the catalogue; spin s ≠ 2 is offered at n = 4 only. */
 export const LIMITS = Object.values(THEORIES).map((t) => ({ theory: t.name, float: t.limits.float, exact: t.limits.exact, note: t.name === 'spin' ? 'spin ≠ 2: n = 4 only' : undefined }))
 
-/** A process: theory plus the spin s its particles carry (gluon 1, graviton 2, scalar 0). */
+/** Largest n for measured falloff tables, per theory. */
+export const MEASURE_LIMITS = Object.fromEntries(THEORY_NAMES.map((t) => [t, THEORIES[t].limits.measure])) as Record<TheoryName, number>
+
+/** The theories whose amplitudes carry a colour order. */
+export const COLOUR_ORDERED_THEORIES: ReadonlySet<TheoryName> = new Set(THEORY_NAMES.filter((t) => THEORIES[t].colourOrdered))
+
+export function isColourOrdered(theory: string): boolean {
+  return COLOUR_ORDERED_THEORIES.has(theory as TheoryName)
+}
+
+/** |h| of a theory's particles (spin: the given s); null when the spin theory has none given. */
+export function spinOf(theory: TheoryName, spin?: number): number | null {
+  return THEORIES[theory].species[0]!.spin ?? spin ?? null
+}
+
+/** The single-species theory whose particles have |h| = s (the `spin` theory for any other s). */
+export function theoryOfSpin(s: number): TheoryName {
+  return THEORY_NAMES.find((t) => !THEORIES[t].needsSpin && THEORIES[t].species.length === 1 && THEORIES[t].species[0]!.spin === s) ?? 'spin'
+}
+
+/** The particle code a theory needs on every leg of a point file, or null when it has none. */
+export function pdgOf(theory: TheoryName): number | null {
+  const sp = THEORIES[theory].species
+  return sp.length === 1 ? sp[0]!.pdg : null
+}
+
+/** The legs of a single-species process from its helicities (the request's wire format). */
+export function legsOf(theory: TheoryName, helicities: readonly number[]): Leg[] {
+  const species = THEORIES[theory].species[0]!.name
+  return helicities.map((h) => ({ species, h }))
+}
+
+/** A process: theory, the spin s its particles carry (gluon 1, graviton 2, scalar 0), its legs. */
 export interface Process {
   theory: TheoryName
   /** |h| of every leg. */
   s: number
   colourOrdered: boolean
+  /** Species and helicity per external leg (validateProcess fills them). */
+  legs?: Leg[]
 }
 
-export function processOf(theory: TheoryName, spin?: number): Process {
+export function processOf(theory: TheoryName, spin?: number, helicities?: readonly number[]): Process {
   const info = THEORIES[theory]
-  const s = theory === 'gluon' ? 1 : theory === 'graviton' ? 2 : theory === 'scalar-cubic' ? 0 : (spin as number)
-  return { theory, s, colourOrdered: info.colourOrdered }
+  const s = spinOf(theory, spin) as number
+  return { theory, s, colourOrdered: info.colourOrdered, ...(helicities ? { legs: legsOf(theory, helicities) } : {}) }
 }
-
-const SPECIES: Record<Exclude<TheoryName, 'spin'>, string> = { gluon: 'a gluon has helicity ±1', graviton: 'a graviton has helicity ±2', 'scalar-cubic': 'a scalar has helicity 0' }
 
 /** Checks the process before any work (422s name the field), returns warnings. */
 export function validateProcess(theory: TheoryName, helicities: number[], arithmetic: Arithmetic, spin?: number): { process: Process; warnings: string[] } {
   const warnings: string[] = []
   const n = helicities.length
   const info = THEORIES[theory]
-  if (theory === 'spin') {
+  if (info.needsSpin) {
     if (spin === undefined) throw new PhysicsError('spin', 'theory spin needs the spin s of its particles')
     if (!Number.isInteger(spin)) {
       if (Number.isInteger(2 * spin))
@@ -67,65 +237,38 @@ export function validateProcess(theory: TheoryName, helicities: number[], arithm
   if (n < info.minLegs) throw new PhysicsError('helicities', `at least ${info.minLegs} legs are needed for on-shell recursion, got ${n}`)
   const limit = info.limits[arithmetic]
   if (n > limit) throw new PhysicsError('helicities', `${n} legs exceed the limit of ${limit} for ${info.label} in ${arithmetic} arithmetic`)
-  const process = processOf(theory, spin)
+  const process = processOf(theory, spin, helicities)
   helicities.forEach((h, i) => {
     if (Math.abs(h) !== process.s || (process.s === 0 && h !== 0)) {
-      const what = theory === 'spin' ? `a spin-${process.s} particle has helicity ${process.s === 0 ? '0' : `±${process.s}`}` : SPECIES[theory]
-      throw new PhysicsError(`helicities[${i}]`, `${what}, got ${h}`)
+      const name = info.needsSpin ? `spin-${process.s} particle` : info.species[0]!.name
+      throw new PhysicsError(`helicities[${i}]`, `a ${name} has helicity ${process.s === 0 ? '0' : `±${process.s}`}, got ${h}`)
     }
   })
   return { process, warnings }
 }
 
-/**
- * Tree-level vanishing classes (gluons, gravitons; n ≥ 4, fewer than two minus or fewer than two
- * plus helicities) — zero by the supersymmetric Ward identities (common practice).
- */
+// The helpers below take helicities (any sub-amplitude's, not only the process's external legs);
+// a theory with several species calls its entry's rules with the legs instead.
+const legsFor = (p: Process, helicities: readonly number[]) => legsOf(p.theory, helicities)
+
+/** Tree-level vanishing by the theory's rule (gluons, gravitons: the helicity classes). */
 export function vanishes(p: Process, helicities: readonly number[]): boolean {
-  if (p.theory !== 'gluon' && p.theory !== 'graviton' && !(p.theory === 'spin' && p.s === 2)) return false
-  if (helicities.length < 4) return false
-  let minus = 0
-  for (const h of helicities) if (h < 0) minus++
-  return minus < 2 || helicities.length - minus < 2
+  return THEORIES[p.theory].vanishes(legsFor(p, helicities), p.s)
 }
 
-function adjacent(n: number, i: number, j: number): boolean {
-  return (i - j + n) % n === 1 || (j - i + n) % n === 1
-}
-
-/** Validity of the [i,j⟩ shift (0-based) from the table in CONVENTIONS.md. */
+/** Validity of the [i,j⟩ shift (0-based) by the falloff table (docs/conventions.md "Falloff"). */
 export function isValidShift(p: Process, helicities: readonly number[], i: number, j: number): boolean {
-  if (p.theory === 'scalar-cubic') return !adjacent(helicities.length, i, j)
-  // one scalar species, every channel: some diagram never sees the shift, A(z) → constant
-  if (p.s === 0) return false
-  return !(helicities[i]! > 0 && helicities[j]! < 0)
+  return THEORIES[p.theory].validShift(legsFor(p, helicities), i, j)
 }
 
-/**
- * Large-z exponent of A(z) under [i,j⟩ by CONVENTIONS.md's table (common practice, measured);
- * null where the table has no entry (spin s ≠ 2).
- */
+/** Large-z exponent of A(z) under [i,j⟩ by the table; null where it has no entry (spin s ≠ 2). */
 export function tableExponent(p: Process, helicities: readonly number[], i: number, j: number): number | null {
-  const n = helicities.length
-  const bad = helicities[i]! > 0 && helicities[j]! < 0
-  if (p.theory === 'scalar-cubic') return adjacent(n, i, j) ? 0 : -2
-  if (p.theory === 'gluon') return adjacent(n, i, j) ? (bad ? 3 : -1) : bad ? 2 : -2
-  if (p.s === 2) return bad ? 6 : -2
-  if (p.s === 0) return 0
-  return null
+  return THEORIES[p.theory].falloff(legsFor(p, helicities), i, j)
 }
 
-/**
- * The default-shift rule (0-based): gluons, gravitons and spin s (the graviton rule) shift
- * [i, i+1⟩ with i the first negative-helicity leg — an [−,±⟩ shift, valid by the table (with no
- * negative leg, [1,2⟩); the cubic scalar shifts [1,3⟩ (non-adjacent for n ≥ 4).
- */
+/** The default shift (0-based) by the theory's rule. */
 export function defaultShift(p: Process, helicities: readonly number[]): [number, number] {
-  const n = helicities.length
-  if (p.theory === 'scalar-cubic') return [0, 2]
-  const i = helicities.findIndex((h) => h < 0)
-  if (i < 0) return [0, 1]
-  return [i, (i + 1) % n]
+  return THEORIES[p.theory].defaultShift(legsFor(p, helicities))
 }
 
 /** Checks a user's 1-based shift, returns it 0-based. */

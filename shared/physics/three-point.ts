@@ -1,4 +1,4 @@
-// Three-point amplitudes by little-group scaling (CONVENTIONS.md "Amplitudes"):
+// Three-point amplitudes by little-group scaling (docs/conventions.md "Amplitudes and normalisations"):
 //   angle  (h1+h2+h3 < 0): ⟨12⟩^(h3−h1−h2) ⟨23⟩^(h1−h2−h3) ⟨31⟩^(h2−h3−h1)
 //   square (h1+h2+h3 > 0): σ [12]^(h1+h2−h3) [23]^(h2+h3−h1) [31]^(h3+h1−h2)
 // σ = −1 for gluons, (−1)^s for spin s (gravitons: σ² = +1), the cubic scalar A3 = 1.

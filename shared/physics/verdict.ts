@@ -1,4 +1,4 @@
-// Verdicts of API.md "Verdicts — the first rule that applies wins", and the deviation measure.
+// Verdicts of docs/conventions.md "Verdicts", and the deviation measure.
 import type { Field } from './field'
 import type { Arithmetic } from './field'
 
@@ -7,7 +7,7 @@ export type Verdict = 'singular point' | 'not evaluated' | 'boundary term suspec
 /**
  * Float tolerance on the relative deviation: 1e-9 up to n = 8, doubling with every further leg
  * (rounding grows with the number of terms), never above 1e-7: n = 12 → 1.6e-8.
- * CONVENTIONS.md "Numerical advice" puts 1e-9 as sound for generic points.
+ * docs/conventions.md "Verdicts" puts 1e-9 as sound for generic points.
  */
 export function floatTolerance(n: number): number {
   return Math.min(1e-7, 1e-9 * 2 ** Math.max(0, n - 8))
@@ -29,7 +29,7 @@ export function deviationOf<T>(F: Field<T>, value: T, target: T, terms: readonly
 export interface VerdictInput {
   singular: boolean
   targetNone: boolean
-  /** Valid by CONVENTIONS.md's table of valid shifts. */
+  /** Valid by the table of valid shifts (docs/conventions.md "Falloff"). */
   shiftValidByTable: boolean
   /** The probed exponent, when probed. */
   probedExponent: number | null

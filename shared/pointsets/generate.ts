@@ -1,7 +1,7 @@
 // Generated point sets, reproducible from their seed: point i is drawn from the seed "<seed>:<i>"
 // by the engine's own seeded points (shared/physics/kinematics): `physical` = RAMBO with the
 // chosen centre-of-mass energy, legs 1, 2 incoming along ±z and crossed to outgoing; `random` =
-// a complex point. Both are redrawn until well-conditioned (API.md), as the engine does.
+// a complex point. Both are redrawn until well-conditioned (docs/api.md), as the engine does.
 import { complexField as F } from '../physics/field'
 import { momentumOfBispinor, physicalPoint, randomPoint, type Momentum } from '../physics/kinematics'
 import { outer, type Kin } from '../physics/spinors'

@@ -1,4 +1,4 @@
-// Invariants of a stored point: s_ij = (p_i + p_j)² = det(P_i + P_j) (CONVENTIONS.md: det P = p²),
+// Invariants of a stored point: s_ij = (p_i + p_j)² = det(P_i + P_j) (docs/conventions.md: det P = p²),
 // and the smallest |s_ij| relative to the largest, which shows how near a soft or collinear region
 // a point lies. For a 2 → n physical point the largest |s_ij| is s itself (s_12).
 import { Complex, complexField as F } from '../physics/field'

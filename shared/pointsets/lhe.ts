@@ -8,7 +8,7 @@
 //           (PUP = px, py, pz, E, m); further lines before </event> are optional information.
 // Each event becomes one point: its incoming (ISTUP = −1) and outgoing (ISTUP = +1) particles,
 // incoming first, then outgoing, each group in file order; incoming momenta are crossed to
-// outgoing, p → −p (CONVENTIONS.md: all momenta outgoing). Particle codes IDUP are kept per leg.
+// outgoing, p → −p (docs/conventions.md: all momenta outgoing). Particle codes IDUP are kept per leg.
 import { PointFileError, TooManyPointsError } from './errors'
 import { MAX_POINTS, type Momentum, type ParsedFile, type PointData } from './types'
 

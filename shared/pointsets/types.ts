@@ -1,5 +1,5 @@
 // Point sets: the stored form of one phase-space point and the upload report.
-// Legs are all outgoing (CONVENTIONS.md "Momenta and spinors"); a momentum is [E, px, py, pz].
+// Legs are all outgoing (docs/conventions.md "Momenta and spinors"); a momentum is [E, px, py, pz].
 import type { Momentum } from '../physics/kinematics'
 
 export type { Momentum }

@@ -1,5 +1,5 @@
 // Validation of uploaded points with the engine's own validators (shared/physics/kinematics):
-// momentum conservation and masslessness to 1e-8 relative to the point's scale (API.md), and the
+// momentum conservation and masslessness to 1e-8 relative to the point's scale (docs/api.md), and the
 // leg count of the point set. A refused point gets its reason and the relative size of the violation.
 import { PhysicsError } from '../physics/errors'
 import { Complex, complexField } from '../physics/field'

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 
-/** Formats a zod path the way API.md writes fields: `kinematics.lambda[2][1]`. */
+/** Formats a zod path the way docs/api.md writes fields: `kinematics.lambda[2][1]`. */
 export function formatPath(path: readonly PropertyKey[]): string {
   let out = ''
   for (const p of path) {

@@ -1,7 +1,9 @@
-// The request body of POST /api/evaluate, exactly as API.md "Evaluation" fixes it, and the
+// The request body of POST /api/evaluate, exactly as docs/api.md "Evaluation request" fixes it, and the
 // response type. zod 4's z.number() refuses NaN and ±Infinity, so a non-finite number fails here
 // (400) and never reaches the engine.
 import { z } from 'zod'
+import { THEORY_NAMES } from '../physics/theories'
+import { TARGET_NAMES } from '../physics/targets/index'
 
 const num = z.number()
 const complex = z.tuple([num, num])
@@ -11,8 +13,10 @@ export const RationalString = z.string().regex(/^\s*[+-]?\d+(\s*\/\s*[+-]?\d+)?\
 const exactSpinor = z.tuple([RationalString, RationalString])
 const seed = z.union([z.number().int(), z.string().min(1).max(200)])
 
-export const TheoryEnum = z.enum(['gluon', 'graviton', 'scalar-cubic', 'spin'])
-export const TargetNameEnum = z.enum(['auto', 'parke-taylor', 'berends-giele', 'hodges', 'klt', 'feynman', 'none'])
+export const TheoryEnum = z.enum(THEORY_NAMES)
+export const TargetNameEnum = z.enum(['auto', ...TARGET_NAMES, 'none'])
+/** The target names in words, for error messages. */
+export const TARGET_WORDS = `${TargetNameEnum.options.join(', ')} or { formula }`
 
 export const KinematicsSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('spinors'), lambda: z.array(complexSpinor), lambdaTilde: z.array(complexSpinor) }),
@@ -26,7 +30,7 @@ export const KinematicsSchema = z.discriminatedUnion('kind', [
 export const EvaluateRequestSchema = z.object({
   theory: TheoryEnum,
   spin: num.optional(),
-  // No upper bound here: a long list is refused with 422 and the limit (API.md), before any work.
+  // No upper bound here: a long list is refused with 422 and the limit (docs/api.md), before any work.
   helicities: z.array(num).min(1),
   kinematics: KinematicsSchema,
   shift: z.tuple([z.number().int(), z.number().int()]).optional(),
@@ -102,7 +106,7 @@ export interface EvaluateResponse {
   ms: number
 }
 
-/** A zod issue's path written as API.md does: `kinematics.lambda[2][1]`. */
+/** A zod issue's path written as docs/api.md does: `kinematics.lambda[2][1]`. */
 export function zodIssuePath(issue: { path: ReadonlyArray<PropertyKey> }): string {
   let out = ''
   for (const seg of issue.path) {

@@ -3,11 +3,12 @@
 // only when a check runs (see requireProcess).
 import { z } from 'zod'
 import { boundedExtras, boundedFields } from './json-bounds'
+import { THEORY_NAMES } from '../physics/theories'
 
 export const GRAPH_SCHEMA_VERSION = 1
 
-export const TheorySchema = z.enum(['gluon', 'graviton', 'scalar-cubic', 'spin'], {
-  error: 'must be gluon, graviton, scalar-cubic or spin',
+export const TheorySchema = z.enum(THEORY_NAMES, {
+  error: `must be ${THEORY_NAMES.slice(0, -1).join(', ')} or ${THEORY_NAMES.at(-1)}`,
 })
 
 const finite = z.number().refine(Number.isFinite, { error: 'must be a finite number' })

@@ -3,15 +3,16 @@
 // routes, the pages and the API docs page.
 import { z } from 'zod'
 import { EvaluateRequestSchema, KinematicsSchema, TheoryEnum } from './evaluate'
+import { MEASURE_LIMITS, type TheoryName } from '../physics/theories'
 
 /**
- * The largest n for which every shift's falloff is measured exactly (`measure: true`): n(n−1)
- * shifts × probe points × an exact recursion each; above these it takes longer than a request's
- * time budget on two cores.
+ * The largest n for which every shift's falloff is measured exactly (`measure: true`; the theory
+ * registry's `limits.measure`): n(n−1) shifts × probe points × an exact recursion each; above
+ * these it takes longer than a request's time budget on two cores.
  */
-export const SHIFTS_MEASURE_LIMITS = { 'gluon': 7, 'graviton': 6, 'scalar-cubic': 8, 'spin': 6 } as const
+export const SHIFTS_MEASURE_LIMITS = MEASURE_LIMITS
 
-export function shiftsMeasureLimit(theory: keyof typeof SHIFTS_MEASURE_LIMITS): number {
+export function shiftsMeasureLimit(theory: TheoryName): number {
   return SHIFTS_MEASURE_LIMITS[theory]
 }
 
@@ -23,7 +24,7 @@ export const ProcessRequestSchema = z.object({
 
 /** POST /api/shifts: every [i,j⟩ shift with its falloff exponent and validity. */
 export const ShiftsRequestSchema = ProcessRequestSchema.extend({
-  /** true: measure every exponent exactly (n ≤ SHIFTS_MEASURE_LIMITS[theory]); false: CONVENTIONS.md's table. */
+  /** true: measure every exponent exactly (n ≤ SHIFTS_MEASURE_LIMITS[theory]); false: the falloff table of docs/conventions.md. */
   measure: z.boolean().default(false),
 })
 

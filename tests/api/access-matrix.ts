@@ -42,7 +42,7 @@ export const matrix: RouteAccess[] = [
   { file: 'diagrams/[id]/revisions/[version].get.ts', access: 'viewer', scope: 'diagram' },
   { file: 'admin/users/index.get.ts', access: 'admin', scope: 'none' },
   { file: 'admin/users/[id].patch.ts', access: 'admin', scope: 'none', body: {} },
-  // Evaluation service (issue 4).
+  // Evaluation service.
   { file: 'evaluate.post.ts', access: 'user', scope: 'none', body: {} },
   { file: 'catalogue.get.ts', access: 'user', scope: 'none' },
   { file: 'shifts.post.ts', access: 'user', scope: 'none', body: {} },
@@ -51,7 +51,7 @@ export const matrix: RouteAccess[] = [
   { file: 'diagrams/[id]/checks/index.post.ts', access: 'editor', scope: 'diagram', body: {} },
   { file: 'diagrams/[id]/checks/index.get.ts', access: 'viewer', scope: 'diagram' },
   { file: 'checks/[id]/index.get.ts', access: 'viewer', scope: 'check' },
-  // Collaboration (issue 7). Token and invitation ids in these paths name nothing, so the
+  // Collaboration. Token and invitation ids in these paths name nothing, so the
   // allowed call would be a correct 404: tests/api/collab*.test.ts cover the allowed cases.
   { file: 'admin/outbox.get.ts', access: 'admin', scope: 'none' },
   { file: 'auth/password/forgot.post.ts', access: 'public', scope: 'none', skipAllowed: true },
@@ -73,7 +73,7 @@ export const matrix: RouteAccess[] = [
   // Server-side sessions: the caller's own; ending one would sign the matrix client out.
   { file: 'account/sessions/index.get.ts', access: 'user', scope: 'none' },
   { file: 'account/sessions/[id].delete.ts', access: 'user', scope: 'none', skipAllowed: true },
-  // Point sets and batch checks (issue 6).
+  // Point sets and batch checks.
   { file: 'projects/[id]/point-sets/index.get.ts', access: 'viewer', scope: 'project' },
   { file: 'projects/[id]/point-sets/index.post.ts', access: 'editor', scope: 'project', body: {} },
   { file: 'projects/[id]/point-sets/generate.post.ts', access: 'editor', scope: 'project', body: {} },
@@ -114,7 +114,7 @@ export function requestFor(route: RouteAccess, ids: Ids): { method: string, path
 /** Extra fixtures later features need (a check, a point set), created by an owner client. */
 export const fixtureMakers: ((owner: Client, ids: Ids) => Promise<void>)[] = []
 
-// Evaluation service (issue 4): a stored check on ids.diagram, after saving a process into its graph.
+// Evaluation service: a stored check on ids.diagram, after saving a process into its graph.
 fixtureMakers.push(async (owner, ids) => {
   const diagram = (await owner.get(`/api/diagrams/${ids.diagram}`)).body
   await owner.put(`/api/diagrams/${ids.diagram}`, { version: diagram.version, graph: { ...diagram.graph, process: { theory: 'gluon', helicities: [-1, -1, 1, 1] } } })
@@ -123,7 +123,7 @@ fixtureMakers.push(async (owner, ids) => {
   ids.check = check.body.id
 })
 
-// Point sets (issue 6): a small generated set in the fixture project (ids.pointSet).
+// Point sets: a small generated set in the fixture project (ids.pointSet).
 fixtureMakers.push(async (owner, ids) => {
   const set = await owner.post(`/api/projects/${ids.project}/point-sets/generate`, { kind: 'physical', n: 4, count: 3, seed: 1 })
   if (set.status !== 201) throw new Error(`point-set fixture: ${set.status} ${JSON.stringify(set.body)}`)

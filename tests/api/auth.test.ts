@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { Client, newUser, uniqueEmail, signIn, demo } from '../helpers/api'
 
-describe('auth routes (API.md "Auth")', () => {
+describe('auth routes (the generated API page, "Sign-in")', () => {
   it('register → 201 with a session cookie; me → the user', async () => {
     const c = new Client()
     const email = uniqueEmail('reg')

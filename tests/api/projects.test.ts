@@ -3,7 +3,7 @@ import { projectWithRoles, newUser } from '../helpers/api'
 
 const empty = { nodes: [], edges: [] }
 
-describe('projects and roles (API.md "Projects and roles")', () => {
+describe('projects and roles (the generated API page, "Projects and members")', () => {
   it('create → 201 and the caller is owner; list is an array; get one', async () => {
     const u = await newUser('proj')
     const created = await u.post('/api/projects', { name: 'Soft limits', description: 'checks near soft gluons' })

@@ -1,5 +1,5 @@
 // Berends–Giele off-shell recursion for colour-ordered gluon amplitudes (Berends & Giele,
-// Nucl. Phys. B306 (1988) 759) with the colour-ordered Feynman vertices of CONVENTIONS.md:
+// Nucl. Phys. B306 (1988) 759) with the colour-ordered Feynman vertices of docs/conventions.md:
 //   V3 = (1/√2)[(J_P·J_Q)(P−Q) + J_Q ((P+2Q)·J_P) − J_P ((2P+Q)·J_Q)]
 //   V4 = J2 (J1·J3) − ½[J1 (J2·J3) + J3 (J1·J2)]
 //   J(a..b) = [Σ V3 + Σ V4] / P²_{a..b},  J(k) = ε_k,  A(1..n) = ε_n · [P² J(1..n−1)].

@@ -1,5 +1,5 @@
 // Colour-ordered cubic scalar: the sum of all planar cubic tree diagrams, vertex 1, propagator
-// +1/P² (CONVENTIONS.md), e.g. A_4 = 1/s12 + 1/s23. Computed by a memoized recursion over
+// +1/P² (docs/conventions.md), e.g. A_4 = 1/s12 + 1/s23. Computed by a memoized recursion over
 // intervals of the legs 1..n−1 (leg n closes the amplitude) — each planar cubic tree is a unique
 // way of splitting every interval in two, so this is the diagram sum (common practice; the
 // diagrams are counted by the Catalan number C_{n−2}, the count of triangulations of an n-gon).

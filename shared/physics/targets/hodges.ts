@@ -1,5 +1,5 @@
 // Hodges' determinant formula for MHV graviton amplitudes (Hodges, arXiv:1204.1930), in the
-// conventions of CONVENTIONS.md (overall sign +1 for every n), negative-helicity legs a, b:
+// conventions of docs/conventions.md (overall sign +1 for every n), negative-helicity legs a, b:
 //   M_n = ⟨ab⟩⁸ det(Φ with rows i,j,k and columns p,q,r removed) · (−1)^(i+j+k+p+q+r)
 //         / (⟨ij⟩⟨jk⟩⟨ki⟩ ⟨pq⟩⟨qr⟩⟨rp⟩),
 //   Φ_kl = [kl]/⟨kl⟩ (k ≠ l),  Φ_kk = −Σ_{l≠k} [kl]⟨lx⟩⟨ly⟩ / (⟨kl⟩⟨kx⟩⟨ky⟩),

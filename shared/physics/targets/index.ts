@@ -1,5 +1,6 @@
-// The independent targets a BCFW result is compared with: which apply to a process, which one
-// `auto` picks, how to evaluate one, and the catalogue entries.
+// The target registry: the independent results a BCFW value is compared with, each entry with
+// its own `applies` and `evaluate`. `auto`, the zod enum and the catalogue derive from it; adding
+// a target is a module plus an entry here (DEVELOPERS.md "Adding a target").
 import type { Field } from '../field'
 import type { Kin } from '../spinors'
 import { PhysicsError } from '../errors'
@@ -9,26 +10,52 @@ import { hodges, classifyGraviton } from './hodges'
 import { klt } from './klt'
 import { cubicScalarFeynman } from './cubic-scalar'
 
-export type TargetName = 'parke-taylor' | 'berends-giele' | 'hodges' | 'klt' | 'feynman'
-export type TargetTheory = 'gluon' | 'graviton' | 'scalar-cubic' | 'spin'
+import { THEORY_NAMES, type TheoryName } from '../theories'
 
-export interface TargetInfo {
-  name: TargetName
+export type TargetTheory = TheoryName
+
+/** One independent target: what it is, where it applies and how to evaluate it. */
+export interface Target<N extends string = string> {
+  name: N
   label: string
   theories: TargetTheory[]
   /** Where it applies and what it computes, in one or two sentences. */
   description: string
   /** The published source of the formula or algorithm. */
   source: string
+  /** |h| of the particles it takes (helicities are checked against it before `evaluate`). */
+  spin: number
+  /** Applies to this process (n ≥ 3, every |h| = spin already checked). */
+  applies(theory: TargetTheory, helicities: readonly number[], spin?: number): boolean
+  /** The target's value at a point (0-based legs). */
+  evaluate<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T
 }
 
-export const TARGETS: TargetInfo[] = [
+/** Keeps the names as a literal union (TargetName) while the entries stay in one list. */
+function defineTargets<const N extends string>(list: Target<N>[]): Target<N>[] {
+  return list
+}
+
+/** Gravitons and a spin-2 species are one theory here. */
+function gravityLike(theory: TargetTheory, spin?: number): boolean {
+  return theory === 'graviton' || (theory === 'spin' && spin === 2)
+}
+
+/**
+ * The registry, preferred target first: `auto` picks the first entry that applies (gluon
+ * MHV/anti-MHV → parke-taylor, other gluons → berends-giele, graviton MHV → hodges, other
+ * gravitons at n ≤ 6 → klt, cubic scalar → feynman).
+ */
+export const TARGETS = defineTargets([
   {
     name: 'parke-taylor',
     label: 'Parke–Taylor',
     theories: ['gluon'],
     description: 'Closed form of the MHV gluon amplitude, ⟨ij⟩⁴/(⟨12⟩…⟨n1⟩), and its parity conjugate (−1)ⁿ[ij]⁴/([12]…[n1]).',
     source: 'S. Parke, T. Taylor, Phys. Rev. Lett. 56 (1986) 2459',
+    spin: 1,
+    applies: (theory, h) => theory === 'gluon' && classifyGluon(h).kind !== 'other',
+    evaluate: (F, k, h) => parkeTaylor(F, k, h),
   },
   {
     name: 'berends-giele',
@@ -36,6 +63,9 @@ export const TARGETS: TargetInfo[] = [
     theories: ['gluon'],
     description: 'Off-shell recursion of colour-ordered Feynman rules (three- and four-gluon vertices) with polarization vectors built from spinors; every helicity configuration.',
     source: 'F. A. Berends, W. T. Giele, Nucl. Phys. B306 (1988) 759',
+    spin: 1,
+    applies: (theory) => theory === 'gluon',
+    evaluate: (F, k, h) => berendsGiele(F, k, h),
   },
   {
     name: 'hodges',
@@ -43,6 +73,9 @@ export const TARGETS: TargetInfo[] = [
     theories: ['graviton', 'spin'],
     description: 'MHV graviton amplitude as a reduced determinant of the matrix Φ, and its parity conjugate; any n.',
     source: 'A. Hodges, arXiv:1204.1930',
+    spin: 2,
+    applies: (theory, h, spin) => gravityLike(theory, spin) && classifyGraviton(h).kind !== 'other',
+    evaluate: (F, k, h) => hodges(F, k, h),
   },
   {
     name: 'klt',
@@ -50,6 +83,9 @@ export const TARGETS: TargetInfo[] = [
     theories: ['graviton', 'spin'],
     description: 'Graviton amplitudes as sums of products of colour-ordered gluon amplitudes (from Berends–Giele) weighted by Mandelstam invariants; n = 3..6, every helicity configuration.',
     source: 'H. Kawai, D. Lewellen, S.-H. Tye, Nucl. Phys. B269 (1986) 1; Z. Bern, L. Dixon, M. Perelstein, J. Rozowsky, Nucl. Phys. B546 (1999) 423',
+    spin: 2,
+    applies: (theory, h, spin) => gravityLike(theory, spin) && h.length <= 6,
+    evaluate: (F, k, h) => klt(F, k, h),
   },
   {
     name: 'feynman',
@@ -57,39 +93,29 @@ export const TARGETS: TargetInfo[] = [
     theories: ['scalar-cubic'],
     description: 'Sum of all planar cubic tree diagrams with propagators 1/P² (Catalan-many), by a memoized recursion over intervals.',
     source: 'planar cubic Feynman rules (common practice); diagram count: Catalan number C_{n−2}',
+    spin: 0,
+    applies: (theory) => theory === 'scalar-cubic',
+    evaluate: (F, k) => cubicScalarFeynman(F, k),
   },
-]
+])
 
-/** Gravitons and a spin-2 species are one theory here. */
-function gravityLike(theory: TargetTheory, spin?: number): boolean {
-  return theory === 'graviton' || (theory === 'spin' && spin === 2)
-}
+export type TargetName = (typeof TARGETS)[number]['name']
+export const TARGET_NAMES = TARGETS.map((t) => t.name) as [TargetName, ...TargetName[]]
+
+/** What the catalogue lists of a target (no functions: it crosses a worker boundary). */
+export type TargetInfo = Pick<Target<TargetName>, 'name' | 'label' | 'theories' | 'description' | 'source'>
+
+export const TARGET_INFO: TargetInfo[] = TARGETS.map(({ name, label, theories, description, source }) => ({ name, label, theories, description, source }))
+
+const byName = new Map(TARGETS.map((t) => [t.name, t]))
 
 /** The targets that apply to a process, the preferred one first. */
 export function applicableTargets(theory: TargetTheory, helicities: number[], spin?: number): TargetName[] {
-  const n = helicities.length
-  if (n < 3) return []
-  if (theory === 'gluon') {
-    if (helicities.some((h) => h !== 1 && h !== -1)) return []
-    const c = classifyGluon(helicities).kind
-    return c === 'other' ? ['berends-giele'] : ['parke-taylor', 'berends-giele']
-  }
-  if (gravityLike(theory, spin)) {
-    if (helicities.some((h) => h !== 2 && h !== -2)) return []
-    const c = classifyGraviton(helicities).kind
-    const out: TargetName[] = []
-    if (c !== 'other') out.push('hodges')
-    if (n <= 6) out.push('klt')
-    return out
-  }
-  if (theory === 'scalar-cubic') return helicities.every((h) => h === 0) ? ['feynman'] : []
-  return [] // a single species of spin s ≠ 2 has no independent target
+  if (helicities.length < 3 || !THEORY_NAMES.includes(theory)) return []
+  return TARGETS.filter((t) => helicities.every((h) => Math.abs(h) === t.spin) && t.applies(theory, helicities, spin)).map((t) => t.name)
 }
 
-/**
- * The best independent target: gluon MHV/anti-MHV → parke-taylor, other gluons → berends-giele,
- * graviton MHV → hodges, other gravitons at n ≤ 6 → klt, cubic scalar → feynman; null if none.
- */
+/** The best independent target (the first that applies); null if none (spin s ≠ 2). */
 export function autoTarget(theory: TargetTheory, helicities: number[], spin?: number): TargetName | null {
   return applicableTargets(theory, helicities, spin)[0] ?? null
 }
@@ -100,33 +126,22 @@ function countNeg(helicities: readonly number[]): number {
   return m
 }
 
+const PARTICLES: Record<number, string> = { 0: 'scalars (helicity 0)', 1: 'gluons (helicity ±1)', 2: 'gravitons (helicity ±2)' }
+
 /**
  * Evaluates a target at a point (0-based legs). Classes that vanish identically at tree level
- * (gluons or gravitons, n ≥ 4, fewer than two minus or two plus helicities) give exactly zero.
+ * (spin ≥ 1, n ≥ 4, fewer than two minus or two plus helicities) give exactly zero.
  */
 export function evaluateTarget<T>(name: TargetName, F: Field<T>, k: Kin<T>, helicities: number[]): T {
+  const t = byName.get(name)
+  if (!t) throw new PhysicsError('target', `unknown target ${name}`)
   const n = helicities.length
-  const spin = name === 'feynman' ? 0 : name === 'parke-taylor' || name === 'berends-giele' ? 1 : 2
-  if (helicities.some((h) => Math.abs(h) !== spin)) {
-    const what = spin === 0 ? 'scalars (helicity 0)' : spin === 1 ? 'gluons (helicity ±1)' : 'gravitons (helicity ±2)'
-    throw new PhysicsError('target', `${name} applies to ${what} only`)
-  }
-  if (spin > 0 && n >= 4) {
+  if (helicities.some((h) => Math.abs(h) !== t.spin)) throw new PhysicsError('target', `${name} applies to ${PARTICLES[t.spin] ?? `spin ${t.spin}`} only`)
+  if (t.spin > 0 && n >= 4) {
     const m = countNeg(helicities)
     if (m < 2 || n - m < 2) return F.zero
   }
-  switch (name) {
-    case 'parke-taylor':
-      return parkeTaylor(F, k, helicities)
-    case 'berends-giele':
-      return berendsGiele(F, k, helicities)
-    case 'hodges':
-      return hodges(F, k, helicities)
-    case 'klt':
-      return klt(F, k, helicities)
-    case 'feynman':
-      return cubicScalarFeynman(F, k)
-  }
+  return t.evaluate(F, k, helicities)
 }
 
 export { parkeTaylor, berendsGiele, hodges, klt, cubicScalarFeynman }

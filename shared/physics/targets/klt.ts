@@ -1,6 +1,6 @@
 // Graviton tree amplitudes from colour-ordered gluon amplitudes by the KLT relations (Kawai,
 // Lewellen, Tye, Nucl. Phys. B269 (1986) 1; field-theory form of Bern, Dixon, Perelstein,
-// Rozowsky, Nucl. Phys. B546 (1999) 423), exactly as written in CONVENTIONS.md (labels 1-based):
+// Rozowsky, Nucl. Phys. B546 (1999) 423), exactly as written in docs/conventions.md (labels 1-based):
 //   M_3 = A(123)²  (the three-point amplitude is the square of the gluon one)
 //   M_4 = −s12 A(1234) A(1243)
 //   M_5 = s12 s34 A(12345) A(21435) + s13 s24 A(13245) A(31425)

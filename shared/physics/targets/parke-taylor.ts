@@ -1,5 +1,5 @@
 // Parke–Taylor formula for colour-ordered gluon amplitudes (Parke & Taylor, PRL 56 (1986) 2459),
-// in the conventions of CONVENTIONS.md:
+// in the conventions of docs/conventions.md:
 //   MHV:       A_n(…i⁻…j⁻…) = ⟨ij⟩⁴ / (⟨12⟩⟨23⟩…⟨n1⟩)
 //   conjugate: A_n(…i⁺…j⁺…) = (−1)ⁿ [ij]⁴ / ([12][23]…[n1])
 // The BCFW core calls this for MHV sub-blocks, so the loop allocates nothing beyond the Field ops.

@@ -1,4 +1,4 @@
-// evaluate(): the API.md "Evaluation" response, verdict rules and error rules (422 PhysicsError
+// evaluate(): the docs/api.md "Evaluation request" response, verdict rules and error rules (422 PhysicsError
 // naming the field; schema failures are zod errors → 400 at the route).
 import { describe, expect, it } from 'vitest'
 import { ZodError } from 'zod'
@@ -193,7 +193,7 @@ describe('bad input: typed errors naming the field', () => {
     expect(evaluate({ theory: 'scalar-cubic', helicities: [0, 0, 0, 0, 0], kinematics: { kind: 'random', seed: 1 } }).shift).toEqual([1, 3])
   })
 
-  it('zodIssuePath writes API.md paths', () => {
+  it('zodIssuePath writes docs/api.md paths', () => {
     expect(zodIssuePath({ path: ['kinematics', 'lambda', 2, 1] })).toBe('kinematics.lambda[2][1]')
     expect(zodIssuePath({ path: ['target', 'formula'] })).toBe('target.formula')
     expect(zodIssuePath({ path: ['helicities', 0] })).toBe('helicities[0]')

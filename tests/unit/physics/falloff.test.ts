@@ -1,5 +1,5 @@
 // Large-z falloff along every [i,j⟩ shift, measured exactly at seeded rational points, against the
-// exponent table of CONVENTIONS.md (validity: Britto, Cachazo, Feng, Witten, PRL 94 (2005)
+// exponent falloff table of docs/conventions.md (validity: Britto, Cachazo, Feng, Witten, PRL 94 (2005)
 // 181602; the exponents themselves are common practice).
 import { describe, expect, it } from 'vitest'
 import { probeFalloff, falloffTable } from '../../../shared/physics/falloff'
@@ -25,7 +25,7 @@ for (const [theory, h] of cases) {
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) if (i !== j) rows.push([`${theory} ${h.join(',')} [${i + 1},${j + 1}⟩`, theory, h, i, j])
 }
 
-describe('measured exponent = CONVENTIONS.md table', () => {
+describe('measured exponent = docs/conventions.md falloff table', () => {
   it.each(rows)('%s', (_, theory, h, i, j) => {
     const p = processOf(theory)
     const r = probeFalloff(p, h, i, j)

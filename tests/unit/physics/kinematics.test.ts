@@ -1,4 +1,4 @@
-// Kinematics: spinors of real momenta (CONVENTIONS.md), seeded points, RAMBO (Kleiss, Stirling,
+// Kinematics: spinors of real momenta (docs/conventions.md), seeded points, RAMBO (Kleiss, Stirling,
 // Ellis, Comput. Phys. Commun. 40 (1986) 359), and validation of given momenta.
 import { describe, expect, it } from 'vitest'
 import { complexField as C, rationalField as Q } from '../../../shared/physics/field'
@@ -37,7 +37,7 @@ describe('spinors of a real massless momentum', () => {
     })
   })
 
-  it('p0 < 0: λ(p) = λ(−p), λ̃(p) = −λ̃(−p) (CONVENTIONS.md)', () => {
+  it('p0 < 0: λ(p) = λ(−p), λ̃(p) = −λ̃(−p) (docs/conventions.md)', () => {
     const a = spinorsOfMomentum([-3, 1, -2, 2])
     const b = spinorsOfMomentum([3, -1, 2, -2])
     expect(a.lambda[0].equals(b.lambda[0]) && a.lambda[1].equals(b.lambda[1])).toBe(true)

@@ -1,4 +1,4 @@
-// Three-point blocks (CONVENTIONS.md "Amplitudes"): little-group scaling of the formula, σ,
+// Three-point blocks (docs/conventions.md "Amplitudes and normalisations"): little-group scaling of the formula, σ,
 // gravitons as squares of gluons, structural kinds, Bose (anti)symmetry (Benincasa & Cachazo,
 // arXiv:0705.4305), half-integer helicities in the formula itself.
 import { describe, expect, it } from 'vitest'

@@ -1,4 +1,4 @@
-// API.md "Verdicts — the first rule that applies wins", the float tolerance and the deviation.
+// docs/conventions.md "Verdicts", the float tolerance and the deviation.
 import { describe, expect, it } from 'vitest'
 import { decideVerdict, deviationOf, floatTolerance, type VerdictInput } from '../../../shared/physics/verdict'
 import { complexField as C, rationalField as Q, Fraction, Complex } from '../../../shared/physics/field'

@@ -1,5 +1,5 @@
 // Generated sets reproduce from their seed; their invariants agree with s_ij = 2 p_i·p_j computed
-// directly from the momenta (massless legs, mostly-minus metric, CONVENTIONS.md).
+// directly from the momenta (massless legs, mostly-minus metric, docs/conventions.md).
 import { describe, expect, it } from 'vitest'
 import { generatePoints, generatePoint, invariantMatrix, kinOf, minInvariantRatio, validatePoints, GenerateSchema } from '../../../shared/pointsets'
 

@@ -13,7 +13,7 @@ import { berendsGiele } from '../../../../shared/physics/targets/berends-giele'
 import { parkeTaylor } from '../../../../shared/physics/targets/parke-taylor'
 import { expectSubleading, permuteKin, randomComplexPoint, randomRationalPoint, relDiff, withSoftLeg } from './_points'
 
-const TOL = 1e-9 // CONVENTIONS.md: a sound float tolerance at generic points
+const TOL = 1e-9 // docs/conventions.md: a sound float tolerance at generic points
 
 /** Every ±1 helicity assignment of n legs. */
 function allHelicities(n: number): number[][] {

@@ -67,7 +67,7 @@ describe('planar cubic trees: count and diagram sum', () => {
     const k = randomRationalPoint(n, `cubic-${n}`)
     expect(cubicScalarFeynman(Q, k).equals(enumerated(k))).toBe(true)
   })
-  it('A_4 = 1/s12 + 1/s23 (CONVENTIONS.md)', () => {
+  it('A_4 = 1/s12 + 1/s23 (docs/conventions.md)', () => {
     const k = randomRationalPoint(4, 'cubic-a4')
     const expected = new Fraction(1).div(mandelstam(Q, k, [0, 1])).add(new Fraction(1).div(mandelstam(Q, k, [1, 2])))
     expect(cubicScalarFeynman(Q, k).equals(expected)).toBe(true)

@@ -1,5 +1,5 @@
 // The user-formula target: typed as Parke–Taylor (Parke & Taylor, PRL 56 (1986) 2459) or as the
-// three-point and KLT forms of CONVENTIONS.md it must reproduce those values exactly; brackets are
+// three-point and KLT forms of docs/conventions.md it must reproduce those values exactly; brackets are
 // compared with the spinor primitives; errors point at the user's character.
 import { describe, expect, it } from 'vitest'
 import { Fraction, complexField as C, rationalField as Q, SingularError } from '../../../../shared/physics/field'
@@ -29,12 +29,12 @@ describe('formula = Parke–Taylor when typed as Parke–Taylor (Parke & Taylor,
     const k = randomComplexPoint(n, `formula-${n}`)
     expect(relDiff(f.evaluate(C, k), parkeTaylor(C, k, h))).toBeLessThan(1e-12)
   })
-  it('the parity conjugate, with the (−1)ⁿ of CONVENTIONS.md, at n = 5', () => {
+  it('the parity conjugate, with the (−1)ⁿ of docs/conventions.md, at n = 5', () => {
     const f = compileFormula('-[2 4]^4/([1 2][2 3][3 4][4 5][5 1])', 5)
     const kq = randomRationalPoint(5, 'formula-anti')
     expect(f.evaluate(Q, kq).equals(parkeTaylor(Q, kq, [-1, 1, -1, 1, -1]))).toBe(true)
   })
-  it('KLT four-graviton form M_4 = −s12 A(1234) A(1243), typed with Parke–Taylor (CONVENTIONS.md)', () => {
+  it('KLT four-graviton form M_4 = −s12 A(1234) A(1243), typed with Parke–Taylor (docs/conventions.md)', () => {
     const f = compileFormula('-s(1,2) * <1 2>^4/(<1 2><2 3><3 4><4 1>) * <1 2>^4/(<1 2><2 4><4 3><3 1>)', 4)
     const kq = randomRationalPoint(4, 'formula-klt')
     expect(f.evaluate(Q, kq).equals(klt(Q, kq, [-2, -2, 2, 2]))).toBe(true)

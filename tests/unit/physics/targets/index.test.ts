@@ -1,4 +1,4 @@
-// Target selection (API.md "Targets") and evaluation through the registry; the values themselves are
+// Target selection (docs/api.md "Evaluation request") and evaluation through the registry; the values themselves are
 // checked against outside references in the other files of this folder.
 import { describe, expect, it } from 'vitest'
 import { complexField as C, rationalField as Q } from '../../../../shared/physics/field'
@@ -64,11 +64,17 @@ describe('evaluateTarget', () => {
 describe('catalogue entries', () => {
   it('one entry per target, each with a label, theories, a description and a source', () => {
     expect(TARGETS.map((t) => t.name).sort()).toEqual(['berends-giele', 'feynman', 'hodges', 'klt', 'parke-taylor'])
-    for (const t of TARGETS) {
-      expect(t.label.length).toBeGreaterThan(3)
-      expect(t.theories.length).toBeGreaterThan(0)
-      expect(t.description.length).toBeGreaterThan(20)
-      expect(t.source).toMatch(/\d{4}|arXiv|common practice/)
-    }
+    expect(Object.fromEntries(TARGETS.map((t) => [t.name, [t.label, t.theories]]))).toEqual({
+      'parke-taylor': ['Parke–Taylor', ['gluon']],
+      'berends-giele': ['Berends–Giele', ['gluon']],
+      hodges: ['Hodges determinant', ['graviton', 'spin']],
+      klt: ['KLT relations', ['graviton', 'spin']],
+      feynman: ['Feynman diagrams', ['scalar-cubic']],
+    })
+    // Each source is a citation: a journal with volume and year, an arXiv number, or says it is common practice.
+    for (const t of TARGETS) expect(t.source).toMatch(/\b[A-Z][\w. ]+ [A-Z]?\d+ \(\d{4}\) \d+|arXiv:\d{4}\.\d{4,5}|common practice/)
+    // Every theory a target names offers it in the catalogue's sense: it applies to some process of that theory.
+    const sample: Record<string, [number[], number?]> = { gluon: [[-1, -1, 1, 1]], graviton: [[-2, -2, 2, 2]], spin: [[-2, -2, 2, 2], 2], 'scalar-cubic': [[0, 0, 0, 0]] }
+    for (const t of TARGETS) for (const th of t.theories) expect(t.applies(th, sample[th]![0], sample[th]![1])).toBe(true)
   })
 })
