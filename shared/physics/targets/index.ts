@@ -6,7 +6,7 @@ import { PhysicsError } from '../errors'
 import { parkeTaylor, classifyGluon } from './parke-taylor'
 import { berendsGiele } from './berends-giele'
 import { hodges, classifyGraviton } from './hodges'
-import { klt } from './klt'
+import { KLT_MAX_N, klt } from './klt'
 import { cubicScalarFeynman } from './cubic-scalar'
 
 export type TargetName = 'parke-taylor' | 'berends-giele' | 'hodges' | 'klt' | 'feynman'
@@ -48,7 +48,7 @@ export const TARGETS: TargetInfo[] = [
     name: 'klt',
     label: 'KLT relations',
     theories: ['graviton', 'spin'],
-    description: 'Graviton amplitudes as sums of products of colour-ordered gluon amplitudes (from Berends–Giele) weighted by Mandelstam invariants; n = 3..6, every helicity configuration.',
+    description: 'Graviton amplitudes as sums of products of colour-ordered gluon amplitudes (from Berends–Giele) weighted by Mandelstam invariants; n = 3..7 (n = 7 by the momentum kernel), every helicity configuration.',
     source: 'H. Kawai, D. Lewellen, S.-H. Tye, Nucl. Phys. B269 (1986) 1; Z. Bern, L. Dixon, M. Perelstein, J. Rozowsky, Nucl. Phys. B546 (1999) 423',
   },
   {
@@ -79,7 +79,7 @@ export function applicableTargets(theory: TargetTheory, helicities: number[], sp
     const c = classifyGraviton(helicities).kind
     const out: TargetName[] = []
     if (c !== 'other') out.push('hodges')
-    if (n <= 6) out.push('klt')
+    if (n <= KLT_MAX_N) out.push('klt')
     return out
   }
   if (theory === 'scalar-cubic') return helicities.every((h) => h === 0) ? ['feynman'] : []
@@ -88,7 +88,7 @@ export function applicableTargets(theory: TargetTheory, helicities: number[], sp
 
 /**
  * The best independent target: gluon MHV/anti-MHV → parke-taylor, other gluons → berends-giele,
- * graviton MHV → hodges, other gravitons at n ≤ 6 → klt, cubic scalar → feynman; null if none.
+ * graviton MHV → hodges, other gravitons at n ≤ 7 → klt, cubic scalar → feynman; null if none.
  */
 export function autoTarget(theory: TargetTheory, helicities: number[], spin?: number): TargetName | null {
   return applicableTargets(theory, helicities, spin)[0] ?? null
