@@ -116,6 +116,21 @@ function translate(src: string, n: number): Translation {
       } else return p
     }
   }
+  /** "(" legs separated by commas ")" after the name s or A (the first may be digits written together). */
+  const legList = (name: string, allowPair: boolean): number[] => {
+    expectChar('(', `"(" after ${name}`)
+    legAt = []
+    const p: number[] = [...legs(allowPair)]
+    for (;;) {
+      ws()
+      if (src[pos] === ',') {
+        pos++
+        p.push(...legs(false))
+      } else break
+    }
+    expectChar(')', `"," or ")" in ${name}(…)`)
+    return p
+  }
   const call = (b: Bracket, at: number) => {
     const args = b.kind === 'sand' ? [b.i, b.j, ...b.p] : b.kind === 'mand' || b.kind === 'amp' ? b.p : b.legs
     // A space keeps "<1 2><2 3>" an implicit product for mathjs.
@@ -162,33 +177,13 @@ function translate(src: string, n: number): Translation {
       pos = e
       if (name === 'A') {
         // A(σ1, …, σn): the amplitude of the same process with its legs in this order
-        expectChar('(', '"(" after A')
-        legAt = []
-        const p: number[] = [...legs(n <= 9)]
-        for (;;) {
-          ws()
-          if (src[pos] === ',') {
-            pos++
-            p.push(...legs(false))
-          } else break
-        }
-        expectChar(')', '"," or ")" in A(…)')
+        const p = legList('A', n <= 9)
         noRepeats(p, 'A(…)')
         if (p.length !== n) fail(`A(…) lists every leg once: ${n} legs, found ${p.length}`, at + 1)
         call({ kind: 'amp', p }, at)
         continue
       }
-      expectChar('(', '"(" after s')
-      legAt = []
-      const p: number[] = [...legs(true)]
-      for (;;) {
-        ws()
-        if (src[pos] === ',') {
-          pos++
-          p.push(...legs(false))
-        } else break
-      }
-      expectChar(')', '"," or ")" in s(…)')
+      const p = legList('s', true)
       if (p.length < 2) fail('s(…) needs at least two legs', at + 1)
       noRepeats(p, 's(…)')
       call({ kind: 'mand', p }, at)

@@ -34,7 +34,7 @@ describe('response shape (API.md "Response 200")', () => {
     const res = await ev({ theory: 'gluon', helicities: MHV5, kinematics: { kind: 'random', seed: 7 } })
     expect(res.status).toBe(200)
     const b = res.body
-    expect(Object.keys(b).sort()).toEqual(['arithmetic', 'deviation', 'engine', 'falloff', 'kinematics', 'ms', 'n', 'shift', 'target', 'terms', 'theory', 'value', 'verdict', 'warnings'].sort())
+    expect(Object.keys(b).sort()).toEqual(['arithmetic', 'deviation', 'engine', 'falloff', 'kinematics', 'ms', 'n', 'precision', 'shift', 'target', 'terms', 'theory', 'value', 'verdict', 'warnings'].sort())
     expect(b).toMatchObject({ n: 5, theory: 'gluon', shift: [1, 2], arithmetic: 'float', verdict: 'agrees', falloff: null, warnings: [], target: { name: 'parke-taylor' } })
     expect(b.engine.version).toMatch(/^\d+\.\d+\.\d+/)
     expect(b.deviation).toBeLessThan(1e-9)
