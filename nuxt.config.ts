@@ -56,6 +56,10 @@ export default defineNuxtConfig({
     headers: {
       crossOriginEmbedderPolicy: 'unsafe-none',
       contentSecurityPolicy: {
+        // Everything comes from the app itself: fonts are shipped, KaTeX and Vue Flow are bundled,
+        // fetches and the batch event stream are same-origin (ws: only for the dev server's reload).
+        'default-src': ["'self'"],
+        'connect-src': process.env.NODE_ENV === 'development' ? ["'self'", 'ws:'] : ["'self'"],
         'img-src': ["'self'", 'data:', 'blob:'],
         'font-src': ["'self'", 'data:'],
         'style-src': ["'self'", "'unsafe-inline'"],

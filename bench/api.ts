@@ -184,6 +184,21 @@ async function main() {
     overheadRows.push(`| ${name} | ${fmt(med(wall))} | ${fmt(med(engine))} | ${fmt(med(pool))} | **${fmt(med(over))}** | ${fmt(bare)} | ${(med(engine) / bare).toFixed(1)}× |`)
   }
 
+  // The floor of the HTTP stack for comparison: the same client, one request at a time.
+  for (const [name, path] of [['GET /api/auth/me (session check only)', '/api/auth/me'], ['GET an unknown route (404, no session work)', '/api/no-such-route']] as const) {
+    const get = () => fetch(`${base}${path}`, { headers: { cookie } })
+    for (let k = 0; k < 30; k++) await (await get()).text()
+    const wall: number[] = []
+    for (let k = 0; k < (quick ? 100 : 400); k++) {
+      const t = performance.now()
+      await (await get()).text()
+      wall.push(performance.now() - t)
+    }
+    const w = [...wall].sort((x, y) => x - y)[Math.floor(wall.length / 2)]!
+    figures[`floor ${name}`] = { wallP50: w }
+    overheadRows.push(`| ${name} | ${fmt(w)} | — | — | ${fmt(w)} | — | — |`)
+  }
+
   console.log(`\nPolewright API bench — Node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? '?'}), ${figures.threads} evaluation threads, load average ${loadavg()[0]!.toFixed(1)} at the end (${Number(figures.loadBefore).toFixed(1)} at the start)\n`)
   console.log('| scenario | throughput | p50 | p99 | notes |')
   console.log('|---|---|---|---|---|')

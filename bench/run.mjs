@@ -2,8 +2,7 @@
 // with esbuild (installed with Nuxt) and runs it with --expose-gc; a bench/<name>.mjs runs as is.
 import { build } from 'esbuild'
 import { spawnSync } from 'node:child_process'
-import { existsSync, mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
+import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs'
 import { join, dirname } from 'node:path'
 import { fileURLToPath } from 'node:url'
 
@@ -15,9 +14,11 @@ const mjs = join(here, `${name}.mjs`)
 let entry = mjs
 let dir = null
 if (existsSync(ts)) {
-  dir = mkdtempSync(join(tmpdir(), 'polewright-bench-'))
+  // Inside node_modules, so the packages left out of the bundle (the native libSQL binding) resolve.
+  mkdirSync(join(here, '../node_modules/.cache'), { recursive: true })
+  dir = mkdtempSync(join(here, '../node_modules/.cache/polewright-bench-'))
   entry = join(dir, `${name}.mjs`)
-  await build({ entryPoints: [ts], bundle: true, platform: 'node', format: 'esm', outfile: entry, logLevel: 'warning' })
+  await build({ entryPoints: [ts], bundle: true, platform: 'node', format: 'esm', outfile: entry, logLevel: 'warning', external: ['@libsql/*', 'libsql'] })
 } else if (!existsSync(mjs) || name === 'run') {
   console.error(`no benchmark bench/${name}.ts or bench/${name}.mjs`)
   process.exit(2)

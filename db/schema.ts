@@ -119,6 +119,19 @@ export const checkPoints = sqliteTable('check_points', {
   message: text('message'),
 }, t => [primaryKey({ columns: [t.checkId, t.idx] })])
 
+// One row per stored chunk of a batch run on the job queue: a retried chunk finds its row and
+// stores nothing twice (unique check + chunk); the row's id orders chunks for the progress tally.
+export const batchChunks = sqliteTable('batch_chunks', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  checkId: integer('check_id').notNull().references(() => checks.id, { onDelete: 'cascade' }),
+  chunk: integer('chunk').notNull(),
+  points: integer('points').notNull(),
+  counts: text('counts', { mode: 'json' }).notNull().$type<Record<string, number>>(),
+  worker: text('worker').notNull(),
+  evalMs: real('eval_ms').notNull(),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('batch_chunks_check_chunk').on(t.checkId, t.chunk)])
+
 export const comments = sqliteTable('comments', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   projectId: integer('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),

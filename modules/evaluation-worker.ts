@@ -2,27 +2,18 @@
 // file: Nitro bundles server code into chunks, but a worker thread needs a file to start from.
 // Build: <server output>/workers/evaluate.mjs, found by server/utils/pool.ts next to index.mjs.
 // Dev: <buildDir>/workers/evaluate.mjs, rebuilt when the engine changes, its path in runtimeConfig.
+// The build also holds the queue worker process, <server output>/worker.mjs (server/queue/worker.ts).
 import { existsSync, cpSync, mkdirSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { dirname, join, resolve } from 'node:path'
 import { build, type BuildOptions } from 'esbuild'
 import { defineNuxtModule } from '@nuxt/kit'
+import { evaluateOptions, queueWorkerOptions } from '../scripts/worker-bundle.mjs'
 
 export default defineNuxtModule({
   meta: { name: 'polewright-evaluation-worker' },
   setup(_options, nuxt) {
-    const entry = resolve(nuxt.options.rootDir, 'server/workers/evaluate.ts')
-    const options = (outfile: string): BuildOptions => ({
-      entryPoints: [entry],
-      outfile,
-      bundle: true,
-      platform: 'node',
-      format: 'esm',
-      target: 'node20',
-      logLevel: 'warning',
-      // CommonJS dependencies (complex.js, fraction.js, seedrandom, mathjs) may call require().
-      banner: { js: "import { createRequire as __pwRequire } from 'node:module'; const require = __pwRequire(import.meta.url);" },
-    })
+    const options = (outfile: string) => evaluateOptions(nuxt.options.rootDir, outfile) as BuildOptions
 
     if (nuxt.options.dev) {
       // One-shot builds (no long-lived esbuild service across Nuxt's restarts): at start, and
@@ -52,6 +43,7 @@ export default defineNuxtModule({
         if (nitro.options.dev) return
         const serverDir = nitro.options.output.serverDir
         await build(options(join(serverDir, 'workers/evaluate.mjs')))
+        await build(queueWorkerOptions(nuxt.options.rootDir, join(serverDir, 'worker.mjs')) as BuildOptions)
         // tinypool starts its threads from its own dist/entry/worker.js, which file tracing misses.
         const traced = join(serverDir, 'node_modules/tinypool')
         if (existsSync(traced) && !existsSync(join(traced, 'dist/entry/worker.js'))) {

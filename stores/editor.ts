@@ -2,7 +2,8 @@
 // being edited, selection, the undo/redo stack and the unsaved draft in localStorage. Server calls
 // stay in the page; the store only takes their results, so it is unit-tested in node.
 import { defineStore } from 'pinia'
-import { computed, ref, shallowRef } from 'vue'
+import { computed, markRaw, ref, shallowRef, toRaw } from 'vue'
+import { useManualRefHistory } from '@vueuse/core'
 import type { Graph, Process } from '~~/shared/schemas/graph'
 import { GRAPH_SCHEMA_VERSION } from '~~/shared/schemas/graph'
 import type { EvaluateResponse, WireTerm } from '~~/shared/schemas/evaluate'
@@ -28,13 +29,12 @@ export interface Draft { baseVersion: number, title: string, graph: Graph, saved
 const UNDO_LIMIT = 200
 export const draftKey = (id: number) => `polewright:draft:${id}`
 
-function storage(): Storage | null {
-  try {
-    return typeof window !== 'undefined' && window.localStorage ? window.localStorage : null
-  }
-  catch {
-    return null
-  }
+/**
+ * Plain data from whatever the caller holds: a spread of reactive state keeps proxies inside
+ * (the shift array), which structuredClone refuses with a DataCloneError.
+ */
+export function plain<T>(x: T): T {
+  return x === undefined ? x : JSON.parse(JSON.stringify(toRaw(x))) as T
 }
 
 let seq = 0
@@ -55,8 +55,6 @@ export const useEditorStore = defineStore('editor', () => {
   const tree = shallowRef<WireTerm[] | null>(null)
   const selection = ref<string[]>([])
   const selectedEdges = ref<string[]>([])
-  const undoStack = shallowRef<string[]>([])
-  const redoStack = shallowRef<string[]>([])
   /** JSON of the last saved or loaded document, to tell whether there are unsaved changes. */
   const savedJson = ref('')
   const result = shallowRef<EvaluateResponse | null>(null)
@@ -94,6 +92,15 @@ export const useEditorStore = defineStore('editor', () => {
     return out
   })
 
+  /** The drawn term the term list focuses (component id): the view zooms to it, the rest dims. */
+  const focusTerm = ref<string | null>(null)
+  const dimmed = computed(() => {
+    const c = focusTerm.value ? validation.value.components.find(x => x.id === focusTerm.value) : null
+    if (!c) return new Set<string>()
+    const keep = new Set([...c.nodeIds, ...c.legIds])
+    return new Set(nodes.value.filter(n => !keep.has(n.id)).map(n => n.id))
+  })
+
   function toGraph(): Graph {
     const s = { ...settings.value }
     if (expansion.value) s.expansion = expansion.value
@@ -108,17 +115,12 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   const docJson = () => JSON.stringify({ title: title.value, graph: toGraph() })
-  const dirty = computed(() => {
-    void nodes.value
-    void edges.value
-    void process.value
-    void title.value
-    void expansion.value
-    return docJson() !== savedJson.value
-  })
+  /** The document as it would be saved now (title and graph), as JSON. */
+  const currentJson = computed(() => docJson())
+  const dirty = computed(() => currentJson.value !== savedJson.value)
 
   function setGraph(g: Graph) {
-    process.value = g.process ? structuredClone(g.process) : undefined
+    process.value = g.process ? plain(g.process) : undefined
     const s = { ...(g.settings ?? {}) }
     const exp = s.expansion as Expansion | undefined
     delete s.expansion
@@ -140,8 +142,7 @@ export const useEditorStore = defineStore('editor', () => {
     resultKey.value = null
     selection.value = []
     selectedEdges.value = []
-    undoStack.value = []
-    redoStack.value = []
+    resetHistory()
     savedJson.value = docJson()
     fitToken.value++
   }
@@ -151,7 +152,6 @@ export const useEditorStore = defineStore('editor', () => {
     version.value = doc.version
     if (doc.title !== undefined) title.value = doc.title
     savedJson.value = docJson()
-    clearDraft()
   }
 
   const snap = (): string => JSON.stringify({ process: process.value, nodes: nodes.value, edges: edges.value, expansion: expansion.value, title: title.value } satisfies Snapshot)
@@ -166,36 +166,53 @@ export const useEditorStore = defineStore('editor', () => {
     selection.value = selection.value.filter(id => ids.has(id))
   }
 
+  // Undo and redo: snapshots of the document as JSON. `recorded` is the state as last recorded;
+  // changes made outside commit() (a load, a fetched tree) are taken in before the next step.
+  const recorded = shallowRef('')
+  const history = useManualRefHistory(recorded, {
+    capacity: UNDO_LIMIT,
+    setSource: (src, json) => {
+      src.value = json
+      restore(json)
+    },
+  })
+  const { undoStack, redoStack, canUndo, canRedo } = history
+  function syncHistory() {
+    const now = snap()
+    if (recorded.value === now) return
+    recorded.value = now
+    history.last.value = markRaw({ snapshot: now, timestamp: Date.now() })
+  }
+  function resetHistory() {
+    history.clear()
+    recorded.value = ''
+    syncHistory()
+  }
+
   /** Every change goes through here: one undo step, redo cleared, draft written. */
   function commit(change: () => void) {
     if (readOnly.value) return
-    const before = snap()
+    syncHistory()
     change()
-    if (snap() === before) return
-    undoStack.value = [...undoStack.value.slice(-(UNDO_LIMIT - 1)), before]
-    redoStack.value = []
-    writeDraft()
+    const after = snap()
+    if (after === recorded.value) return
+    recorded.value = after
+    history.commit()
   }
   function undo() {
-    const prev = undoStack.value.at(-1)
-    if (prev === undefined || readOnly.value) return
-    redoStack.value = [...redoStack.value, snap()]
-    undoStack.value = undoStack.value.slice(0, -1)
-    restore(prev)
-    writeDraft()
+    if (readOnly.value) return
+    syncHistory()
+    if (!canUndo.value) return
+    history.undo()
   }
   function redo() {
-    const next = redoStack.value.at(-1)
-    if (next === undefined || readOnly.value) return
-    undoStack.value = [...undoStack.value, snap()]
-    redoStack.value = redoStack.value.slice(0, -1)
-    restore(next)
-    writeDraft()
+    if (readOnly.value || !canRedo.value) return
+    history.redo()
   }
 
   // ---- the process ----
   function setProcess(p: Process | undefined) {
-    commit(() => { process.value = p ? structuredClone(p) : undefined })
+    commit(() => { process.value = p ? plain(p) : undefined })
   }
   function setShift(shift: [number, number] | undefined) {
     commit(() => {
@@ -205,8 +222,8 @@ export const useEditorStore = defineStore('editor', () => {
         if ('error' in got) return
         process.value = got.process
       }
-      const p = { ...process.value! }
-      if (shift) p.shift = shift
+      const p = plain(process.value!)
+      if (shift) p.shift = [shift[0], shift[1]]
       else delete p.shift
       process.value = p
     })
@@ -349,7 +366,7 @@ export const useEditorStore = defineStore('editor', () => {
   function applyExpansion(terms: WireTerm[], shift: [number, number], seed: string, full = false) {
     if (!process.value) return
     commit(() => {
-      process.value = { ...process.value!, shift }
+      process.value = { ...plain(process.value!), shift: [shift[0], shift[1]] }
       tree.value = terms
       expansion.value = { key: processKey(process.value), seed, specs: [] }
       rebuild(full ? expandAllSpecs(terms, topSpecs(terms)) : topSpecs(terms))
@@ -398,9 +415,19 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   // ---- results ----
+  /** What a check computes from: the process and the drawn structure (positions do not matter). */
+  const computationKey = () => JSON.stringify({
+    p: process.value ? processKey(process.value) : null,
+    n: nodes.value.map(n => [n.id, n.type, (n.data as { label?: unknown }).label, (n.data as { helicity?: unknown }).helicity, (n.data as { helicities?: unknown }).helicities]),
+    e: edges.value.map(e => [e.source, e.sourceHandle, e.target, e.targetHandle, (e.data as LineData | undefined)?.helicity, (e.data as LineData | undefined)?.targetHelicity]),
+  })
+  const resultFor = ref<string | null>(null)
+  /** A result computed before the canvas or the process last changed. */
+  const resultStale = computed(() => !!result.value && resultFor.value !== computationKey())
   function setResult(r: EvaluateResponse | null) {
     result.value = r
     resultKey.value = r && process.value ? processKey(process.value) : null
+    resultFor.value = r ? computationKey() : null
   }
 
   // ---- selection ----
@@ -409,45 +436,12 @@ export const useEditorStore = defineStore('editor', () => {
     selectedEdges.value = edgeIds
   }
 
-  // ---- draft ----
-  let draftTimer: ReturnType<typeof setTimeout> | null = null
-  function writeDraft(now = false) {
-    const st = storage()
-    if (!st || diagramId.value === null || readOnly.value) return
-    const id = diagramId.value
-    const write = () => {
-      draftTimer = null
-      if (!dirty.value) { st.removeItem(draftKey(id)); return }
-      const d: Draft = { baseVersion: version.value, title: title.value, graph: toGraph(), savedAt: Date.now() }
-      try {
-        st.setItem(draftKey(id), JSON.stringify(d))
-      }
-      catch { /* storage full: the canvas still holds the work */ }
-    }
-    if (draftTimer) clearTimeout(draftTimer)
-    if (now) write()
-    else draftTimer = setTimeout(write, 400)
-  }
-  function readDraft(id: number): Draft | null {
-    const raw = storage()?.getItem(draftKey(id))
-    if (!raw) return null
-    try {
-      const d = JSON.parse(raw) as Draft
-      return d && d.graph && Array.isArray(d.graph.nodes) ? d : null
-    }
-    catch {
-      return null
-    }
-  }
+  // ---- draft (kept in localStorage by composables/useDiagramDraft.ts) ----
   function applyDraft(d: Draft) {
     commit(() => {
       title.value = d.title
       setGraph(d.graph)
     })
-  }
-  function clearDraft() {
-    if (draftTimer) { clearTimeout(draftTimer); draftTimer = null }
-    if (diagramId.value !== null) storage()?.removeItem(draftKey(diagramId.value))
   }
   /** Replace the canvas with another document (a revision, an import), as one undoable step. */
   function replaceGraph(g: Graph, t?: string) {
@@ -461,11 +455,11 @@ export const useEditorStore = defineStore('editor', () => {
 
   return {
     diagramId, projectId, title, version, role, process, settings, nodes, edges, expansion, tree, selection, selectedEdges,
-    undoStack, redoStack, result, resultKey, highlightTerm, shiftPick, pickingShift, fitToken, lastLayoutMs,
-    readOnly, validation, nodeById, expansionStale, termComponents, highlighted, dirty,
+    undoStack, redoStack, canUndo, canRedo, result, resultKey, highlightTerm, shiftPick, pickingShift, fitToken, lastLayoutMs,
+    readOnly, validation, nodeById, resultStale, focusTerm, dimmed, expansionStale, termComponents, highlighted, dirty,
     toGraph, load, markSaved, commit, undo, redo, setProcess, setShift, setTitle, pickLeg,
     addNode, connect, updateNodeData, setNodeType, updateEdgeData, flipLine, moveNodes, removeIds, removeSelected, clearCanvas, tidy,
     applyExpansion, setTree, canExpand, expandBlock, collapsiblePath, collapseAt, expandAll, specOfNode,
-    setResult, select, writeDraft, readDraft, applyDraft, clearDraft, replaceGraph,
+    setResult, select, applyDraft, replaceGraph, currentJson,
   }
 })

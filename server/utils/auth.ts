@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { createHash, randomBytes } from 'node:crypto'
-import { and, eq, isNull } from 'drizzle-orm'
+import { and, eq, isNull, lt, or, sql } from 'drizzle-orm'
 
 export interface AuthUser {
   id: number
@@ -49,11 +49,7 @@ export async function currentAuth(event: H3Event): Promise<AuthContext | null> {
     const raw = getCookie(event, sessionCookieName())
     const sealed = await unsealedSession(event, raw)
     if (sealed) {
-      const row = await db.select({ session: tables.sessions, user: tables.users })
-        .from(tables.sessions)
-        .innerJoin(tables.users, eq(tables.users.id, tables.sessions.userId))
-        .where(eq(tables.sessions.tokenHash, sealed.hash))
-        .get()
+      const row = await sessionByHash().get({ hash: sealed.hash })
       const now = Date.now()
       if (!row || row.user.id !== sealed.userId || row.user.disabled || !sessionOpen(row.session, now)) {
         if (raw) unsealed.delete(raw)
@@ -69,6 +65,20 @@ export async function currentAuth(event: H3Event): Promise<AuthContext | null> {
   }
   event.context.auth = result
   return result
+}
+
+// The session row and its user are read on every request: the statement is built once (drizzle's
+// query building costs more than the lookup itself).
+let sessionStatement: ReturnType<typeof prepareSessionByHash> | undefined
+function prepareSessionByHash() {
+  return useDB().select({ session: tables.sessions, user: tables.users })
+    .from(tables.sessions)
+    .innerJoin(tables.users, eq(tables.users.id, tables.sessions.userId))
+    .where(eq(tables.sessions.tokenHash, sql.placeholder('hash')))
+    .prepare()
+}
+function sessionByHash() {
+  return (sessionStatement ??= prepareSessionByHash())
 }
 
 /** Absolute lifetime of a session (the cookie's maxAge is the same) and the idle time that ends it. */
@@ -169,4 +179,14 @@ export async function revokeCredentials(userId: number, opts: { tokens: boolean 
     .where(and(eq(tables.apiTokens.userId, userId), isNull(tables.apiTokens.revokedAt)))
     .returning({ id: tables.apiTokens.id })
   return ended.length
+}
+
+/** Deletes session rows that can no longer be used (ended a week ago, expired, or idle too long). */
+export async function pruneSessions(now = Date.now()) {
+  const s = tables.sessions
+  await useDB().delete(s).where(or(
+    lt(s.revokedAt, new Date(now - 7 * 24 * 3600 * 1000)),
+    lt(s.expiresAt, new Date(now)),
+    lt(s.lastSeenAt, new Date(now - SESSION_IDLE_MS)),
+  ))
 }

@@ -157,6 +157,14 @@ async function settleOrphan(row: CheckRow): Promise<CheckRow> {
   return updated ?? (await useDB().select().from(tables.checks).where(eq(tables.checks.id, row.id)).get()) ?? row
 }
 
+/** At start-up: every batch a previous process left queued or running is marked interrupted. */
+export async function settleOrphanBatches(): Promise<number> {
+  const rows = await useDB().select().from(tables.checks)
+    .where(and(eq(tables.checks.kind, 'batch'), inArray(tables.checks.status, ['queued', 'running'])))
+  for (const row of rows) await settleOrphan(row)
+  return rows.length
+}
+
 export async function batchView(row: CheckRow) {
   const r = await settleOrphan(row)
   const l = live.get(r.id)
@@ -291,7 +299,7 @@ export async function cancelBatchesOfPointSet(pointSetId: number) {
 
 type CheckPointRow = typeof tables.checkPoints.$inferInsert
 
-function rowOf(checkId: number, idx: number, data: PointData, item: { ok: true, value: EvaluateResponse } | { ok: false, message: string }): CheckPointRow {
+export function rowOf(checkId: number, idx: number, data: PointData, item: { ok: true, value: EvaluateResponse } | { ok: false, message: string }): CheckPointRow {
   const base = { checkId, idx, minInvariant: data.minInvariant ?? null }
   if (!item.ok) return { ...base, value: null, target: null, deviation: null, verdict: 'not evaluated', message: item.message }
   const r = item.value
@@ -317,9 +325,9 @@ async function runBatch(checkId: number, pointSetId: number, total: number, plan
   else {
     l.startedAt = performance.now()
     await db.update(tables.checks).set({ status: 'running' }).where(eq(tables.checks.id, checkId))
-    const publish = async () => {
+    const publish = async (note?: string) => {
       const row = await db.select().from(tables.checks).where(eq(tables.checks.id, checkId)).get()
-      if (row) emit(l.last = progressOf(row, l))
+      if (row) emit(l.last = { ...progressOf(row, l), ...(note ? { message: note } : {}) })
     }
     await publish()
 
@@ -332,7 +340,12 @@ async function runBatch(checkId: number, pointSetId: number, total: number, plan
       let t = 0
       return pts.map((p, k) => rowOf(checkId, p.idx, p.data, mismatch[k] ? { ok: false, message: mismatch[k]! } : items[t++]!))
     }
-    try {
+    // With REDIS_URL the chunks go to the queue's worker processes (server/utils/queue.ts).
+    if (queueEnabled()) {
+      ({ status, done, message } = await runOnQueue(checkId, pointSetId, total, plan, l, publish)
+        .catch(e => ({ status: 'failed' as const, done, message: `the batch stopped: ${(e as Error).message}` })))
+    }
+    else try {
       let next: Promise<CheckPointRow[]> | null = total > 0 ? evalChunk(0) : null
       for (let from = 0; next; from += BATCH_CHUNK) {
         const rows = await next

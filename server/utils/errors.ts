@@ -1,10 +1,10 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
-import { describeIssues } from '../../shared/schemas/common'
+import { DECIMAL_ID, describeIssues } from '../../shared/schemas/common'
 
 const statusMessages: Record<number, string> = {
   400: 'Bad Request', 401: 'Unauthorized', 403: 'Forbidden', 404: 'Not Found', 409: 'Conflict', 410: 'Gone',
-  413: 'Payload Too Large', 422: 'Unprocessable Entity', 429: 'Too Many Requests', 503: 'Service Unavailable',
+  413: 'Payload Too Large', 415: 'Unsupported Media Type', 422: 'Unprocessable Entity', 429: 'Too Many Requests', 503: 'Service Unavailable',
 }
 
 /** An h3 error whose message starts with the field path, as API.md requires. */
@@ -55,8 +55,8 @@ export function parseWith<S extends z.ZodType>(input: unknown, schema: S, fallba
 }
 
 export function routeId(event: H3Event, name = 'id'): number {
-  const raw = getRouterParam(event, name)
-  const id = Number(raw)
-  if (!Number.isInteger(id) || id <= 0) throw httpError(404, `${name}: no such item`)
-  return id
+  const raw = getRouterParam(event, name) ?? ''
+  // Plain decimal only: Number() would read 0x1, 1e0 and " 1" as id 1.
+  if (!DECIMAL_ID.test(raw)) throw httpError(404, `${name}: no such item`)
+  return Number(raw)
 }

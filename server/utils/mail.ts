@@ -59,8 +59,10 @@ export function appUrl(): string | null {
   const configured = process.env.APP_URL?.trim()
   if (configured) return configured.replace(/\/+$/, '')
   if (import.meta.dev) {
-    const host = process.env.NUXT_HOST || process.env.HOST || 'localhost'
-    return `http://${host.includes(':') ? `[${host}]` : host}:${process.env.NUXT_PORT || process.env.PORT || 3000}`
+    // The same settings, in the same order, that `nuxt dev` listens on.
+    const env = process.env
+    const host = env.NUXT_HOST || env.NITRO_HOST || env.HOST || 'localhost'
+    return `http://${host.includes(':') ? `[${host}]` : host}:${env.NUXT_PORT || env.NITRO_PORT || env.PORT || 3000}`
   }
   return null
 }

@@ -1,4 +1,5 @@
 import { and, asc, eq } from 'drizzle-orm'
+import { pruneDeep } from '../../shared/schemas/json-bounds'
 import type { ProjectRole } from '../../shared/types/db'
 
 export function projectView(project: typeof tables.projects.$inferSelect, role: ProjectRole) {
@@ -13,12 +14,18 @@ export function projectView(project: typeof tables.projects.$inferSelect, role: 
   }
 }
 
+/** A stored graph as sent to the editor: values nested too deep to render are cut (the row is kept). */
+function openableGraph(graph: unknown) {
+  const { value, cut } = pruneDeep(graph)
+  return cut.length ? { graph: value as typeof graph, warnings: cut.map(path => `graph.${path}: nested too deep to open; cut from this view (saving replaces it)`) } : { graph }
+}
+
 export function diagramView(d: typeof tables.diagrams.$inferSelect) {
   return {
     id: d.id,
     projectId: d.projectId,
     title: d.title,
-    graph: d.graph,
+    ...openableGraph(d.graph),
     version: d.version,
     createdBy: d.createdBy,
     updatedBy: d.updatedBy,

@@ -28,6 +28,8 @@ import type { LimitCheckRequestInput } from '../../shared/schemas/limit-checks'
 import { MAX_SPIN } from '../../shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
 import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
+import { generatePoints } from '../../shared/pointsets/generate'
+import type { GenerateInput } from '../../shared/pointsets/schemas'
 import {
   CrossShiftRequestSchema,
   SHIFTS_MEASURE_LIMITS,
@@ -48,6 +50,7 @@ export type Task =
   | { kind: 'crossShift'; req: unknown }
   | { kind: 'limitCheck'; req: unknown }
   | { kind: 'catalogue' }
+  | { kind: 'generatePoints'; g: GenerateInput }
   /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
   | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
 
@@ -97,6 +100,8 @@ function dispatch(task: Task): unknown {
       return checkLimit(task.req as LimitCheckRequestInput)
     case 'catalogue':
       return catalogue()
+    case 'generatePoints':
+      return [...generatePoints(task.g)]
     case 'checkDrawing': {
       const t0 = performance.now()
       const res = task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)

@@ -62,15 +62,23 @@ export const API_SECTIONS: ApiSection[] = [
       {
         id: 'register', method: 'POST', path: '/api/auth/register', access: 'anyone', summary: 'Creates an account and signs in.',
         schema: RegisterSchema, examples: [example(RegisterSchema, 'a new account', { email: 'ada.quill@example.test', password: 'a long passphrase', name: 'Ada Quill' })],
-        response: 'The user `{ id, email, name, role }` and a session cookie.', statuses: [[201, 'created'], [400, 'a field is missing or malformed'], [409, 'the e-mail is already registered']],
+        response: 'The user `{ id, email, name, role }` and a session cookie.', statuses: [[201, 'created'], [400, 'a field is missing or malformed, or the password is too easy to guess (the message says why)'], [409, 'the e-mail is already registered']],
       },
       {
         id: 'login', method: 'POST', path: '/api/auth/login', access: 'anyone', summary: 'Signs in.',
         schema: LoginSchema, examples: [example(LoginSchema, 'sign in', { email: 'ada.quill@example.test', password: 'a long passphrase' })],
-        response: 'The user and a session cookie.', statuses: [[200, 'signed in'], [401, 'wrong e-mail or password'], [429, 'too many attempts for this e-mail']],
+        response: 'The user and a session cookie.', statuses: [[200, 'signed in'], [401, 'wrong e-mail or password'], [429, 'too many failed attempts for this account from this address, for this account, or from this address (the message gives the minutes)']],
       },
-      { id: 'logout', method: 'POST', path: '/api/auth/logout', access: 'anyone', summary: 'Ends the session.', response: 'Nothing.', statuses: [[204, 'signed out']] },
+      { id: 'logout', method: 'POST', path: '/api/auth/logout', access: 'anyone', summary: 'Ends the session on the server: a copy of the cookie stops working too.', response: 'Nothing.', statuses: [[204, 'signed out']] },
       { id: 'me', method: 'GET', path: '/api/auth/me', access: 'signed in', summary: 'Who is calling.', response: '`{ id, email, name, role }`.', statuses: [[200, 'the caller'], ...commonErrors], runnable: true },
+      {
+        id: 'sessions', method: 'GET', path: '/api/account/sessions', access: 'a signed-in session (not a token)', summary: 'The browsers signed in to your account.',
+        response: '`[{ id, userAgent, createdAt, lastSeenAt, expiresAt, current }]`, most recently seen first.', statuses: [[200, 'the open sessions'], [401, 'not signed in'], [403, 'called with an API token']],
+      },
+      {
+        id: 'session-end', method: 'DELETE', path: '/api/account/sessions/:id', params: { id: 12 }, access: 'a signed-in session (not a token)', summary: 'Ends one of your sessions; that browser is signed out at its next request.',
+        response: 'Nothing.', statuses: [[204, 'ended'], [404, 'not one of your sessions'], [403, 'called with an API token']],
+      },
     ],
   },
   {
@@ -128,6 +136,9 @@ export const API_SECTIONS: ApiSection[] = [
           example(EvaluateRequestSchema, 'exact arithmetic, a typed target', {
             theory: 'gluon', helicities: MHV5, kinematics: { kind: 'rational', seed: 3 }, arithmetic: 'exact',
             target: { formula: '<1 2>^4/(<1 2><2 3><3 4><4 5><5 1>)' },
+          }),
+          example(EvaluateRequestSchema, 'exact, with the big-rational reference instead of primes (same fractions, slower)', {
+            theory: 'gluon', helicities: [-1, 1, -1, 1, 1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' },
           }),
           example(EvaluateRequestSchema, 'six gluons, NMHV, physical point, falloff probed', {
             theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], kinematics: { kind: 'physical', seed: 1, energy: 500 }, shift: [1, 2], target: 'berends-giele', probeFalloff: true,

@@ -5,6 +5,7 @@ import type { Process } from '../schemas/graph'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
 import { helicityText, sign } from './types'
 import { absOf, fmtDeviation, fmtReal, phaseOf } from './format'
+import { neutraliseCell } from '../csv-safe'
 import { chevronPoints, handleLayout, nodeSize } from './geometry'
 
 /** Colours of tailwind.config.ts (kept in step by hand: the SVG must stand alone). */
@@ -13,7 +14,10 @@ export const PALETTE = {
   angle: '#0f8b8d', angleLight: '#d5efef', square: '#e04e2b', squareLight: '#fbe0d8', block: '#52606d', blockLight: '#e4e8ec',
 }
 
-const csvCell = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s)
+const csvCell = (raw: string) => {
+  const s = neutraliseCell(raw)
+  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s
+}
 const part = (c: WireComplex | null | undefined, k: 0 | 1) => (c ? (typeof c[k] === 'string' ? (c[k] as string) : String(c[k])) : '')
 
 /** The term table as CSV: one row per channel term, then the total and the target. */

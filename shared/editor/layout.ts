@@ -43,12 +43,107 @@ const sideOf = (n: EditorNode | undefined, handle: string | null | undefined) =>
 function orient(e: EditorEdge, byId: Map<string, EditorNode>): [string, string] {
   const a = byId.get(e.source)
   const b = byId.get(e.target)
+  // A term's top-level Line runs from its left side (A_L, path "L…") to its right side (A_R).
+  const side = (n: EditorNode | undefined) => (n?.type === 'leg' ? undefined : String((n?.data as { path?: string } | undefined)?.path ?? '')[0])
+  if (side(a) === 'L' && side(b) === 'R') return [e.source, e.target]
+  if (side(a) === 'R' && side(b) === 'L') return [e.target, e.source]
   const sa = a?.type === 'leg' ? undefined : sideOf(a, e.sourceHandle)
   const sb = b?.type === 'leg' ? undefined : sideOf(b, e.targetHandle)
   if (a?.type === 'leg') return sb === 'right' ? [e.target, e.source] : [e.source, e.target]
   if (b?.type === 'leg') return sa === 'left' ? [e.target, e.source] : [e.source, e.target]
   if (sa === 'left' && sb !== 'left') return [e.target, e.source]
   return [e.source, e.target]
+}
+
+/**
+ * External legs hanging off one vertex or Block on one side keep the cyclic order of the slots
+ * they join: dagre places them by rank only, so two legs often cross on their way in. Their rows
+ * are exchanged so the upper slot gets the upper leg.
+ */
+function untangleLegs(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, local: Map<string, { x: number, y: number }>) {
+  const inside = new Set(ids)
+  const degree = new Map<string, number>()
+  for (const e of edges) {
+    if (!inside.has(e.source) || !inside.has(e.target)) continue
+    degree.set(e.source, (degree.get(e.source) ?? 0) + 1)
+    degree.set(e.target, (degree.get(e.target) ?? 0) + 1)
+  }
+  const groups = new Map<string, { leg: string, slotY: number }[]>()
+  for (const e of edges) {
+    if (!inside.has(e.source) || !inside.has(e.target)) continue
+    const [legId, hubId, handle] = byId.get(e.source)?.type === 'leg' ? [e.source, e.target, e.targetHandle] : [e.target, e.source, e.sourceHandle]
+    const hub = byId.get(hubId)
+    if (byId.get(legId)?.type !== 'leg' || !hub || hub.type === 'leg' || degree.get(legId) !== 1) continue
+    const h = handleLayout(hub).find(x => x.id === handle)
+    if (!h) continue
+    const key = `${hubId}:${h.side}`
+    const g = groups.get(key) ?? []
+    g.push({ leg: legId, slotY: h.y })
+    groups.set(key, g)
+  }
+  for (const g of groups.values()) {
+    if (g.length < 2) continue
+    const rows = g.map(x => ({ ...local.get(x.leg)! })).sort((a, b) => a.y - b.y)
+    const bySlot = [...g].sort((a, b) => a.slotY - b.slotY)
+    bySlot.forEach((x, k) => { local.set(x.leg, { x: local.get(x.leg)!.x, y: rows[k]!.y }) })
+  }
+}
+
+type Local = { pos: Map<string, { x: number, y: number }>, w: number, h: number }
+
+/** One group of nodes laid out left to right by dagre, with top-left positions from (0, 0). */
+function layoutGroup(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number): Local {
+  const inside = new Set(ids)
+  const g = new Graph()
+  g.setGraph({ rankdir: 'LR', nodesep, ranksep, marginx: 0, marginy: 0 })
+  g.setDefaultEdgeLabel(() => ({}))
+  for (const id of ids) g.setNode(id, { ...nodeSize(byId.get(id)!) })
+  for (const e of edges) {
+    if (!inside.has(e.source) || !inside.has(e.target) || e.source === e.target) continue
+    const [a, b] = orient(e, byId)
+    g.setEdge(a, b)
+  }
+  // No incremental re-layout state: each call lays out a fresh graph (and is faster without it).
+  layout(g, { useDynamic: false })
+  let minX = Infinity
+  let minY = Infinity
+  let maxX = -Infinity
+  let maxY = -Infinity
+  const local = new Map<string, { x: number, y: number }>()
+  for (const id of ids) {
+    const p = g.node(id) as { x: number, y: number, width: number, height: number }
+    const tl = { x: p.x - p.width / 2, y: p.y - p.height / 2 }
+    local.set(id, tl)
+    minX = Math.min(minX, tl.x)
+    minY = Math.min(minY, tl.y)
+    maxX = Math.max(maxX, tl.x + p.width)
+    maxY = Math.max(maxY, tl.y + p.height)
+  }
+  untangleLegs(ids, edges, byId, local)
+  for (const [id, p] of local) local.set(id, { x: p.x - minX, y: p.y - minY })
+  return { pos: local, w: maxX - minX, h: maxY - minY }
+}
+
+/**
+ * The two sides of a term drawn by an expansion (nodes carry their path "L…" / "R…"), each with
+ * its own legs; null for a hand-built component.
+ */
+function sidesOf(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>): [string[], string[]] | null {
+  const side = new Map<string, string>()
+  for (const id of ids) {
+    const n = byId.get(id)!
+    if (n.type === 'leg') continue
+    const s = String((n.data as { path?: string }).path ?? '')[0]
+    if (s !== 'L' && s !== 'R') return null
+    side.set(id, s)
+  }
+  for (const e of edges) {
+    const [leg, hub] = byId.get(e.source)?.type === 'leg' ? [e.source, e.target] : [e.target, e.source]
+    if (byId.get(leg)?.type === 'leg' && side.has(hub)) side.set(leg, side.get(hub)!)
+  }
+  const L = ids.filter(id => side.get(id) === 'L')
+  const R = ids.filter(id => side.get(id) === 'R')
+  return L.length && R.length && L.length + R.length === ids.length ? [L, R] : null
 }
 
 /** Top-left positions for every node. */
@@ -60,42 +155,27 @@ export function layoutPositions(nodes: EditorNode[], edges: EditorEdge[], opts: 
   let y = origin.y
   let rowHeight = 0
   for (const ids of components(nodes, edges)) {
-    const inside = new Set(ids)
-    const g = new Graph()
-    g.setGraph({ rankdir: 'LR', nodesep, ranksep, marginx: 0, marginy: 0 })
-    g.setDefaultEdgeLabel(() => ({}))
-    for (const id of ids) g.setNode(id, { ...nodeSize(byId.get(id)!) })
-    for (const e of edges) {
-      if (!inside.has(e.source) || !inside.has(e.target) || e.source === e.target) continue
-      const [a, b] = orient(e, byId)
-      g.setEdge(a, b)
+    // A term's left side left of its right side, each laid out on its own, centred on each other.
+    const sides = sidesOf(ids, edges, byId)
+    let local: Local
+    if (sides) {
+      const L = layoutGroup(sides[0], edges, byId, nodesep, ranksep)
+      const R = layoutGroup(sides[1], edges, byId, nodesep, ranksep)
+      const h = Math.max(L.h, R.h)
+      const pos = new Map<string, { x: number, y: number }>()
+      for (const [id, p] of L.pos) pos.set(id, { x: p.x, y: p.y + (h - L.h) / 2 })
+      for (const [id, p] of R.pos) pos.set(id, { x: p.x + L.w + ranksep, y: p.y + (h - R.h) / 2 })
+      local = { pos, w: L.w + ranksep + R.w, h }
     }
-    // No incremental re-layout state: each call lays out a fresh graph (and is faster without it).
-    layout(g, { useDynamic: false })
-    let minX = Infinity
-    let minY = Infinity
-    let maxX = -Infinity
-    let maxY = -Infinity
-    const local = new Map<string, { x: number, y: number }>()
-    for (const id of ids) {
-      const p = g.node(id) as { x: number, y: number, width: number, height: number }
-      const tl = { x: p.x - p.width / 2, y: p.y - p.height / 2 }
-      local.set(id, tl)
-      minX = Math.min(minX, tl.x)
-      minY = Math.min(minY, tl.y)
-      maxX = Math.max(maxX, tl.x + p.width)
-      maxY = Math.max(maxY, tl.y + p.height)
-    }
-    const w = maxX - minX
-    const h = maxY - minY
-    if (x > origin.x && x + w > origin.x + maxRowWidth) {
+    else local = layoutGroup(ids, edges, byId, nodesep, ranksep)
+    if (x > origin.x && x + local.w > origin.x + maxRowWidth) {
       x = origin.x
       y += rowHeight + gap
       rowHeight = 0
     }
-    for (const [id, p] of local) out.set(id, { x: Math.round(x + p.x - minX), y: Math.round(y + p.y - minY) })
-    x += w + gap
-    rowHeight = Math.max(rowHeight, h)
+    for (const [id, p] of local.pos) out.set(id, { x: Math.round(x + p.x), y: Math.round(y + p.y) })
+    x += local.w + gap
+    rowHeight = Math.max(rowHeight, local.h)
   }
   return out
 }

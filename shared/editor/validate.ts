@@ -94,16 +94,25 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const n = process?.helicities.length ?? 0
 
   // Edges at each (node, handle).
-  const at = new Map<string, EditorEdge[]>()
-  const key = (id: string, h: string | null | undefined) => `${id}\u0000${h ?? ''}`
+  // node id → handle → edges (handle '' when none); the handles each node is reached at.
+  const atNode = new Map<string, Map<string, EditorEdge[]>>()
+  const handlesOf = new Map<string, (string | null | undefined)[]>()
+  const attach = (id: string, h: string | null | undefined, e: EditorEdge) => {
+    let m = atNode.get(id)
+    if (!m) atNode.set(id, (m = new Map()))
+    const list = m.get(h ?? '')
+    if (list) list.push(e)
+    else m.set(h ?? '', [e])
+    let hs = handlesOf.get(id)
+    if (!hs) handlesOf.set(id, (hs = []))
+    hs.push(h)
+  }
+  const at = (id: string, h: string) => atNode.get(id)?.get(h)
   for (const e of edges) {
     if (!nodes.has(e.source) || !nodes.has(e.target)) continue
     if (e.source === e.target) { add(e.source, 'error', 'a line from this node back to itself: glue two different nodes'); continue }
-    for (const [id, h] of [[e.source, e.sourceHandle], [e.target, e.targetHandle]] as const) {
-      const list = at.get(key(id, h)) ?? []
-      list.push(e)
-      at.set(key(id, h), list)
-    }
+    attach(e.source, e.sourceHandle, e)
+    attach(e.target, e.targetHandle, e)
     const a = nodes.get(e.source)!
     const b = nodes.get(e.target)!
     if (a.type === 'leg' && b.type === 'leg') addEdge(e.id, 'error', 'two legs joined directly: attach legs to a vertex or a block')
@@ -122,7 +131,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   for (const node of nodesIn) {
     if (node.type === 'leg') {
       const d = node.data as unknown as LegData
-      const list = at.get(key(node.id, 'p')) ?? edges.filter(e => (e.source === node.id || e.target === node.id) && e.source !== e.target)
+      const list = at(node.id, 'p') ?? edges.filter(e => (e.source === node.id || e.target === node.id) && e.source !== e.target)
       if (list.length === 0) add(node.id, 'error', `leg ${d.label} is not attached: connect it to a vertex or a block`)
       if (list.length > 1) add(node.id, 'error', `leg ${d.label} is attached ${list.length} times: an external leg enters exactly one vertex`)
       if (process) {
@@ -134,7 +143,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     }
     const info: SlotInfo[] = []
     for (const h of handleIds(node)) {
-      const list = at.get(key(node.id, h)) ?? []
+      const list = at(node.id, h) ?? []
       const first = list[0]
       let other: SlotInfo['other'] = null
       if (first) {
@@ -145,6 +154,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other })
     }
     slots[node.id] = info
+    // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
+    const own = new Set(handleIds(node))
+    for (const h of handlesOf.get(node.id) ?? []) if (!own.has(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
     const open = info.filter(x => x.edges.length === 0).length
     const crowded = info.filter(x => x.edges.length > 1)
     const total = info.length
@@ -182,7 +194,12 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const find = (x: string): string => {
     let r = x
     while (parent.get(r) !== r) r = parent.get(r)!
-    parent.set(x, r)
+    // Full path compression: unions without rank otherwise build chains (quadratic on big canvases).
+    for (let y = x; y !== r;) {
+      const up = parent.get(y)!
+      parent.set(y, r)
+      y = up
+    }
     return r
   }
   const validEdges = edges.filter(e => nodes.has(e.source) && nodes.has(e.target) && e.source !== e.target)
@@ -195,13 +212,19 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     groups.set(r, g)
   }
   const edgeCount = new Map<string, number>()
-  for (const e of validEdges) edgeCount.set(find(e.source), (edgeCount.get(find(e.source)) ?? 0) + 1)
+  // Internal lines per component, found in one pass (a filter per component was quadratic).
+  const linesByRoot = new Map<string, string[]>()
+  for (const e of validEdges) {
+    const r = find(e.source)
+    edgeCount.set(r, (edgeCount.get(r) ?? 0) + 1)
+    if (!isExternal(e, nodes)) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(e.id)
+  }
   const components: Component[] = []
   for (const [root, ids] of groups) {
     const legIds = ids.filter(id => nodes.get(id)!.type === 'leg')
     const inner = ids.filter(id => nodes.get(id)!.type !== 'leg')
     const labels = legIds.map(id => (nodes.get(id)!.data as unknown as LegData).label)
-    const lineIds = validEdges.filter(e => find(e.source) === root && !isExternal(e, nodes)).map(e => e.id)
+    const lineIds = linesByRoot.get(root) ?? []
     const isTree = (edgeCount.get(root) ?? 0) === ids.length - 1
     components.push({ id: inner[0] ?? ids[0]!, nodeIds: ids, legIds, labels, lineIds, isTree })
     if (!inner.length) continue
@@ -226,8 +249,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     if (k) issues[x.id] = issues[x.id]!.filter(i => i !== k)
     ;(issues[x.id] ??= []).push({ level: x.level, message: x.message })
   }
+  const compById = new Map(components.map(c => [c.id, c]))
   for (const t of drawing.terms) {
-    const comp = components.find(c => c.id === t.id)
+    const comp = compById.get(t.id)
     const msgs = new Set<string>()
     for (const id of t.nodeIds) for (const i of issues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
     for (const id of comp?.lineIds ?? []) for (const i of edgeIssues[id] ?? []) if (i.level === 'error') msgs.add(i.message)

@@ -17,13 +17,16 @@ const SPLIT = 134217729 // 2^27 + 1
 
 /** (H, L) = a·b exactly enough: Dekker's product with the cross terms of the low parts. */
 function ddMul(ah: number, al: number, bh: number, bl: number): void {
-  const p = ah * bh
   let t = SPLIT * ah
   const a1 = t - (t - ah)
-  const a2 = ah - a1
   t = SPLIT * bh
   const b1 = t - (t - bh)
-  const b2 = bh - b1
+  splitMul(ah, a1, ah - a1, al, bh, b1, bh - b1, bl)
+}
+
+/** ddMul with the Dekker splits (a1 + a2 = ah, b1 + b2 = bh) given, for operands used twice. */
+function splitMul(ah: number, a1: number, a2: number, al: number, bh: number, b1: number, b2: number, bl: number): void {
+  const p = ah * bh
   const e = a1 * b1 - p + a1 * b2 + a2 * b1 + a2 * b2 + (ah * bl + al * bh)
   H = p + e
   L = e - (H - p)
@@ -67,15 +70,31 @@ function ddCNeg(x: DD): DD {
   return ddC(-x.rh, -x.rl, -x.ih, -x.il)
 }
 
+function ddCSub(x: DD, y: DD): DD {
+  ddAdd(x.rh, x.rl, -y.rh, -y.rl)
+  const rh = H, rl = L
+  ddAdd(x.ih, x.il, -y.ih, -y.il)
+  return ddC(rh, rl, H, L)
+}
+
 function ddCMul(x: DD, y: DD): DD {
-  ddMul(x.rh, x.rl, y.rh, y.rl)
+  // Each high part enters two products: split it once (the same bits as splitting it twice).
+  let t = SPLIT * x.rh
+  const xr1 = t - (t - x.rh), xr2 = x.rh - xr1
+  t = SPLIT * x.ih
+  const xi1 = t - (t - x.ih), xi2 = x.ih - xi1
+  t = SPLIT * y.rh
+  const yr1 = t - (t - y.rh), yr2 = y.rh - yr1
+  t = SPLIT * y.ih
+  const yi1 = t - (t - y.ih), yi2 = y.ih - yi1
+  splitMul(x.rh, xr1, xr2, x.rl, y.rh, yr1, yr2, y.rl)
   const a1 = H, a2 = L
-  ddMul(x.ih, x.il, y.ih, y.il)
+  splitMul(x.ih, xi1, xi2, x.il, y.ih, yi1, yi2, y.il)
   ddAdd(a1, a2, -H, -L)
   const rh = H, rl = L
-  ddMul(x.rh, x.rl, y.ih, y.il)
+  splitMul(x.rh, xr1, xr2, x.rl, y.ih, yi1, yi2, y.il)
   const b1 = H, b2 = L
-  ddMul(x.ih, x.il, y.rh, y.rl)
+  splitMul(x.ih, xi1, xi2, x.il, y.rh, yr1, yr2, y.rl)
   ddAdd(b1, b2, H, L)
   return ddC(rh, rl, H, L)
 }
@@ -106,7 +125,7 @@ export const ddField: Field<DD> = {
   one: DD1,
   fromInt: (n) => ddOf(n, 0),
   add: ddCAdd,
-  sub: (a, b) => ddCAdd(a, ddCNeg(b)),
+  sub: ddCSub,
   mul: ddCMul,
   div: (a, b, what = 'division by zero') => {
     if (ddCIsZero(b)) throw new SingularError(what)

@@ -2,6 +2,12 @@
 // pass it through unchanged; `field` carries the same path for `data.field`.
 export class PhysicsError extends Error {
   readonly status = 422
+  // Read by h3 when a PhysicsError escapes a route: it becomes a 422 naming the field, never a bare error.
+  readonly statusCode = 422
+  readonly statusMessage = 'Unprocessable Entity'
+  get data() {
+    return { field: this.field }
+  }
   constructor(
     public readonly field: string,
     reason: string,

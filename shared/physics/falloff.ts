@@ -2,7 +2,8 @@
 // (CONVENTIONS.md "Numerical advice"), so it is measured exactly at a seeded rational point of the
 // same process, with A(z) at the shifted (still on-shell, momentum-conserving) point computed by
 // BCFW under another shift that is valid there.
-import { Fraction, rationalField as Q, SingularError } from './field'
+import { Fraction, rationalField as Q, SingularError, type Field } from './field'
+import { byPrimes } from './modular'
 import type { Kin, Spinor } from './spinors'
 import { rationalPoint } from './kinematics'
 import { bcfw, cheapestShift } from './bcfw'
@@ -72,18 +73,29 @@ export function alternativeShift(p: Process, h: readonly number[], i: number, j:
  * planar diagram sum for the cubic scalar, the sum of all cubic diagrams for a single scalar
  * species; else BCFW under another valid shift.
  */
-function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, number] | null): Fraction {
+function amplitudeIn<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], alt: [number, number] | null): T {
   if (p.theory === 'gluon') {
     const c = classifyGluon(h)
-    if (c.kind === 'mhv') return parkeTaylorMhv(Q, k, c.i, c.j)
-    if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(Q, k, c.i, c.j)
+    if (c.kind === 'mhv') return parkeTaylorMhv(F, k, c.i, c.j)
+    if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(F, k, c.i, c.j)
     // BCFW while its closed-form count is small (measured faster up to ~300), else Berends–Giele
-    return cheapestShift(h).cost <= 300 && alt ? bcfw(Q, p, k, h, alt).value : berendsGiele(Q, k, h)
+    return cheapestShift(h).cost <= 300 && alt ? bcfw(F, p, k, h, alt).value : berendsGiele(F, k, h)
   }
-  if (p.theory === 'scalar-cubic') return cubicScalarFeynman(Q, k)
-  if (p.s === 0) return cubicScalarAllChannels(Q, k)
+  if (p.theory === 'scalar-cubic') return cubicScalarFeynman(F, k)
+  if (p.s === 0) return cubicScalarAllChannels(F, k)
   if (!alt) throw new PhysicsError('shift', 'no valid shift is known for this process, so the falloff cannot be measured')
-  return bcfw(Q, p, k, h, alt).value
+  return bcfw(F, p, k, h, alt).value
+}
+
+/**
+ * The same, exactly: modulo primes with rational reconstruction (modular.ts) unless the closed
+ * form is cheaper in rationals; big rationals when the primes meet an exact zero (a retry follows).
+ */
+function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, number] | null): Fraction {
+  const c = p.theory === 'gluon' ? classifyGluon(h).kind : null
+  if (c === 'mhv' || c === 'anti-mhv') return amplitudeIn(Q, p, k, h, alt)
+  const r = byPrimes(k, (F, km) => ({ shape: '', values: [amplitudeIn(F, p, km, h, alt)], info: null }), { key: `falloff:${p.theory}:${p.s}:${h.join(',')}:${alt?.join(',') ?? '-'}` })
+  return r ? r.values[0]! : amplitudeIn(Q, p, k, h, alt)
 }
 
 /** Least-squares slope of y against x (ln|A| against ln z), and the spread of the two-point slopes. */

@@ -15,6 +15,15 @@ const FIELD = 'target.formula'
 /** Longest formula accepted (characters), and the largest |exponent|: both keep exact mode bounded. */
 export const FORMULA_MAX_LENGTH = 2000
 export const FORMULA_MAX_EXPONENT = 64
+/** Numbers are written with a decimal exponent in ±FORMULA_MAX_LITERAL_EXPONENT and at most this many digits. */
+export const FORMULA_MAX_LITERAL_EXPONENT = 100
+export const FORMULA_MAX_LITERAL_DIGITS = 100
+/**
+ * Bound on the size of intermediate exact numbers, in "bracket degrees": a bracket counts 1 (a sandwich
+ * or s(…) 2), a number one per 20 digits, a product adds, a power multiplies. Nested powers such as
+ * ((<1 2>^64)^64)^64 would otherwise build numbers of millions of digits in exact mode.
+ */
+export const FORMULA_MAX_DEGREE = 2048
 
 // BigNumber constants: mathjs keeps a decimal literal exactly, so 0.1 becomes 1/10.
 const math = create({ parseDependencies: parseDependencies! }, { number: 'BigNumber', precision: 64 })
@@ -190,6 +199,10 @@ function translate(src: string, n: number): Translation {
     } else if (/[\d.]/.test(c)) {
       const m = /^(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?/.exec(src.slice(pos))
       if (!m) fail(`unexpected "${c}"`, pos + 1)
+      if (m[1]!.replace('.', '').length > FORMULA_MAX_LITERAL_DIGITS) fail(`the number has more than ${FORMULA_MAX_LITERAL_DIGITS} digits`, pos + 1)
+      if (m[2] && Math.abs(Number(m[2].slice(1))) > FORMULA_MAX_LITERAL_EXPONENT) {
+        fail(`the number's exponent is out of range (between -${FORMULA_MAX_LITERAL_EXPONENT} and ${FORMULA_MAX_LITERAL_EXPONENT})`, pos + 1)
+      }
       emit(m[0], pos)
       for (let t = 1; t < m[0].length; t++) map[map.length - m[0].length + t] = pos + t
       pos += m[0].length
@@ -366,6 +379,37 @@ function compile(node: MathNode, opAt: () => number): Eval {
   }
 }
 
+/** The bracket degree of a subtree (see FORMULA_MAX_DEGREE); powers are checked by exponentOf first. */
+function degreeOf(node: MathNode): number {
+  switch (node.type) {
+    case 'ConstantNode': {
+      const v = (node as ConstantNode).value as unknown as Decimalish | undefined
+      if (v === undefined) return 0
+      const [num, den] = v.toFraction()
+      const digits = num.toFixed().length + den.toFixed().length
+      return Math.ceil(digits / 20)
+    }
+    case 'ParenthesisNode':
+      return degreeOf((node as ParenthesisNode).content)
+    case 'FunctionNode': {
+      const name = (node as FunctionNode).fn.name
+      return name === 'ang' || name === 'sq' ? 1 : 2
+    }
+    case 'OperatorNode': {
+      const op = node as OperatorNode
+      if (op.args.length === 1) return degreeOf(op.args[0]!)
+      if (op.fn === 'pow') {
+        const e = Math.abs(exponentOf(op.args[1]!, 0))
+        return degreeOf(op.args[0]!) * e
+      }
+      const [a, b] = op.args.map(degreeOf) as [number, number]
+      return op.fn === 'add' || op.fn === 'subtract' ? Math.max(a, b) : a + b
+    }
+    default:
+      return 0
+  }
+}
+
 function countOps(node: MathNode, opAt: () => number): void {
   node.traverse((c) => {
     if (c.type === 'OperatorNode' && !(c as OperatorNode).implicit) opAt()
@@ -426,6 +470,10 @@ export function compileFormula(src: string, n: number): CompiledFormula {
   let op = 0
   const opAt = () => tr.ops[op++] ?? src.length
   const run = compile(tree, opAt)
+  const degree = degreeOf(tree)
+  if (degree > FORMULA_MAX_DEGREE) {
+    throw new PhysicsError(FIELD, `the formula is too large for exact arithmetic (degree ${degree}, at most ${FORMULA_MAX_DEGREE}: lower the powers)`)
+  }
   const latex = tree.toTex({ parenthesis: 'auto', implicit: 'hide', handler: texHandler })
   return {
     latex,

@@ -118,6 +118,17 @@ export const POOR_CONDITION = 1e-5
 
 /** A vanishing physical pole of the point, as a sentence, or null. */
 function vanishingPole<T>(F: Field<T>, p: Process, k: Kin<T>): string | null {
+  // Seeded points are remembered (kinematics.ts), so their pole check is too.
+  let byKind = poleChecks.get(k)
+  if (!byKind) poleChecks.set(k, (byKind = new Map()))
+  const key = `${F.kind}:${p.colourOrdered}`
+  let v = byKind.get(key)
+  if (v === undefined) byKind.set(key, (v = findVanishingPole(F, p, k)))
+  return v
+}
+const poleChecks = new WeakMap<object, Map<string, string | null>>()
+
+function findVanishingPole<T>(F: Field<T>, p: Process, k: Kin<T>): string | null {
   const n = k.lambda.length
   const sets = poleSets(p, n)
   const vals = sets.map((S) => det(F, momentumSum(F, k, S)))

@@ -87,6 +87,14 @@ function conditionSets(n: number): number[][] {
 
 /** min |s_S| over pairs and consecutive sets, divided by max |s_ij|. */
 export function conditionRatio<T>(F: Field<T>, k: Kin<T>): number {
+  // Remembered points are asked again by every evaluation at them (a point's numbers fix its field).
+  let r = conditionRatios.get(k)
+  if (r === undefined) conditionRatios.set(k, (r = computeConditionRatio(F, k)))
+  return r
+}
+const conditionRatios = new WeakMap<object, number>()
+
+function computeConditionRatio<T>(F: Field<T>, k: Kin<T>): number {
   const n = k.lambda.length
   let maxPair = 0
   let min = Infinity

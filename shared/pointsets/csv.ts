@@ -2,8 +2,9 @@
 // header required, columns `point, leg, E, px, py, pz` in any order and an optional `code`
 // (particle code); all momenta outgoing. Lines starting with # are comments. Parsed by papaparse.
 import Papa from 'papaparse'
+import { csvUnparseSafe } from '../csv-safe'
 import { PointFileError, TooManyPointsError, lineColumn } from './errors'
-import { MAX_POINTS, type Momentum, type ParsedFile, type PointData, type Rejection } from './types'
+import { MAX_LEGS, MAX_POINTS, type Momentum, type ParsedFile, type PointData, type Rejection } from './types'
 
 export const CSV_COLUMNS = ['point', 'leg', 'E', 'px', 'py', 'pz'] as const
 const OPTIONAL = ['code'] as const
@@ -93,6 +94,7 @@ export function parseCsv(text: string): ParsedFile {
     if (!label) throw new PointFileError(row.line, columnOf(row, index.point!), 'point must name the point (an id), got an empty field')
     const leg = num('leg')
     if (!Number.isInteger(leg) || leg < 1) throw new PointFileError(row.line, columnOf(row, index.leg!), `leg must be a label 1, 2, …, got "${cell('leg')}"`)
+    if (leg > MAX_LEGS) throw new PointFileError(row.line, columnOf(row, index.leg!), `leg ${leg} is beyond the limit of ${MAX_LEGS} legs per point`)
     let code: number | undefined
     if (hasCode) {
       code = num('code')
@@ -142,5 +144,5 @@ export function toCsv(points: { idx: number, data: PointData }[]): string {
       data.push([d.label ?? String(idx + 1), i + 1, ...p, ...(withCodes ? [d.codes?.[i] ?? ''] : [])])
     })
   }
-  return Papa.unparse({ fields, data }, { newline: '\n' })
+  return Papa.unparse({ fields, data }, csvUnparseSafe)
 }

@@ -16,8 +16,14 @@ export function deviationHistogram(deviations: (number | null)[], width = 0.5) {
     else logs.push(Math.log10(d))
   }
   if (!logs.length) return { bins: [] as HistogramBin[], zeros, lo: null, hi: null }
-  const lo = Math.floor(Math.min(...logs) / width) * width
-  const hi = Math.max(lo + width, Math.ceil(Math.max(...logs) / width) * width)
+  // A loop, not Math.min(...logs): spreading 10,000+ values can overflow the argument stack.
+  let min = Infinity, max = -Infinity
+  for (const x of logs) {
+    if (x < min) min = x
+    if (x > max) max = x
+  }
+  const lo = Math.floor(min / width) * width
+  const hi = Math.max(lo + width, Math.ceil(max / width) * width)
   const count = Math.max(1, Math.round((hi - lo) / width))
   const bins: HistogramBin[] = Array.from({ length: count }, (_, k) => ({ from: lo + k * width, to: lo + (k + 1) * width, count: 0 }))
   for (const x of logs) bins[Math.min(count - 1, Math.floor((x - lo) / width))]!.count++

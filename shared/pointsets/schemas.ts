@@ -2,17 +2,20 @@
 import { z } from 'zod'
 import { TargetNameEnum } from '../schemas/evaluate'
 import { MAX_POINTS } from './types'
+import { wholeNumber } from '../schemas/common'
+
+const MAX_OFFSET = 1e12
 
 /** The text fields of a multipart upload (besides `file`). */
 export const UploadFieldsSchema = z.object({
   name: z.string().trim().min(1, { error: 'must not be empty' }).max(200, { error: 'at most 200 characters' }).optional(),
   format: z.enum(['csv', 'json', 'lhe'], { error: 'must be csv, json or lhe' }).optional(),
-  n: z.coerce.number({ error: 'must be a whole number' }).int({ error: 'must be a whole number' }).min(3, { error: 'needs at least 3 legs' }).max(64, { error: 'at most 64 legs' }).optional(),
+  n: wholeNumber(3, 64, { min: 'needs at least 3 legs', max: 'at most 64 legs' }).optional(),
 })
 
 export const PointsQuerySchema = z.object({
-  offset: z.coerce.number({ error: 'must be a whole number' }).int({ error: 'must be a whole number' }).min(0, { error: 'must be 0 or more' }).default(0),
-  limit: z.coerce.number({ error: 'must be a whole number' }).int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).max(500, { error: 'at most 500 per page' }).default(50),
+  offset: wholeNumber(0, MAX_OFFSET, { min: 'must be 0 or more' }).default(0),
+  limit: wholeNumber(1, 500, { max: 'at most 500 per page' }).default(50),
   spinors: z.enum(['0', '1', 'true', 'false']).optional().transform(v => v === '1' || v === 'true'),
   invariants: z.enum(['0', '1', 'true', 'false']).optional().transform(v => v === '1' || v === 'true'),
 })
@@ -30,8 +33,8 @@ export const BatchStartSchema = z.object({
 export type BatchStart = z.input<typeof BatchStartSchema>
 
 export const CheckPointsQuerySchema = z.object({
-  offset: z.coerce.number({ error: 'must be a whole number' }).int().min(0, { error: 'must be 0 or more' }).default(0),
-  limit: z.coerce.number({ error: 'must be a whole number' }).int().min(1, { error: 'must be at least 1' }).max(500, { error: 'at most 500 per page' }).default(50),
+  offset: wholeNumber(0, MAX_OFFSET, { min: 'must be 0 or more' }).default(0),
+  limit: wholeNumber(1, 500, { max: 'at most 500 per page' }).default(50),
   verdict: z.enum(['agrees', 'disagrees', 'boundary term suspected', 'singular point', 'not evaluated'], { error: 'must be a verdict' }).optional(),
   sort: z.enum(['idx', 'deviation', 'minInvariant'], { error: 'must be idx, deviation or minInvariant' }).default('idx'),
   /** `columns`: every point as parallel arrays (idx, deviation, minInvariant, verdict) for the plots. */

@@ -41,6 +41,8 @@ export interface ParsedFile {
 
 /** Per upload at most this many points and this many bytes. */
 export const MAX_POINTS = 10_000
+/** Legs per point in a file (the upload's `n` has the same ceiling). */
+export const MAX_LEGS = 64
 export const MAX_BYTES = 10 * 1024 * 1024
 
 /** A point set as the API returns it. */

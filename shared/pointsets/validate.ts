@@ -10,7 +10,7 @@ import type { PointData, Rejection } from './types'
 
 /** Largest relative mass² violation |p²|/E_max² and relative conservation violation |Σp|/E_max. */
 export function momentumViolations(momenta: PointData['momenta'] & object) {
-  const scale = Math.max(0, ...momenta.map(p => Math.abs(p[0])))
+  const scale = momenta.reduce((m, p) => Math.max(m, Math.abs(p[0])), 0)
   const mass = momenta.map(p => Math.abs(p[0] * p[0] - p[1] * p[1] - p[2] * p[2] - p[3] * p[3]) / (scale * scale || 1))
   const sum = [0, 1, 2, 3].map(m => momenta.reduce((a, p) => a + p[m]!, 0))
   return { mass, conservation: Math.hypot(...sum) / (scale || 1) }

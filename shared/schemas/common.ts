@@ -27,4 +27,21 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
   return out
 }
 
-export const IdParam = z.object({ id: z.coerce.number().int().positive() })
+/** Decimal digits only: `0x1`, `1e0`, `1.5` and ` 1` are not whole numbers here (Number() would accept them). */
+export const DECIMAL_ID = /^[1-9]\d{0,14}$/
+
+/** A whole number in a query string or form field, written in plain decimal digits. */
+export function wholeNumber(min: number, max: number, messages: { min?: string, max?: string } = {}) {
+  return z.union([z.string(), z.number()], { error: 'must be a whole number' })
+    .transform(v => String(v))
+    .pipe(z.string().regex(/^\d{1,15}$/, { error: 'must be a whole number' }))
+    .transform(Number)
+    .pipe(z.number().min(min, { error: messages.min ?? `must be at least ${min}` }).max(max, { error: messages.max ?? `at most ${max}` }))
+}
+
+/** `?limit=` of the list routes: 1..max, `fallback` when absent. */
+export function limitQuery(max: number, fallback: number) {
+  return z.object({ limit: wholeNumber(1, max).default(fallback) })
+}
+
+export const IdParam = z.object({ id: z.string().regex(DECIMAL_ID, { error: 'must be an id' }).transform(Number) })

@@ -2,6 +2,7 @@
 // The process (theory, helicities, colour order, shift) is optional on save and required
 // only when a check runs (see requireProcess).
 import { z } from 'zod'
+import { boundedExtras, boundedFields } from './json-bounds'
 
 export const GRAPH_SCHEMA_VERSION = 1
 
@@ -26,8 +27,8 @@ export const GraphNodeSchema = z.object({
   id: z.string().min(1).max(64),
   type: NodeKindSchema,
   position: z.object({ x: finite, y: finite }),
-  data: z.record(z.string(), z.unknown()).default({}),
-}).loose()
+  data: z.record(z.string(), z.unknown()).superRefine(boundedFields).default({}),
+}).loose().superRefine(boundedExtras(['id', 'type', 'position', 'data']))
 
 export const GraphEdgeSchema = z.object({
   id: z.string().min(1).max(128),
@@ -36,14 +37,14 @@ export const GraphEdgeSchema = z.object({
   sourceHandle: z.string().max(64).nullish(),
   targetHandle: z.string().max(64).nullish(),
   type: z.string().max(32).optional(),
-  data: z.record(z.string(), z.unknown()).optional(),
-}).loose()
+  data: z.record(z.string(), z.unknown()).superRefine(boundedFields).optional(),
+}).loose().superRefine(boundedExtras(['id', 'source', 'target', 'sourceHandle', 'targetHandle', 'type', 'data']))
 
 export const GraphSchema = z.object({
   schemaVersion: z.literal(GRAPH_SCHEMA_VERSION, { error: `must be ${GRAPH_SCHEMA_VERSION}` }).optional(),
   process: ProcessSchema.optional(),
   /** Evaluation settings the editor remembers (kinematics, target, arithmetic). */
-  settings: z.record(z.string(), z.unknown()).optional(),
+  settings: z.record(z.string(), z.unknown()).superRefine(boundedFields).optional(),
   nodes: z.array(GraphNodeSchema).max(3000, { error: 'at most 3000 nodes' }),
   edges: z.array(GraphEdgeSchema).max(6000, { error: 'at most 6000 edges' }),
   viewport: z.object({ x: finite, y: finite, zoom: finite }).optional(),

@@ -6,6 +6,7 @@ import LegNode from './LegNode.vue'
 import AngleVertexNode from './AngleVertexNode.vue'
 import SquareVertexNode from './SquareVertexNode.vue'
 import BlockNode from './BlockNode.vue'
+import TermFrameNode from './TermFrameNode.vue'
 import LineEdge from '../edges/LineEdge.vue'
 
 export type { LegData, VertexData, BlockData, LineData } from '~~/shared/editor/types'
@@ -15,6 +16,7 @@ export const nodeTypes = markRaw({
   angle: AngleVertexNode,
   square: SquareVertexNode,
   block: BlockNode,
+  termframe: TermFrameNode,
 }) as unknown as NodeTypesObject
 
 export const edgeTypes = markRaw({ line: LineEdge }) as unknown as EdgeTypesObject

@@ -1,7 +1,8 @@
+import { limitQuery } from '../../../shared/schemas/common'
 // Site administrators: the messages the local catcher captured (nothing is captured with real SMTP).
 export default defineEventHandler(async (event) => {
   await requireSiteAdmin(event)
-  const limit = Math.min(500, Math.max(1, Number(getQuery(event).limit) || 100))
+  const { limit } = parseWith(getQuery(event), limitQuery(500, 100), 'query')
   return {
     capturing: !usesRealSmtp(),
     dir: usesRealSmtp() ? null : outboxDir(),

@@ -11,7 +11,7 @@ import { toDoubleDouble } from '../../physics/kinematics'
 import type { Kin, Spinor } from '../../physics/spinors'
 import { isValidShift, vanishes, type Process } from '../../physics/theories'
 import { threePoint } from '../../physics/three-point'
-import { decideVerdict, deviationOf, type Verdict } from '../../physics/verdict'
+import { decideVerdict, deviationOf, lostPrecision, type Verdict } from '../../physics/verdict'
 import type { Process as GraphProcess } from '../../schemas/graph'
 import type { EvaluateResponse, WireComplex } from '../../schemas/evaluate'
 import type { EditorEdge, EditorNode, LineData } from '../types'
@@ -117,6 +117,22 @@ export function drawnValues<T>(F: Field<T>, process: GraphProcess, s: DrawingStr
   return { sum, terms }
 }
 
+/**
+ * What the compiler reads of a graph (ids, kinds, wiring, labels, helicities, line names): the rest
+ * (positions, layout data, cached values) need not cross to a worker thread.
+ */
+export function drawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }): { nodes: EditorNode[], edges: EditorEdge[] } {
+  const pick = (d: Record<string, unknown> | undefined, keys: string[]) => {
+    const out: Record<string, unknown> = {}
+    for (const k of keys) if (d && d[k] !== undefined) out[k] = d[k]
+    return out
+  }
+  return {
+    nodes: (g.nodes ?? []).map(n => ({ id: n.id, type: n.type, position: { x: 0, y: 0 }, data: pick(n.data, n.type === 'leg' ? ['label', 'helicity'] : n.type === 'block' ? ['helicities'] : []) })),
+    edges: (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, data: pick(e.data, ['helicity', 'targetHelicity', 'line', 'external']) })),
+  }
+}
+
 /** Whether a graph has drawn terms: a component with a vertex or a Block. */
 export function hasDrawnTerms(nodes: { type: string }[]): boolean {
   return nodes.some(n => n.type !== 'leg')
@@ -188,6 +204,8 @@ export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph
   })
   const problem = comparison.messages[0]
   if (verdict === 'agrees' && problem) verdict = 'disagrees'
+  // A complete drawing holds the recursion's terms, so the recursion's precision estimate is its own.
+  if (!problem && lostPrecision(verdict, n, deviation, res.precision?.estimated ?? null)) verdict = 'not evaluated'
   const message = singular
     ? `the drawing meets a singular point (${singular})`
     : problem

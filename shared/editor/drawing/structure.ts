@@ -127,8 +127,21 @@ export const channelLabel = (c: DrawnChannel): string => `${channelText(c.left)}
 const hsOf = (p: Process): number[] => (p.s === 0 ? [0] : [p.s, -p.s])
 
 /** The live (channel, internal helicity) pairs of an amplitude under a shift: the terms the recursion sums. */
-export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number]): { L: readonly number[], R: readonly number[], helicity: number }[] {
-  const out: { L: readonly number[], R: readonly number[], helicity: number }[] = []
+export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number]): readonly LiveChannel[] {
+  const key = `${p.theory}:${p.s}:${shift[0]}:${shift[1]}:${h.join(',')}`
+  let out = liveCache.get(key)
+  if (!out) {
+    if (liveCache.size > 5000) liveCache.clear()
+    liveCache.set(key, (out = computeLive(p, h, shift)))
+  }
+  return out
+}
+
+interface LiveChannel { L: readonly number[], R: readonly number[], helicity: number }
+const liveCache = new Map<string, readonly LiveChannel[]>()
+
+function computeLive(p: Process, h: readonly number[], shift: readonly [number, number]): LiveChannel[] {
+  const out: LiveChannel[] = []
   if (vanishes(p, h)) return out
   for (const { L, R } of channels(h.length, shift[0], shift[1], p.colourOrdered)) {
     for (const x of hsOf(p)) {
@@ -136,6 +149,17 @@ export function liveChannels(p: Process, h: readonly number[], shift: readonly [
     }
   }
   return out
+}
+
+type ChannelList = ReturnType<typeof channels>
+const keyCache = new Map<string, Map<string, ChannelList[number]>>()
+
+/** The channels of a shift keyed by their sorted left positions (cached: the same few recur at every level). */
+function channelsByKey(n: number, sh: readonly [number, number], colourOrdered: boolean): Map<string, ChannelList[number]> {
+  const k = `${n}:${sh[0]}:${sh[1]}:${colourOrdered ? 1 : 0}`
+  let m = keyCache.get(k)
+  if (!m) keyCache.set(k, (m = new Map(channels(n, sh[0], sh[1], colourOrdered).map(c => [[...c.L].sort((u, v) => u - v).join(','), c]))))
+  return m
 }
 
 interface Slot { leg: number | null, edge: string | null, to: string | null, helicity: number | null }
@@ -183,17 +207,19 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
     if (node.type !== vk) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}: at the pole its ${vk === 'angle' ? 'square' : 'angle'} brackets vanish, so only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives here, not ${vk === 'angle' ? 'a square' : 'an angle'} vertex` })
     else if (!threePointSurvives(p, amp.helicities, vk)) {
       const sum = amp.helicities.reduce((a, b) => a + b, 0)
-      issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only an ${vk} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) ${sum === 0 ? 'sum to 0' : `sum to ${helicityText(sum)}`}: this term vanishes (flip the internal helicity)` })
+      const total = sum === 0 ? '0' : `${sum > 0 ? '+' : '−'}${Math.abs(sum)}`
+      issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) sum to ${total}: this term vanishes (flip the internal helicity)` })
     }
     return { part: { kind: 'vertex', node: id, legs, helicities: amp.helicities, vertexKind: vk, zero: issues.length > 0 }, issues }
   }
   // Several nodes: one channel term of this amplitude's own recursion.
   const inside = new Set(region)
-  const index = new Map(amp.legs.map((l, t) => [legKey(l), t]))
+  const index = new Map<string, number>()
+  amp.legs.forEach((l, t) => index.set(legKey(l), t))
   const lines: { edge: string, a: string, b: string, rank: number }[] = []
   for (const id of region) {
     for (const s of ctx.slots.get(id)!) {
-      if (s.edge && s.to && inside.has(s.to) && id < s.to) lines.push({ edge: s.edge, a: id, b: s.to, rank: lineRank(ctx.edgeById.get(s.edge)) })
+      if (s.edge && s.to && inside.has(s.to) && id < s.to && ctx.slots.get(s.to)?.some(o => o.edge === s.edge)) lines.push({ edge: s.edge, a: id, b: s.to, rank: lineRank(ctx.edgeById.get(s.edge)) })
     }
   }
   lines.sort((x, y) => x.rank - y.rank)
@@ -221,25 +247,28 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
   }
   const sides: ({ legs: number[], nodes: string[] } | undefined)[] = new Array(lines.length)
   const n = amp.legs.length
-  const all = Array.from({ length: n }, (_, u) => u)
   // The given shift at the top; below, the default shift first, then the other valid ones.
   const d = shift ?? defaultShift(p, amp.helicities)
-  const shifts = function* (): Generator<[number, number]> {
-    yield d
-    if (shift) return
-    for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) if (a !== b && !(a === d[0] && b === d[1]) && isValidShift(p, amp.helicities, a, b)) yield [a, b]
-  }
+  let others: [number, number][] | null = null
   let best: Found | null = null
-  for (const sh of shifts()) {
-    const chs = channels(n, sh[0], sh[1], p.colourOrdered)
-    const byKey = new Map(chs.map(c => [[...c.L].sort((u, v) => u - v).join(','), c]))
+  for (let si = 0; ; si++) {
+    if (si === 1) {
+      if (shift) break
+      others = []
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) if (a !== b && !(a === d[0] && b === d[1]) && isValidShift(p, amp.helicities, a, b)) others.push([a, b])
+    }
+    const sh = si === 0 ? d : others![si - 1]
+    if (!sh) break
+    const byKey = channelsByKey(n, sh, p.colourOrdered)
     for (let t = 0; t < lines.length; t++) {
       const line = lines[t]!
       const side = (sides[t] ??= sideOf(line))
       let ch = byKey.get(side.legs.join(','))
       let flip = false
       if (!ch) {
-        ch = byKey.get(all.filter(u => !side.legs.includes(u)).join(','))
+        const other: number[] = []
+        for (let u = 0; u < n; u++) if (!side.legs.includes(u)) other.push(u)
+        ch = byKey.get(other.join(','))
         flip = true
       }
       if (!ch) continue
@@ -248,7 +277,7 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
       const rightEnd = flip ? line.a : line.b
       const leftNodes = flip ? region.filter(x => !sideSet.has(x)) : side.nodes
       const rightNodes = flip ? side.nodes : region.filter(x => !sideSet.has(x))
-      const hAt = (node: string) => ctx.slots.get(node)!.find(s => s.edge === line.edge)!.helicity
+      const hAt = (node: string) => ctx.slots.get(node)!.find(s => s.edge === line.edge)?.helicity ?? null
       const h = hAt(leftEnd)
       const hr = hAt(rightEnd)
       if (h === null || hr === null) continue

@@ -90,8 +90,8 @@ describe('drawn terms from the engine\'s term tree: the drawn sum is the recursi
       for (const t of res.terms) {
         const mine = r.drawing!.terms.filter(d => d.channel!.join(',') === t.left.join(',') && d.internalHelicity === t.helicity)
         expect(mine.length).toBeGreaterThan(0)
-        const sum = mine.reduce((a, d) => [a[0] + Number(d.value![0]), a[1] + Number(d.value![1])], [0, 0])
-        expect(cdiff(sum as WireComplex, t.value) / scale).toBeLessThan(1e-12)
+        const sum = mine.reduce<[number, number]>((a, d) => [a[0] + Number(d.value![0]), a[1] + Number(d.value![1])], [0, 0])
+        expect(cdiff(sum, t.value) / scale).toBeLessThan(1e-12)
         expect(cdiff(mine[0]!.zStar!, t.z) / cabs(t.z)).toBeLessThan(1e-12)
       }
       if (!full) expect(r.drawing!.terms).toHaveLength(res.terms.length)
@@ -127,6 +127,7 @@ describe('drawn terms from the engine\'s term tree: the drawn sum is the recursi
     [[-2, 2, -2, 2, 2], [1, 2]],
     [[-2, -2, 2, 2, 2], [2, 4]],
     [[-2, -2, -2, 2, 2], [1, 2]],
+    [[-2, -2, 2, 2, 2, 2], [1, 2]],
   ])('gravitons %j under %j: the fully expanded drawing agrees with Hodges', (h, shift) => {
     const p: Process = { theory: 'graviton', helicities: h, shift }
     const g = expandedGraph(p, true)
@@ -135,6 +136,19 @@ describe('drawn terms from the engine\'s term tree: the drawn sum is the recursi
     expect(r.drawing!.comparison.messages).toEqual([])
     expect(r.verdict).toBe('agrees')
     expect(cdiff(r.value!, r.drawing!.recursion.value!) / cabs(r.value!)).toBeLessThan(1e-12)
+  })
+})
+
+describe('the cubic scalar', () => {
+  it.each<[number, [number, number]]>([[5, [1, 3]], [6, [1, 3]], [6, [2, 5]]])('%i scalars under %j: the drawn sum equals the planar cubic diagrams, top level and fully expanded', (n, shift) => {
+    const p: Process = { theory: 'scalar-cubic', helicities: Array<number>(n).fill(0), shift }
+    for (const full of [false, true]) {
+      const g = expandedGraph(p, full)
+      const r = check(g.process!, asG(g))
+      expect(r.target!.name).toBe('feynman')
+      expect(r.drawing!.comparison.messages).toEqual([])
+      expect(r.verdict).toBe('agrees')
+    }
   })
 })
 
@@ -256,5 +270,50 @@ describe('broken drawings disagree and say why', () => {
     expect(v.drawing.terms.map(t => t.label)).toEqual(v.drawing.terms.map(t => `{${t.channel!.left.join(',')}} | ${t.channel!.helicity > 0 ? '+' : '−'}`))
     expect(v.drawing.terms.every(t => t.valid && t.leftNodeIds.length > 0 && t.rightNodeIds.length > 0)).toBe(true)
     expect(validateGraph([], [], p6).drawing.terms).toEqual([])
+  })
+})
+
+describe('any edit of a drawing gets an answer, never an exception', () => {
+  it.each<[string, Process, boolean]>([
+    ['6 gluons, fully expanded', { theory: 'gluon', helicities: [M, M, M, P, P, P], shift: [3, 4] }, true],
+    ['7 gluons, top level with Blocks', { theory: 'gluon', helicities: [M, P, M, P, M, P, P], shift: [1, 2] }, false],
+    ['5 gravitons, fully expanded', { theory: 'graviton', helicities: [-2, -2, 2, 2, 2], shift: [1, 2] }, true],
+  ])('%s: random deletions, flips, kind changes and re-wirings are checked without throwing', (_, p, full) => {
+    const base = asG(expandedGraph(p, full))
+    const res = evaluate(evaluateRequest(p, { kinematics: { kind: 'random', seed: 9 } }))
+    let seed = 12345
+    const rnd = (k: number) => {
+      seed = (seed * 1103515245 + 12345) % 2 ** 31
+      return seed % k
+    }
+    const verdicts = new Set<string>()
+    for (let trial = 0; trial < 200; trial++) {
+      let g: G = { nodes: base.nodes.map(n => ({ ...n })), edges: base.edges.map(e => ({ ...e })) }
+      for (let step = 0; step <= rnd(3); step++) {
+        const what = rnd(5)
+        if (what === 0) g = { ...g, edges: g.edges.filter((_, t) => t !== rnd(g.edges.length)) }
+        else if (what === 1) {
+          const lines = g.edges.filter(e => !(e.data as { external?: boolean }).external)
+          if (lines.length) g = flipped(g, lines[rnd(lines.length)]!.id)
+        }
+        else if (what === 2) {
+          const k = rnd(g.nodes.length)
+          g = { ...g, nodes: g.nodes.map((n, t) => (t === k && n.type !== 'leg' ? { ...n, type: n.type === 'angle' ? 'square' : n.type === 'square' ? 'block' : 'angle' } : n)) }
+        }
+        else if (what === 3) {
+          const k = rnd(g.edges.length)
+          const to = g.nodes[rnd(g.nodes.length)]!.id
+          g = { ...g, edges: g.edges.map((e, t) => (t === k ? { ...e, target: to, targetHandle: `h${rnd(3)}` } : e)) }
+        }
+        else g = { ...g, nodes: g.nodes.filter((_, t) => t !== rnd(g.nodes.length)) }
+        const ids = new Set(g.nodes.map(n => n.id))
+        g = { ...g, edges: g.edges.filter(e => ids.has(e.source) && ids.has(e.target)) }
+      }
+      const r = checkDrawing(res, p, g)
+      expect(DrawingResultSchema.safeParse(r.drawing).success).toBe(true)
+      if (!r.drawing!.comparison.complete) expect(r.verdict).not.toBe('agrees')
+      verdicts.add(r.verdict)
+    }
+    expect(verdicts.has('disagrees')).toBe(true)
   })
 })

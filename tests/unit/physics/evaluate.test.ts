@@ -177,6 +177,7 @@ describe('bad input: typed errors naming the field', () => {
     ['an unknown kinematics kind', { ...base, kinematics: { kind: 'lattice' } }, 'kinematics.kind'],
     ['a bad rational', { ...base, arithmetic: 'exact', kinematics: { kind: 'exact-spinors', lambda: [['1/2', 'x']], lambdaTilde: [] } }, 'kinematics.lambda[0][1]'],
     ['a fractional shift', { ...base, shift: [1.5, 2] }, 'shift[0]'],
+    ['an unknown exact backend', { ...base, arithmetic: 'exact', kinematics: { kind: 'rational', seed: 1 }, exact: { backend: 'p-adic' } }, 'exact.backend'],
   ])('%s fails the schema (400) at %s', (_, req, path) => {
     const r = EvaluateRequestSchema.safeParse(req)
     expect(r.success).toBe(false)

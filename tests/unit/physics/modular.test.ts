@@ -15,7 +15,8 @@ import {
   rationalReconstruct,
   reconstructFrom,
 } from '../../../shared/physics/finite-field'
-import { byPrimes } from '../../../shared/physics/modular'
+import { bcfwByPrimes, byPrimes } from '../../../shared/physics/modular'
+import { shiftedKin } from '../../../shared/physics/falloff'
 import { evaluate } from '../../../shared/physics/index'
 import { rationalPoint, solveLastTwo } from '../../../shared/physics/kinematics'
 import { bcfw } from '../../../shared/physics/bcfw'
@@ -211,5 +212,20 @@ describe('unlucky primes', () => {
     const w = (s: Spinor<Fraction>) => s.map((x) => x.toFraction()) as [string, string]
     const r = same({ theory: 'gluon', helicities: [-1, -1, 1, 1, 1], kinematics: { kind: 'exact-spinors', lambda: kk.lambda.map(w), lambdaTilde: kk.lambdaTilde.map(w) }, arithmetic: 'exact' })
     expect(r.verdict).toBe('singular point')
+  })
+})
+
+describe('large numbers: the falloff probe\'s shifted points (z = 10^8)', () => {
+  it.each([
+    ['gluon', [-1, 1, -1, 1, -1, 1, 1, 1]],
+    ['graviton', [-2, 2, -2, 2, -2, 2]],
+  ] as const)('%s: BCFW by primes equals BCFW in big rationals', (theory, h) => {
+    const p = processOf(theory)
+    const k = shiftedKin(rationalPoint(h.length, 'falloff', { numerator: 9, denominator: 4 }), 0, 1, new Fraction(10n ** 8n))
+    const shift = defaultShift(p, [...h])
+    const r = bcfwByPrimes(p, k, [...h], shift, { terms: true })!
+    const ref = bcfw(Q, p, k, [...h], shift)
+    expect(r.value.equals(ref.value)).toBe(true)
+    expect(r.terms.map((t) => t.value.toFraction())).toEqual(ref.terms.map((t) => t.value.toFraction()))
   })
 })

@@ -1,8 +1,9 @@
 import { desc, eq } from 'drizzle-orm'
+import { limitQuery } from '../../../../shared/schemas/common'
 
 export default defineEventHandler(async (event) => {
   const { project } = await requireProjectRole(event, routeId(event), 'viewer')
-  const limit = Math.min(200, Math.max(1, Number(getQuery(event).limit) || 50))
+  const { limit } = parseWith(getQuery(event), limitQuery(200, 50), 'query')
   return useDB().select({
     id: tables.auditEvents.id,
     action: tables.auditEvents.action,

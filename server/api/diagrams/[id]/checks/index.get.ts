@@ -1,9 +1,10 @@
 import { and, desc, eq, getTableColumns } from 'drizzle-orm'
+import { limitQuery } from '../../../../../shared/schemas/common'
 
 // The diagram's checks, newest first, without their request and result payloads.
 export default defineEventHandler(async (event) => {
   const { diagram } = await requireDiagramRole(event, routeId(event), 'viewer')
-  const limit = Math.min(200, Math.max(1, Number(getQuery(event).limit) || 50))
+  const { limit } = parseWith(getQuery(event), limitQuery(200, 50), 'query')
   const { request: _request, result: _result, ...columns } = getTableColumns(tables.checks)
   const rows = await useDB().select({ ...columns, createdByName: tables.users.name })
     .from(tables.checks)

@@ -1,6 +1,6 @@
 import { CheckRunSchema } from '../../../../../shared/schemas/service'
 import type { EvaluateRequest } from '../../../../../shared/schemas/evaluate'
-import { hasDrawnTerms, type CheckedResponse } from '../../../../../shared/editor/drawing/evaluate'
+import { drawingGraph, hasDrawnTerms, type CheckedResponse } from '../../../../../shared/editor/drawing/evaluate'
 import type { EditorEdge, EditorNode } from '../../../../../shared/editor/types'
 
 // Runs a check: the diagram's process (theory, spin, helicities, colour order, shift) at the
@@ -27,7 +27,7 @@ export default defineEventHandler(async (event) => {
   let result: CheckedResponse
   try {
     result = drawn
-      ? (await runInPool<CheckedResponse>({ kind: 'checkDrawing', req, ...order, process, graph: { nodes: graph.nodes ?? [], edges: graph.edges ?? [] } }, poolOptions(event))).value
+      ? (await runInPool<CheckedResponse>({ kind: 'checkDrawing', req, ...order, process, graph: drawingGraph(graph) }, poolOptions(event))).value
       : (await runInPool<CheckedResponse>({ kind: 'evaluate', req, ...order }, poolOptions(event))).value
   }
   catch (e) {
