@@ -28,10 +28,18 @@ export const FORMULA_MAX_DEGREE = 2048
 // BigNumber constants: mathjs keeps a decimal literal exactly, so 0.1 becomes 1/10.
 const math = create({ parseDependencies: parseDependencies! }, { number: 'BigNumber', precision: 64 })
 
+/** A(σ) of the same process with its legs in the order σ (0-based), for formulas that refer to amplitudes. */
+export type AmplitudeOf = <T>(F: Field<T>, k: Kin<T>, order: number[]) => T
+
 export interface CompiledFormula {
   latex: string
-  evaluate<T>(F: Field<T>, k: Kin<T>): T
+  /** Whether the formula refers to amplitudes A(…) (then `evaluate` needs `amplitude`). */
+  usesAmplitudes: boolean
+  evaluate<T>(F: Field<T>, k: Kin<T>, amplitude?: AmplitudeOf): T
 }
+
+// The amplitude callback of the evaluation in progress (evaluation is synchronous and not re-entered).
+let currentAmplitude: AmplitudeOf | null = null
 
 function fail(message: string, position: number): never {
   throw new PhysicsError(FIELD, `${message} at position ${position}`)
@@ -41,6 +49,7 @@ type Bracket =
   | { kind: 'ang' | 'sq'; legs: [number, number] }
   | { kind: 'sand'; i: number; j: number; p: number[] }
   | { kind: 'mand'; p: number[] }
+  | { kind: 'amp'; p: number[] }
 
 interface Translation {
   text: string
@@ -116,8 +125,23 @@ function translate(src: string, n: number): Translation {
       } else return p
     }
   }
+  /** "(" legs separated by commas ")" after the name s or A (the first may be digits written together). */
+  const legList = (name: string, allowPair: boolean): number[] => {
+    expectChar('(', `"(" after ${name}`)
+    legAt = []
+    const p: number[] = [...legs(allowPair)]
+    for (;;) {
+      ws()
+      if (src[pos] === ',') {
+        pos++
+        p.push(...legs(false))
+      } else break
+    }
+    expectChar(')', `"," or ")" in ${name}(…)`)
+    return p
+  }
   const call = (b: Bracket, at: number) => {
-    const args = b.kind === 'sand' ? [b.i, b.j, ...b.p] : b.kind === 'mand' ? b.p : b.legs
+    const args = b.kind === 'sand' ? [b.i, b.j, ...b.p] : b.kind === 'mand' || b.kind === 'amp' ? b.p : b.legs
     // A space keeps "<1 2><2 3>" an implicit product for mathjs.
     const prev = text[text.length - 1]
     emit(`${prev !== undefined && /[\w).]/.test(prev) ? ' ' : ''}${b.kind}(${args.join(',')})`, at)
@@ -158,19 +182,17 @@ function translate(src: string, n: number): Translation {
       let e = pos
       while (e < end && /\w/.test(src[e]!)) e++
       const name = src.slice(pos, e)
-      if (name !== 's') fail(`unknown name "${name}" (use <i j>, [i j], s(i,j,…) or <i|P|j])`, pos + 1)
+      if (name !== 's' && name !== 'A') fail(`unknown name "${name}" (use <i j>, [i j], s(i,j,…), <i|P|j] or A(…))`, pos + 1)
       pos = e
-      expectChar('(', '"(" after s')
-      legAt = []
-      const p: number[] = [...legs(true)]
-      for (;;) {
-        ws()
-        if (src[pos] === ',') {
-          pos++
-          p.push(...legs(false))
-        } else break
+      if (name === 'A') {
+        // A(σ1, …, σn): the amplitude of the same process with its legs in this order
+        const p = legList('A', n <= 9)
+        noRepeats(p, 'A(…)')
+        if (p.length !== n) fail(`A(…) lists every leg once: ${n} legs, found ${p.length}`, at + 1)
+        call({ kind: 'amp', p }, at)
+        continue
       }
-      expectChar(')', '"," or ")" in s(…)')
+      const p = legList('s', true)
       if (p.length < 2) fail('s(…) needs at least two legs', at + 1)
       noRepeats(p, 's(…)')
       call({ kind: 'mand', p }, at)
@@ -291,6 +313,13 @@ function compile(node: MathNode, opAt: () => number): Eval {
               s = F.add(s, F.mul(ang, sq))
             }
             return s
+          }
+        }
+        case 'amp': {
+          const order = legs
+          return (F, k) => {
+            if (!currentAmplitude) throw new PhysicsError(FIELD, 'A(…) needs the process the formula belongs to')
+            return currentAmplitude(F, k, order)
           }
         }
         default: {
@@ -424,6 +453,8 @@ function texHandler(node: MathNode): string | undefined {
       return `\\langle ${legs[0]}|${legs.slice(2).join('+')}|${legs[1]}]`
     case 'mand':
       return `s_{${legTex(legs)}}`
+    case 'amp':
+      return `A(${legs.join(',')})`
     default:
       return undefined
   }
@@ -446,11 +477,18 @@ export function compileFormula(src: string, n: number): CompiledFormula {
   const latex = tree.toTex({ parenthesis: 'auto', implicit: 'hide', handler: texHandler })
   return {
     latex,
-    evaluate<T>(F: Field<T>, k: Kin<T>): T {
+    usesAmplitudes: /\bamp\(/.test(tr.text),
+    evaluate<T>(F: Field<T>, k: Kin<T>, amplitude?: AmplitudeOf): T {
       if (k.lambda.length !== n || k.lambdaTilde.length !== n) {
         throw new PhysicsError(FIELD, `the formula was compiled for ${n} legs, the point has ${k.lambda.length}`)
       }
-      return run(F, k)
+      const outer = currentAmplitude
+      currentAmplitude = amplitude ?? null
+      try {
+        return run(F, k)
+      } finally {
+        currentAmplitude = outer
+      }
     },
   }
 }

@@ -227,7 +227,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       (Fp, km) => {
         if (!vanishing && vanishingPole(Fp, p, km)) throw new SingularError('a pole vanishes')
         const b = bcfw(Fp, p, km, helicities, shift)
-        const tv = target.kind === 'none' ? null : target.kind === 'named' ? evaluateTarget(target.name, Fp, km, helicities) : target.formula.evaluate(Fp, km)
+        const tv = target.kind === 'none' ? null : target.kind === 'named' ? evaluateTarget(target.name, Fp, km, helicities) : target.formula.evaluate(Fp, km, amplitudeOf)
         const values = tv === null ? [b.value] : [b.value, tv]
         let shape = ''
         for (const t of b.terms) {
@@ -246,6 +246,14 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       terms: r.info.map((t, s) => ({ left: t.left, helicity: t.helicity, z: r.values[off + 3 * s]!, pole: r.values[off + 3 * s + 1]!, value: r.values[off + 3 * s + 2]!, children: null })),
       singular: null,
     }
+  }
+
+  /** A(σ) for a formula target: this process with its legs in the order σ, by BCFW under the default shift. */
+  function amplitudeOf<T>(F: Field<T>, k: Kin<T>, order: number[]): T {
+    const h = order.map((t) => helicities[t]!)
+    if (vanishes(p, h)) return F.zero
+    const kk = { lambda: order.map((t) => k.lambda[t]!), lambdaTilde: order.map((t) => k.lambdaTilde[t]!) }
+    return bcfw(F, p, kk, h, defaultShift(p, h)).value
   }
 
   function compute<T>(F: Field<T>, k: Kin<T>): Computed<T> {
@@ -268,7 +276,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
     let targetValue: T | null = null
     if (target.kind !== 'none' && !singular) {
       try {
-        targetValue = target.kind === 'named' ? evaluateTarget(target.name, F, k, helicities) : target.formula.evaluate(F, k)
+        targetValue = target.kind === 'named' ? evaluateTarget(target.name, F, k, helicities) : target.formula.evaluate(F, k, amplitudeOf)
       } catch (e) {
         if (!(e instanceof SingularError)) throw e
         singular = target.kind === 'named' ? `${e.what} in the target ${target.name}` : e.what.replace(/^the formula/, 'the target formula')

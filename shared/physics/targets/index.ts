@@ -7,7 +7,7 @@ import { PhysicsError } from '../errors'
 import { parkeTaylor, classifyGluon } from './parke-taylor'
 import { berendsGiele } from './berends-giele'
 import { hodges, classifyGraviton } from './hodges'
-import { klt } from './klt'
+import { KLT_MAX_N, klt } from './klt'
 import { cubicScalarFeynman } from './cubic-scalar'
 
 import { THEORY_NAMES, type TheoryName } from '../theories'
@@ -81,10 +81,10 @@ export const TARGETS = defineTargets([
     name: 'klt',
     label: 'KLT relations',
     theories: ['graviton', 'spin'],
-    description: 'Graviton amplitudes as sums of products of colour-ordered gluon amplitudes (from Berends–Giele) weighted by Mandelstam invariants; n = 3..6, every helicity configuration.',
+    description: 'Graviton amplitudes as sums of products of colour-ordered gluon amplitudes (from Berends–Giele) weighted by Mandelstam invariants; n = 3..7 (n = 7 by the momentum kernel), every helicity configuration.',
     source: 'H. Kawai, D. Lewellen, S.-H. Tye, Nucl. Phys. B269 (1986) 1; Z. Bern, L. Dixon, M. Perelstein, J. Rozowsky, Nucl. Phys. B546 (1999) 423',
     spin: 2,
-    applies: (theory, h, spin) => gravityLike(theory, spin) && h.length <= 6,
+    applies: (theory, h, spin) => gravityLike(theory, spin) && h.length <= KLT_MAX_N,
     evaluate: (F, k, h) => klt(F, k, h),
   },
   {

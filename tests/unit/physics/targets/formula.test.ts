@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest'
 import { Fraction, complexField as C, rationalField as Q, SingularError } from '../../../../shared/physics/field'
 import { angle, square, mandelstam, sandwich } from '../../../../shared/physics/spinors'
 import { compileFormula } from '../../../../shared/physics/formula'
+import { evaluate } from '../../../../shared/physics/index'
 import { PhysicsError } from '../../../../shared/physics/errors'
 import { parkeTaylor } from '../../../../shared/physics/targets/parke-taylor'
 import { klt } from '../../../../shared/physics/targets/klt'
@@ -90,7 +91,7 @@ describe('errors name target.formula and the 1-based position in the user\'s str
     ['<1 2>^(1/2)', 5, 'target.formula: an exponent must be an integer at position 6'],
     ['[1 2] + <1 2>^<1 2>', 5, 'target.formula: an exponent must be an integer at position 14'],
     ['<1 2>^100', 5, 'target.formula: the exponent 100 is too large (at most 64 in size) at position 6'],
-    ['x + 1', 5, 'target.formula: unknown name "x" (use <i j>, [i j], s(i,j,…) or <i|P|j]) at position 1'],
+    ['x + 1', 5, 'target.formula: unknown name "x" (use <i j>, [i j], s(i,j,…), <i|P|j] or A(…)) at position 1'],
     ['1 # 2', 5, 'target.formula: unexpected character "#" at position 3'],
     ['<1 2 3>', 5, 'target.formula: expected ">" (an angle bracket reads <i j>), found "3" at position 6'],
     ['[1 2>', 5, 'target.formula: expected "]" (a square bracket reads [i j]), found ">" at position 5'],
@@ -136,5 +137,44 @@ describe('LaTeX for KaTeX', () => {
     expect(tex).toContain('\\langle 4\\,1\\rangle')
     expect(tex).not.toMatch(/ang\(|sand\(|mand\(/)
     expect(compileFormula('-s(1,2) [1 2]', 4).latex).toBe('-s_{12}~[1\\,2]')
+  })
+})
+
+describe('formulas that refer to amplitudes of the same process: A(σ)', () => {
+  // identities of colour-ordered amplitudes typed as targets: reflection A(1…n) = (−1)ⁿ A(n…1) and
+  // U(1) decoupling (Kleiss & Kuijf, Nucl. Phys. B312 (1989) 616)
+  const h = [-1, 1, -1, 1, 1]
+  it.each([
+    ['A(1,2,3,4,5)'],
+    ['A(12345)'],
+    ['-A(5,4,3,2,1)'],
+    ['-(A(2,1,3,4,5) + A(2,3,1,4,5) + A(2,3,4,1,5))'],
+  ])('%s agrees (float and exact)', (formula) => {
+    const f = evaluate({ theory: 'gluon', helicities: h, kinematics: { kind: 'random', seed: 2 }, target: { formula } })
+    expect(f.verdict).toBe('agrees')
+    const e = evaluate({ theory: 'gluon', helicities: h, kinematics: { kind: 'rational', seed: 2 }, arithmetic: 'exact', target: { formula } })
+    expect(e.verdict).toBe('agrees')
+    expect(e.target!.latex).toMatch(/A\(\d(,\d){4}\)/)
+  })
+  it('a relation with a term dropped disagrees', () => {
+    const r = evaluate({ theory: 'gluon', helicities: h, kinematics: { kind: 'rational', seed: 2 }, arithmetic: 'exact', target: { formula: '-(A(2,1,3,4,5) + A(2,3,1,4,5))' } })
+    expect(r.verdict).toBe('disagrees')
+  })
+  it('gravitons: A(σ) is the same symmetric amplitude', () => {
+    const r = evaluate({ theory: 'graviton', helicities: [-2, 2, -2, 2, 2], kinematics: { kind: 'rational', seed: 3 }, arithmetic: 'exact', target: { formula: 'A(3,1,2,5,4)' } })
+    expect(r.verdict).toBe('agrees')
+  })
+  it.each([
+    ['A(1,2,3,4)', /A\(…\) lists every leg once: 5 legs, found 4 at position 1$/],
+    ['A(1,2,3,4,4)', /leg 4 appears twice in A\(…\) at position 11$/],
+    ['A(1,2,3,4,6)', /leg 6 does not exist \(legs are 1..5\) at position 11$/],
+    ['B(1,2)', /unknown name "B"/],
+  ])('%s is refused on target.formula', (formula, msg) => {
+    expect(() => evaluate({ theory: 'gluon', helicities: h, kinematics: { kind: 'random', seed: 2 }, target: { formula } })).toThrow(msg)
+  })
+  it('without a process the formula says what A(…) needs', () => {
+    const c = compileFormula('A(1,2,3,4)', 4)
+    expect(c.usesAmplitudes).toBe(true)
+    expect(() => c.evaluate(C, randomComplexPoint(4, 1))).toThrow(/A\(…\) needs the process/)
   })
 })

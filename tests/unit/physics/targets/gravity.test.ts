@@ -179,9 +179,9 @@ describe('input checks', () => {
     const k = randomComplexPoint(h.length, 'bad')
     expect(() => hodges(C, k, h)).toThrow(msg)
   })
-  it('KLT refuses seven gravitons', () => {
-    const k = randomComplexPoint(7, 'bad')
-    expect(() => klt(C, k, mhv(7, 0, 1))).toThrow(/^target: the KLT target covers 3 to 6 gravitons/)
+  it('KLT refuses eight gravitons', () => {
+    const k = randomComplexPoint(8, 'bad')
+    expect(() => klt(C, k, mhv(8, 0, 1))).toThrow(/^target: the KLT target covers 3 to 7 gravitons/)
   })
   it('vanishing classes: Hodges gives exactly 0, KLT computes 0', () => {
     const k = randomRationalPoint(5, 'zero')
