@@ -12,7 +12,7 @@ import { nodeOf } from '~~/shared/editor/types'
 import { validateGraph, particleSpin } from '~~/shared/editor/validate'
 import { blockPaths, collapseSpec, compId, expandAllSpecs, expandSpec, specsToGraph, topSpecs, type CompSpec } from '~~/shared/editor/expand'
 import { matchTerms, processFromCanvas, processKey } from '~~/shared/editor/process'
-import { layoutGraph } from '~~/composables/useLayout'
+import { layoutGraph } from '~~/shared/editor/layout'
 
 export interface Expansion {
   /** processKey() of the process it was made for. */

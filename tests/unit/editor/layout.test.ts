@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { components, layoutGraph, layoutPositions } from '~~/composables/useLayout'
+import { components, layoutGraph, layoutPositions } from '~~/shared/editor/layout'
 import { nodeSize } from '~~/shared/editor/geometry'
 import type { EditorEdge, EditorNode } from '~~/shared/editor/types'
 
