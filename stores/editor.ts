@@ -8,6 +8,7 @@ import type { Graph, Process } from '~~/shared/schemas/graph'
 import { GRAPH_SCHEMA_VERSION } from '~~/shared/schemas/graph'
 import type { EvaluateResponse, WireTerm } from '~~/shared/schemas/evaluate'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData, NodeKind } from '~~/shared/editor/types'
+import { nodeOf } from '~~/shared/editor/types'
 import { validateGraph, particleSpin } from '~~/shared/editor/validate'
 import { blockPaths, collapseSpec, compId, expandAllSpecs, expandSpec, specsToGraph, topSpecs, type CompSpec } from '~~/shared/editor/expand'
 import { matchTerms, processFromCanvas, processKey } from '~~/shared/editor/process'
@@ -126,7 +127,7 @@ export const useEditorStore = defineStore('editor', () => {
     delete s.expansion
     settings.value = s
     expansion.value = exp && Array.isArray(exp.specs) ? exp : null
-    nodes.value = (g.nodes ?? []).map(n => ({ id: n.id, type: n.type, position: { ...n.position }, data: { ...(n.data ?? {}) } }))
+    nodes.value = (g.nodes ?? []).map(n => nodeOf(n.id, n.type, { ...n.position }, { ...(n.data ?? {}) }))
     edges.value = (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, type: e.type ?? 'line', data: { ...(e.data ?? {}) } }))
   }
 
@@ -256,7 +257,7 @@ export const useEditorStore = defineStore('editor', () => {
       else if (type === 'block') d = { helicities: [-s, -s, s, s] } satisfies BlockData
       else d = {}
     }
-    commit(() => { nodes.value = [...nodes.value, { id, type, position: { ...position }, data: d! }] })
+    commit(() => { nodes.value = [...nodes.value, nodeOf(id, type, { ...position }, d!)] })
     return id
   }
 
@@ -304,10 +305,10 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   function updateNodeData(id: string, patch: Record<string, unknown>) {
-    commit(() => { nodes.value = nodes.value.map(n => (n.id === id ? { ...n, data: { ...n.data, ...patch } } : n)) })
+    commit(() => { nodes.value = nodes.value.map(n => (n.id === id ? nodeOf(n.id, n.type, n.position, { ...n.data, ...patch }) : n)) })
   }
   function setNodeType(id: string, type: NodeKind) {
-    commit(() => { nodes.value = nodes.value.map(n => (n.id === id ? { ...n, type } : n)) })
+    commit(() => { nodes.value = nodes.value.map(n => (n.id === id ? nodeOf(n.id, type, n.position, n.data) : n)) })
   }
   function updateEdgeData(id: string, patch: Record<string, unknown>) {
     commit(() => { edges.value = edges.value.map(e => (e.id === id ? { ...e, data: { ...e.data, ...patch } } : e)) })

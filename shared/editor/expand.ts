@@ -5,6 +5,7 @@
 // that Block (A_L = Σ_t term_t, so A_L·A_R/P² = Σ_t term_t·A_R/P²). Collapsing merges them back.
 import type { WireLeg, WireSubAmplitude, WireTerm, WireVertex } from '../schemas/evaluate'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData, VertexData } from './types'
+import { nodeOf } from './types'
 import { bestRotation } from './geometry'
 
 export interface CompSpec {
@@ -170,18 +171,18 @@ export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos
       if (x.kind === 'block') {
         const sub = x.node as WireSubAmplitude
         const data: BlockData = { ...origin, path: x.path, helicities: x.helicities, legs, terms: sub.terms.length, shift: sub.shift, value: sub.value }
-        nodes.push({ id: x.id, type: 'block', position: { x: 0, y: 0 }, data: data as unknown as Record<string, unknown> })
+        nodes.push(nodeOf(x.id, 'block', { x: 0, y: 0 }, data))
       }
       else {
         const data: VertexData = { ...origin, path: x.path, legs, value: (x.node as WireVertex).value }
-        nodes.push({ id: x.id, type: x.kind, position: { x: 0, y: 0 }, data: data as unknown as Record<string, unknown> })
+        nodes.push(nodeOf(x.id, x.kind, { x: 0, y: 0 }, data))
       }
       x.legs.forEach((l, slot) => {
         if ('label' in l) {
           const label = labelOf(l.label)
           const legId = `${comp}-l${label}`
           const data: LegData = { ...origin, label, helicity: x.helicities[slot]! }
-          nodes.push({ id: legId, type: 'leg', position: { x: 0, y: 0 }, data: data as unknown as Record<string, unknown> })
+          nodes.push(nodeOf(legId, 'leg', { x: 0, y: 0 }, data))
           const ed: LineData = { ...origin, external: true }
           edges.push({ id: `${legId}-e`, source: legId, target: x.id, sourceHandle: 'p', targetHandle: `h${slot}`, type: 'line', data: ed as unknown as Record<string, unknown> })
         }

@@ -49,11 +49,23 @@ export interface LineData extends Origin {
   external?: boolean
 }
 
-export interface EditorNode {
+interface NodeOf<T extends NodeKind, D> {
   id: string
-  type: NodeKind
+  type: T
   position: { x: number, y: number }
-  data: Record<string, unknown>
+  /** The kind's data; extra keys a newer version wrote are kept as they are. */
+  data: D & Record<string, unknown>
+}
+export type LegNode = NodeOf<'leg', LegData>
+export type AngleNode = NodeOf<'angle', VertexData>
+export type SquareNode = NodeOf<'square', VertexData>
+export type BlockNode = NodeOf<'block', BlockData>
+/** A node of the graph, discriminated by `type`: `n.type === 'leg'` narrows `n.data` to LegData. */
+export type EditorNode = LegNode | AngleNode | SquareNode | BlockNode
+
+/** A node from untyped graph data (a saved document, an edit that changes the kind): the one cast. */
+export function nodeOf(id: string, type: NodeKind, position: { x: number, y: number }, data: object): EditorNode {
+  return { id, type, position, data } as EditorNode
 }
 
 export interface EditorEdge {

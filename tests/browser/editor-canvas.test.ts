@@ -111,6 +111,25 @@ describe('the canvas is the computation', () => {
     expect(await page.inputValue('select[name=theory]')).toBe('gluon')
     await page.keyboard.press('Control+Shift+z')
     await expect.poll(() => chips(page)).toEqual(['1−2', '2−2', '3−2', '4+2', '5+2'])
+    await page.keyboard.press('Control+y')
+    await expect.poll(() => chips(page)).toEqual(['1−3', '2−3', '3−3', '4+3', '5+3'])
+    // Spin 3, four legs (−−++) under [1,2⟩: one story, decided from the falloff and the cross-shift check together.
+    await page.fill('input[name=legs]', '4')
+    await page.locator('input[name=legs]').press('Tab')
+    await page.click('[data-test=hel-3]')
+    await expect.poll(() => chips(page)).toEqual(['1−3', '2−3', '3+3', '4+3'])
+    await page.click('[data-test=shift-button]')
+    await page.click('[data-test=shift-1-2]')
+    await page.click('[data-test=evaluate-quick]')
+    await page.waitForSelector('[data-test=results], [data-test=notice]', { timeout: 60_000 })
+    await page.waitForSelector('[data-test=evaluate-quick]:not([disabled])', { timeout: 90_000 })
+    expect(await page.locator('[data-test=results]').count(), (await page.locator('[data-test=notice]').textContent().catch(() => '')) ?? '').toBe(1)
+    await expect.poll(() => page.locator('[data-test=cross-shift]').count(), { timeout: 60_000 }).toBe(1)
+    const story = (await page.locator('[data-test=story]').textContent())!
+    const cross = (await page.locator('[data-test=cross-shift]').textContent())!
+    expect(await page.locator('[data-test=results]').textContent()).not.toContain('can be trusted')
+    if (cross.includes('valid shifts disagree')) expect(story).toMatch(/valid shifts disagree.*Do not trust/)
+    await shot(page, 'editor-spin3-story')
     expect(errors).toEqual([])
   })
 

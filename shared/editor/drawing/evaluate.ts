@@ -15,6 +15,7 @@ import { decideVerdict, deviationOf, lostPrecision, type Verdict } from '../../p
 import type { Process as GraphProcess } from '../../schemas/graph'
 import type { EvaluateResponse, WireComplex } from '../../schemas/evaluate'
 import type { EditorEdge, EditorNode, LineData } from '../types'
+import { nodeOf } from '../types'
 import { validateGraph } from '../validate'
 import { compareDrawing, type DrawingComparison } from './compare'
 import { engineProcess, type DrawnPart, type DrawingStructure } from './structure'
@@ -128,7 +129,7 @@ export function drawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }):
     return out
   }
   return {
-    nodes: (g.nodes ?? []).map(n => ({ id: n.id, type: n.type, position: { x: 0, y: 0 }, data: pick(n.data, n.type === 'leg' ? ['label', 'helicity'] : n.type === 'block' ? ['helicities'] : []) })),
+    nodes: (g.nodes ?? []).map(n => nodeOf(n.id, n.type, { x: 0, y: 0 }, pick(n.data, n.type === 'leg' ? ['label', 'helicity'] : n.type === 'block' ? ['helicities'] : []))),
     edges: (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, data: pick(e.data, ['helicity', 'targetHelicity', 'line', 'external']) })),
   }
 }

@@ -8,6 +8,7 @@ import { checkDrawing, type CheckedResponse } from '~~/shared/editor/drawing'
 import { evaluateRequest, toLabels } from '~~/shared/editor/process'
 import { validateGraph } from '~~/shared/editor/validate'
 import type { EditorEdge, EditorNode } from '~~/shared/editor/types'
+import { nodeOf } from '~~/shared/editor/types'
 import { evaluate, floatTolerance } from '~~/shared/physics/index'
 import { DrawingResultSchema } from '~~/shared/schemas/drawing'
 import type { Graph, Process } from '~~/shared/schemas/graph'
@@ -298,7 +299,7 @@ describe('any edit of a drawing gets an answer, never an exception', () => {
         }
         else if (what === 2) {
           const k = rnd(g.nodes.length)
-          g = { ...g, nodes: g.nodes.map((n, t) => (t === k && n.type !== 'leg' ? { ...n, type: n.type === 'angle' ? 'square' : n.type === 'square' ? 'block' : 'angle' } : n)) }
+          g = { ...g, nodes: g.nodes.map((n, t) => (t === k && n.type !== 'leg' ? nodeOf(n.id, n.type === 'angle' ? 'square' : n.type === 'square' ? 'block' : 'angle', n.position, n.data) : n)) }
         }
         else if (what === 3) {
           const k = rnd(g.edges.length)
