@@ -90,7 +90,7 @@ describe('CSV exports', () => {
     ].join('\n')
     const up = await upload(ctx.editor, pid, 'formulae.csv', csv)
     expect(up.status).toBe(201)
-    const res = await fetch(`${baseURL()}/api/point-sets/${up.body.id}/export?format=csv`, { headers: { cookie: ctx.editor.cookie } })
+    const res = await fetch(`${baseURL()}/api/point-sets/${up.body.pointSet.id}/export?format=csv`, { headers: { cookie: ctx.editor.cookie } })
     const text = await res.text()
     expect(res.status, text.slice(0, 500)).toBe(200)
     expect(text).toContain(`'=HYPERLINK`)
