@@ -24,14 +24,14 @@ export const POINT_SET_SECTION: ApiSection = {
     },
     {
       id: 'point-set-generate', method: 'POST', path: '/api/projects/:id/point-sets/generate', params: { id: 1 }, access: 'editor',
-      summary: 'A seeded set: `physical` points by RAMBO at centre-of-mass energy `energy` (legs 1, 2 incoming along ±z, crossed to outgoing) or `random` complex points. Point i uses the seed `"<seed>:<i>"`, so the set is reproducible.',
+      summary: 'A seeded set: `physical` points by RAMBO at centre-of-mass energy `energy` (legs 1, 2 incoming along ±z, crossed to outgoing) or `random` complex points. Point i uses the seed `"<seed>:<i>"`, so the set is reproducible. Physical sets have at most 14 legs. Drawn in the worker pool within the evaluation budget.',
       schema: GenerateSchema,
       examples: [
         example(GenerateSchema, 'six legs, physical', { kind: 'physical', n: 6, count: 1000, seed: 42, energy: 91.2 }),
         example(GenerateSchema, 'random complex', { kind: 'random', n: 7, count: 200, seed: 1 }),
       ],
       response: 'The point set `{ id, name, source, n, count, seed, energy, kinematics, meta, … }`.',
-      statuses: [[201, 'stored'], [400, 'a field fails the schema'], [403, 'a viewer'], ...auth],
+      statuses: [[201, 'stored'], [400, 'a field fails the schema'], [403, 'a viewer'], [422, '`n` over 14 for physical points'], [503, 'over the time budget'], ...auth],
     },
     { id: 'point-set-list', method: 'GET', path: '/api/projects/:id/point-sets', params: { id: 1 }, access: 'viewer', summary: 'The project\'s point sets, newest first.', response: 'An array of point sets.', statuses: [[200, 'the list'], [404, 'no such project'], ...auth] },
     { id: 'point-set-get', method: 'GET', path: '/api/point-sets/:id', params: { id: 1 }, access: 'viewer', summary: 'One point set.', response: 'The point set and the caller\'s `role`.', statuses: [[200, 'the set'], [404, 'no such set'], ...auth] },

@@ -13,7 +13,7 @@ export { parseJson, toJsonFile, JsonPointFileSchema, JsonPointSchema } from './j
 export { parseLhe, PARTICLE_FIELDS } from './lhe'
 export type { LheMeta } from './lhe'
 export { validatePoint, validatePoints, momentumViolations } from './validate'
-export { generatePoint, generatePoints, pointSeed } from './generate'
+export { generatePoint, generatePoints, pointSeed, PHYSICAL_MAX_LEGS } from './generate'
 export { kinOf, invariantMatrix, minInvariantRatio } from './invariants'
 
 /** The format of an upload: the `format` field if given, else the file name's ending, else the content. */

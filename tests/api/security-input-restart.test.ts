@@ -58,7 +58,7 @@ describe('interrupted batches', () => {
     const project = (await call('POST', '/api/projects', { name: 'Restart' })).body
     const graph = { schemaVersion: 1, nodes: [], edges: [], process: { theory: 'gluon', helicities: [-1, -1, 1, 1, 1, 1, 1, 1] } }
     const diagram = (await call('POST', `/api/projects/${project.id}/diagrams`, { title: 'Eight gluons', graph })).body
-    const set = (await call('POST', `/api/projects/${project.id}/point-sets/generate`, { kind: 'random', n: 8, count: 10_000, seed: 3 })).body
+    const set = (await call('POST', `/api/projects/${project.id}/point-sets/generate`, { kind: 'random', n: 8, count: 3000, seed: 3 })).body
     const batch = await call('POST', `/api/diagrams/${diagram.id}/batch-checks`, { pointSetId: set.id, target: 'parke-taylor' })
     expect(batch.status).toBe(202)
     server.kill('SIGKILL')

@@ -1,10 +1,13 @@
 // A seeded set: N physical points (RAMBO, energy) or N random complex points; point i uses the
 // seed "<seed>:<i>", so the set is reproducible from its stored seed.
-import { GenerateSchema, type PointData } from '../../../../../shared/pointsets'
+import { GenerateSchema, PHYSICAL_MAX_LEGS, type PointData } from '../../../../../shared/pointsets'
 
 export default defineEventHandler(async (event) => {
   const { project, user } = await requireProjectRole(event, routeId(event), 'editor')
   const body = await readValid(event, GenerateSchema)
+  if (body.kind === 'physical' && body.n > PHYSICAL_MAX_LEGS) {
+    throw fieldError(422, 'n', `physical points are drawn for at most ${PHYSICAL_MAX_LEGS} legs: beyond that almost no phase-space point is well-conditioned (min |s_ij| / max |s_ij| ≥ 1e-3); use kind "random" for more legs`)
+  }
   const energy = body.kind === 'physical' ? body.energy ?? 1 : null
   const name = body.name ?? (body.kind === 'physical'
     ? `${body.count} physical points, n = ${body.n}, √s = ${energy}, seed ${body.seed}`
