@@ -9,7 +9,8 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', sequence: { groupOrder: 0 } },
+        // Exact and fully expanded cases take seconds on a busy 2-core machine: a generous per-test limit.
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', testTimeout: 60_000, sequence: { groupOrder: 0 } },
       },
       {
         resolve: { alias },

@@ -2,9 +2,9 @@
 // with esbuild (installed with Nuxt) and runs it with --expose-gc; a bench/<name>.mjs runs as is.
 // Its output goes to the terminal and replaces the benchmark's section of bench/RESULTS.md.
 import { build } from 'esbuild'
-import { spawn, spawnSync } from 'node:child_process'
+import { spawn } from 'node:child_process'
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
-import { loadavg, tmpdir } from 'node:os'
+import { loadavg } from 'node:os'
 import { join, dirname } from 'node:path'
 import { fileURLToPath } from 'node:url'
 

@@ -27,7 +27,7 @@ import type { LimitCheckRequestInput } from '../../shared/schemas/limit-checks'
 import { checkOrder, effectiveOrder, inOrder, isIdentity, responseToLabels, shiftInOrder } from '../../shared/physics/colour-order'
 import { MAX_SPIN } from '../../shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
-import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics, type WireTerm } from '../../shared/schemas/evaluate'
+import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics } from '../../shared/schemas/evaluate'
 import { generatePoints } from '../../shared/pointsets/generate'
 import type { GenerateInput } from '../../shared/pointsets/schemas'
 import {
