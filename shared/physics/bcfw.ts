@@ -148,7 +148,7 @@ export interface ChannelKinematics<T> {
 }
 
 /**
- * The kinematics of one channel of the [i,j⟩ shift (0-based positions in `k`), CONVENTIONS.md
+ * The kinematics of one channel of the [i,j⟩ shift (0-based positions in `k`), docs/conventions.md
  * "BCFW": P, z*, the rank-one split of P̂ and the shifted spinors of both sides. Throws
  * SingularError when P² or ⟨i|P|j] vanishes. Shared by the recursion and the drawing compiler.
  */

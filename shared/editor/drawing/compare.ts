@@ -11,7 +11,7 @@ import { channelText, engineProcess, liveChannels, type DrawnPart, type DrawingS
 export interface ChannelRef {
   /** Sorted labels on the side of the shifted leg i. */
   left: number[]
-  /** Internal helicity at leg i's side (API.md's term `helicity`). */
+  /** Internal helicity at leg i's side (docs/api.md "Evaluation response", the term's `helicity`). */
   helicity: number
   /** Ids of the drawn components (terms) concerned; empty for a missing channel. */
   terms: string[]

@@ -50,7 +50,7 @@ export interface DrawnIssue {
 export interface DrawnChannel {
   /** Sorted leg labels on the side of the shifted leg i. */
   left: number[]
-  /** Helicity of the top-level Line at its end on leg i's side (API.md's term `helicity`). */
+  /** Helicity of the top-level Line at its end on leg i's side (docs/api.md "Evaluation response", the term's `helicity`). */
   helicity: number
 }
 
