@@ -271,11 +271,21 @@ export function cancelBatch(checkId: number): boolean {
   return true
 }
 
-export async function cancelBatchesOfPointSet(pointSetId: number) {
+export function cancelBatchesOfPointSet(pointSetId: number) {
+  return cancelAndWait(([, l]) => l.pointSetId === pointSetId)
+}
+
+/** Stops the given batch checks and waits (at most 5 s) until each has written its last chunk. */
+export function cancelBatchesById(ids: number[]) {
+  const wanted = new Set(ids)
+  return cancelAndWait(([id]) => wanted.has(id))
+}
+
+async function cancelAndWait(pick: (entry: [number, Live]) => boolean) {
   const waits: Promise<void>[] = []
   for (const [id, l] of live) {
-    if (l.pointSetId !== pointSetId) continue
-    l.controller.abort()
+    if (!pick([id, l])) continue
+    cancelBatch(id)
     waits.push(new Promise((resolve) => {
       const off = onBatchProgress(id, (p) => {
         if (TERMINAL.has(p.status)) {

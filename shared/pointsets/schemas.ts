@@ -1,6 +1,6 @@
 // Request schemas of the point-set and batch-check routes, shared by the pages and the routes.
 import { z } from 'zod'
-import { TargetNameEnum } from '../schemas/evaluate'
+import { FormulaTarget, TargetNameEnum } from '../schemas/evaluate'
 import { MAX_POINTS } from './types'
 
 /** The text fields of a multipart upload (besides `file`). */
@@ -23,7 +23,7 @@ export const ExportQuerySchema = z.object({
 
 export const BatchStartSchema = z.object({
   pointSetId: z.number({ error: 'must be the id of a point set' }).int({ error: 'must be the id of a point set' }).positive({ error: 'must be the id of a point set' }),
-  target: z.union([TargetNameEnum, z.object({ formula: z.string().max(20000) })], { error: 'must be auto, parke-taylor, berends-giele, hodges, klt, feynman, none or { formula }' }).default('auto'),
+  target: z.union([TargetNameEnum, FormulaTarget], { error: 'must be auto, parke-taylor, berends-giele, hodges, klt, feynman, none or { formula }' }).default('auto'),
   /** Overrides the diagram's shift for this run. */
   shift: z.tuple([z.number().int().positive(), z.number().int().positive()], { error: 'must be two leg labels [i, j]' }).optional(),
 })
