@@ -79,6 +79,13 @@ describe('work surfaces in the browser', () => {
     // Activity links to the diagram.
     await page.waitForSelector('[data-test=activity-link]')
 
+    // Revision diff: v1 had no process, v2 set it.
+    await page.click(`tr[data-diagram="${d.id}"] [data-test=diagram-revisions]`)
+    await page.waitForURL(new RegExp(`/revisions/${d.id}$`))
+    await page.waitForSelector('[data-test=diff-process]')
+    expect(await page.locator('[data-test=revision-diff]').textContent()).toMatch(/process helicities\s*— → −−\+\+.*process shift\s*— → \[1,2⟩/s)
+    await both('surfaces-revisions')
+
     // The checks table: the one stored check, its result opened in place, its diagram linked.
     await page.goto(`/projects/${project.id}/checks`)
     await page.waitForLoadState('networkidle')
@@ -93,6 +100,21 @@ describe('work surfaces in the browser', () => {
     await page.selectOption('select[name=filter-verdict]', '')
     await table.locator('[data-test=check-diagram]').first().click()
     await page.waitForURL(new RegExp(`/diagrams/${d.id}$`))
+
+    // The point-set page: a compact table, a row opens to its legs; the generate form's seed message.
+    const set = (await owner.post(`/api/projects/${project.id}/point-sets/generate`, { kind: 'physical', n: 4, count: 120, seed: 3 })).body
+    await page.goto(`/projects/${project.id}/point-sets/${set.id}`)
+    await page.waitForLoadState('networkidle')
+    expect(await page.locator('[data-test=point]').count()).toBe(50)
+    expect(await page.locator('[data-test=points-page]').textContent()).toBe('1 / 3')
+    await page.locator('[data-test=point]').first().click()
+    expect(await page.locator('[data-test=point-legs]').count()).toBe(1)
+    await both('surfaces-pointset')
+    await page.goto(`/projects/${project.id}/point-sets`)
+    await page.waitForLoadState('networkidle')
+    await page.fill('[data-test=generate-form] input[name=seed]', 'abc')
+    await page.click('[data-test=generate-form] button[type=submit]')
+    expect(await page.locator('[data-test=generate-form]').textContent()).toContain('must be a number')
 
     // Delete the project: refused until its name is typed, then gone.
     await page.goto(`/projects/${project.id}`)
