@@ -1,7 +1,7 @@
 import { defineConfig } from 'vitest/config'
 import { fileURLToPath } from 'node:url'
 
-const alias = { '~~': fileURLToPath(new URL('./', import.meta.url)), '~': fileURLToPath(new URL('./', import.meta.url)) }
+const alias = { '~~': fileURLToPath(new URL('./', import.meta.url)), '~': fileURLToPath(new URL('./', import.meta.url)), '#shared': fileURLToPath(new URL('./shared', import.meta.url)) }
 
 export default defineConfig({
   resolve: { alias },

@@ -11,11 +11,11 @@ import { createRequire } from 'node:module'
 import { availableParallelism, cpus, loadavg } from 'node:os'
 import { join } from 'node:path'
 import { signInDemo, startBuiltServer } from './server'
-import { complexField } from '../shared/physics/field'
-import { randomPoint } from '../shared/physics/kinematics'
-import { bcfw } from '../shared/physics/bcfw'
-import { defaultShift, processOf } from '../shared/physics/theories'
-import { autoTarget, evaluateTarget } from '../shared/physics/targets/index'
+import { complexField } from '#shared/physics/field'
+import { randomPoint } from '#shared/physics/kinematics'
+import { bcfw } from '#shared/physics/bcfw'
+import { defaultShift, processOf } from '#shared/physics/theories'
+import { autoTarget, evaluateTarget } from '#shared/physics/targets/index'
 
 // Loaded at run time from the project's node_modules (the bundle of this file lives elsewhere).
 const require = createRequire(join(process.cwd(), 'package.json'))

@@ -2,12 +2,12 @@
 // the process evaluated, then the drawing compiled, compared and evaluated at the same point)
 // against the engine's check of the same process (the worker's evaluate task), tree off and on.
 // Aim: the drawn 8-gluon NMHV check costs < 2× the engine's. Run: node bench/run.mjs drawing [--quick]
-import { expandedGraph } from '../shared/editor/demo'
-import { checkDrawing, drawingGraph } from '../shared/editor/drawing/evaluate'
-import { validateGraph } from '../shared/editor/validate'
-import type { EditorEdge, EditorNode } from '../shared/editor/types'
-import { evaluate } from '../shared/physics/index'
-import type { Process } from '../shared/schemas/graph'
+import { expandedGraph } from '#shared/editor/demo'
+import { checkDrawing, drawingGraph } from '#shared/editor/drawing/evaluate'
+import { validateGraph } from '#shared/editor/validate'
+import type { EditorEdge, EditorNode } from '#shared/editor/types'
+import { evaluate } from '#shared/physics/index'
+import type { Process } from '#shared/schemas/graph'
 import { runTask } from '../server/workers/tasks'
 
 const quick = process.argv.includes('--quick')

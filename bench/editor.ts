@@ -6,12 +6,12 @@
 //   2. Panning a canvas of 300+ nodes by mouse drag in chromium: frame rate and frame-time p95.
 import { createRequire } from 'node:module'
 import { join } from 'node:path'
-import { evaluate } from '../shared/physics/index'
-import { expandAllSpecs, specsToGraph, topSpecs, STRUCTURE_SEED } from '../shared/editor/expand'
-import { evaluateRequest, toLabels } from '../shared/editor/process'
-import { layoutGraph } from '../shared/editor/layout'
-import { expandedGraph } from '../shared/editor/demo'
-import type { Process } from '../shared/schemas/graph'
+import { evaluate } from '#shared/physics/index'
+import { expandAllSpecs, specsToGraph, topSpecs, STRUCTURE_SEED } from '#shared/editor/expand'
+import { evaluateRequest, toLabels } from '#shared/editor/process'
+import { layoutGraph } from '#shared/editor/layout'
+import { expandedGraph } from '#shared/editor/demo'
+import type { Process } from '#shared/schemas/graph'
 import { startBuiltServer } from './server'
 
 const require = createRequire(join(process.cwd(), 'package.json'))

@@ -1,14 +1,14 @@
 // Engine benchmark: per n = 4..12 and helicity class, BCFW float time,
 // Berends–Giele float time, their ratio, exact BCFW time, agreement and heap growth.
 // Run: node bench/run.mjs  [--quick] [--exact]
-import { complexField as C, rationalField as Q } from '../shared/physics/field'
-import { randomPoint, rationalPoint } from '../shared/physics/kinematics'
-import { bcfw } from '../shared/physics/bcfw'
-import { defaultShift, processOf, THEORIES } from '../shared/physics/theories'
-import { berendsGiele } from '../shared/physics/targets/berends-giele'
-import { evaluate } from '../shared/physics/index'
-import { bcfwByPrimes } from '../shared/physics/modular'
-import type { EvaluateRequestInput } from '../shared/schemas/evaluate'
+import { complexField as C, rationalField as Q } from '#shared/physics/field'
+import { randomPoint, rationalPoint } from '#shared/physics/kinematics'
+import { bcfw } from '#shared/physics/bcfw'
+import { defaultShift, processOf, THEORIES } from '#shared/physics/theories'
+import { berendsGiele } from '#shared/physics/targets/berends-giele'
+import { evaluate } from '#shared/physics/index'
+import { bcfwByPrimes } from '#shared/physics/modular'
+import type { EvaluateRequestInput } from '#shared/schemas/evaluate'
 
 const quick = process.argv.includes('--quick')
 // --exact: only the exact backends table and the evaluate() rows

@@ -1,15 +1,15 @@
 // Running a check from the editor: the residue sum on the server (stored when the server has this
 // diagram; a drawing is saved first so the verdict is about what is on the canvas), then the
 // falloff along the shift (exact, at a seeded rational point) and the cross-shift check.
-import type { EvaluateRequestInput, EvaluateResponse } from '~~/shared/schemas/evaluate'
-import type { CrossShiftResponse } from '~~/shared/schemas/service'
-import { evaluateRequest, orderOf, processFromCanvas, toLabels } from '~~/shared/editor/process'
-import { defaultEvalSettings, kinematicsOf, type EvalSettings } from '~~/shared/editor/kinematics'
-import { FALLOFF_Z, falloffFit, log10Abs, shiftExact, type FalloffPoints } from '~~/shared/editor/falloff'
-import { hasDrawnTerms } from '~~/shared/editor/drawing/evaluate'
-import { alternativeShift } from '~~/shared/physics/falloff'
-import { processOf } from '~~/shared/physics/theories'
-import type { Process } from '~~/shared/schemas/graph'
+import type { EvaluateRequestInput, EvaluateResponse } from '#shared/schemas/evaluate'
+import type { CrossShiftResponse } from '#shared/schemas/service'
+import { evaluateRequest, orderOf, processFromCanvas, toLabels } from '#shared/editor/process'
+import { defaultEvalSettings, kinematicsOf, type EvalSettings } from '#shared/editor/kinematics'
+import { FALLOFF_Z, falloffFit, log10Abs, shiftExact, type FalloffPoints } from '#shared/editor/falloff'
+import { hasDrawnTerms } from '#shared/editor/drawing/evaluate'
+import { alternativeShift } from '#shared/physics/falloff'
+import { processOf } from '#shared/physics/theories'
+import type { Process } from '#shared/schemas/graph'
 import { useEditorStore } from '~~/stores/editor'
 import { errMessage, type Say } from './useEditorNotice'
 

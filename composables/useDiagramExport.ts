@@ -1,7 +1,7 @@
 // Exports of the diagram (JSON to import again, SVG, PNG, the term table as CSV or LaTeX) and the
 // JSON import, which replaces the canvas as one undoable step.
-import { GraphSchema } from '~~/shared/schemas/graph'
-import { canvasSvg, termsCsv, termsLatex } from '~~/shared/editor/exports'
+import { GraphSchema } from '#shared/schemas/graph'
+import { canvasSvg, termsCsv, termsLatex } from '#shared/editor/exports'
 import { useEditorStore } from '~~/stores/editor'
 import type { Say } from './useEditorNotice'
 

@@ -1,7 +1,7 @@
 // Saving a diagram: a new revision per save, a 409 when someone saved in between (keep mine or
 // reload theirs, nothing lost either way), and opening or restoring an old revision.
-import type { Graph } from '~~/shared/schemas/graph'
-import { GraphSchema } from '~~/shared/schemas/graph'
+import type { Graph } from '#shared/schemas/graph'
+import { GraphSchema } from '#shared/schemas/graph'
 import { useEditorStore, type DiagramDoc } from '~~/stores/editor'
 import { errMessage, type Say } from './useEditorNotice'
 

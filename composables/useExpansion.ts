@@ -1,8 +1,8 @@
 // Expanding the process into its channel terms on the canvas: the term tree comes from the server
 // (POST /api/evaluate with tree: true at the structure seed) and is laid out by the store.
-import type { EvaluateResponse } from '~~/shared/schemas/evaluate'
-import { evaluateRequest, toLabels } from '~~/shared/editor/process'
-import { STRUCTURE_SEED } from '~~/shared/editor/expand'
+import type { EvaluateResponse } from '#shared/schemas/evaluate'
+import { evaluateRequest, toLabels } from '#shared/editor/process'
+import { STRUCTURE_SEED } from '#shared/editor/expand'
 import { useEditorStore } from '~~/stores/editor'
 import { errMessage, type Say } from './useEditorNotice'
 

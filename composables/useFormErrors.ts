@@ -1,5 +1,5 @@
 import type { z } from 'zod'
-import { fieldErrors } from '~~/shared/schemas/common'
+import { fieldErrors } from '#shared/schemas/common'
 
 /** Field errors from the shared zod schema (before sending) and from the server's answer (after). */
 export function useFormErrors() {

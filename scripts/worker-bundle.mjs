@@ -14,11 +14,15 @@ const common = {
   banner: { js: "import { createRequire as __pwRequire } from 'node:module'; const require = __pwRequire(import.meta.url);" },
 }
 
-export const evaluateOptions = (root, outfile) => ({ ...common, entryPoints: [join(root, 'server/workers/evaluate.ts')], outfile })
+// `#shared` is Nuxt's alias for the project's shared/ folder; outside Nitro esbuild needs it spelled out.
+const alias = (root) => ({ '#shared': join(root, 'shared') })
+
+export const evaluateOptions = (root, outfile) => ({ ...common, alias: alias(root), entryPoints: [join(root, 'server/workers/evaluate.ts')], outfile })
 
 // The native libSQL binding and tinypool (which starts threads from its own files) stay packages.
 export const queueWorkerOptions = (root, outfile) => ({
   ...common,
+  alias: alias(root),
   entryPoints: [join(root, 'server/queue/worker.ts')],
   outfile,
   external: ['@libsql/*', 'libsql', 'tinypool'],

@@ -1,4 +1,4 @@
-import { CrossShiftRequestSchema, type CrossShiftResponse } from '../../shared/schemas/service'
+import { CrossShiftRequestSchema, type CrossShiftResponse } from '#shared/schemas/service'
 
 // The same amplitude under every [i,j⟩ shift at one point; at n = 4 the four-particle test.
 export default defineEventHandler(async (event) => {

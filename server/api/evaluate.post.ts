@@ -1,4 +1,4 @@
-import { EvaluateRequestSchema, type EvaluateResponse } from '../../shared/schemas/evaluate'
+import { EvaluateRequestSchema, type EvaluateResponse } from '#shared/schemas/evaluate'
 
 // Stateless; writes nothing, so read-scope tokens may call it. Limits are checked here before any
 // work; the evaluation itself runs in the worker pool within the request's time budget.

@@ -1,4 +1,4 @@
-import { LimitCheckRequestSchema, type LimitCheckResponse } from '../../shared/schemas/limit-checks'
+import { LimitCheckRequestSchema, type LimitCheckResponse } from '#shared/schemas/limit-checks'
 
 // The soft, collinear and identity checks of a process; read-only (writes nothing).
 export default defineEventHandler(async (event) => {

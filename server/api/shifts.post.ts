@@ -1,4 +1,4 @@
-import { ShiftsRequestSchema, shiftsMeasureLimit, type ShiftsResponse } from '../../shared/schemas/service'
+import { ShiftsRequestSchema, shiftsMeasureLimit, type ShiftsResponse } from '#shared/schemas/service'
 
 // Every [i,j⟩ shift of a process with its falloff exponent and validity (the editor's shift picker).
 export default defineEventHandler(async (event) => {

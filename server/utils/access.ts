@@ -2,7 +2,7 @@
 // Non-members get 404 (the project's existence is not revealed); a role too low gets 403.
 import type { H3Event } from 'h3'
 import { and, eq } from 'drizzle-orm'
-import type { ProjectRole } from '../../shared/types/db'
+import type { ProjectRole } from '#shared/types/db'
 
 export const roleRank: Record<ProjectRole, number> = { viewer: 1, editor: 2, owner: 3 }
 

@@ -4,12 +4,12 @@
 // (the SSE route) and to checks.done. The summary is computed by SQL over the stored rows.
 import { and, asc, count, desc, eq, gte, inArray, isNotNull, sql } from 'drizzle-orm'
 import { EventEmitter, setMaxListeners } from 'node:events'
-import { ENGINE_VERSION } from '../../shared/physics/index'
-import type { EvaluateRequestInput, EvaluateResponse } from '../../shared/schemas/evaluate'
-import type { Process } from '../../shared/schemas/graph'
-import { VERDICTS, type BatchProgressView, type PointData, type Verdict } from '../../shared/pointsets'
-import { checkOrder, effectiveOrder, inOrder, shiftInOrder } from '../../shared/physics/colour-order'
-import { isColourOrdered, pdgOf } from '../../shared/physics/theories'
+import { ENGINE_VERSION } from '#shared/physics/index'
+import type { EvaluateRequestInput, EvaluateResponse } from '#shared/schemas/evaluate'
+import type { Process } from '#shared/schemas/graph'
+import { VERDICTS, type BatchProgressView, type PointData, type Verdict } from '#shared/pointsets'
+import { checkOrder, effectiveOrder, inOrder, shiftInOrder } from '#shared/physics/colour-order'
+import { isColourOrdered, pdgOf } from '#shared/physics/theories'
 
 type CheckRow = typeof tables.checks.$inferSelect
 
@@ -276,11 +276,21 @@ export function cancelBatch(checkId: number): boolean {
   return true
 }
 
-export async function cancelBatchesOfPointSet(pointSetId: number) {
+export function cancelBatchesOfPointSet(pointSetId: number) {
+  return cancelAndWait(([, l]) => l.pointSetId === pointSetId)
+}
+
+/** Stops the given batch checks and waits (at most 5 s) until each has written its last chunk. */
+export function cancelBatchesById(ids: number[]) {
+  const wanted = new Set(ids)
+  return cancelAndWait(([id]) => wanted.has(id))
+}
+
+async function cancelAndWait(pick: (entry: [number, Live]) => boolean) {
   const waits: Promise<void>[] = []
   for (const [id, l] of live) {
-    if (l.pointSetId !== pointSetId) continue
-    l.controller.abort()
+    if (!pick([id, l])) continue
+    cancelBatch(id)
     waits.push(new Promise((resolve) => {
       const off = onBatchProgress(id, (p) => {
         if (TERMINAL.has(p.status)) {

@@ -2,8 +2,8 @@
 // job); authors edit their own; authors and owners delete.
 import { and, asc, eq, isNull } from 'drizzle-orm'
 import type { H3Event } from 'h3'
-import { CommentBodySchema } from '../../shared/schemas/collab'
-import type { CommentRow, ProjectRole } from '../../shared/types/db'
+import { CommentBodySchema } from '#shared/schemas/collab'
+import type { CommentRow, ProjectRole } from '#shared/types/db'
 
 export function commentView(row: CommentRow, authorName: string | null, me: { id: number, role: ProjectRole }) {
   return {

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
-import { DECIMAL_ID, describeIssues } from '../../shared/schemas/common'
+import { DECIMAL_ID, describeIssues } from '#shared/schemas/common'
 
 const statusMessages: Record<number, string> = {
   400: 'Bad Request', 401: 'Unauthorized', 403: 'Forbidden', 404: 'Not Found', 409: 'Conflict', 410: 'Gone',

@@ -1,12 +1,12 @@
 // The evaluation routes' glue: cheap checks before any work (limits, shift), the time budget of
 // a request, cancelling when the client goes away, and pool failures as the errors of docs/api.md.
 import type { H3Event } from 'h3'
-import { PhysicsError } from '../../shared/physics/errors'
-import { checkShift, validateProcess, type TheoryName } from '../../shared/physics/theories'
-import { formatPath } from '../../shared/schemas/common'
-import type { EvaluateRequest, EvaluateResponse } from '../../shared/schemas/evaluate'
-import { ProcessSchema, type Process } from '../../shared/schemas/graph'
-import type { DrawingResult } from '../../shared/editor/drawing/evaluate'
+import { PhysicsError } from '#shared/physics/errors'
+import { checkShift, validateProcess, type TheoryName } from '#shared/physics/theories'
+import { formatPath } from '#shared/schemas/common'
+import type { EvaluateRequest, EvaluateResponse } from '#shared/schemas/evaluate'
+import { ProcessSchema, type Process } from '#shared/schemas/graph'
+import type { DrawingResult } from '#shared/editor/drawing/evaluate'
 
 /**
  * The limits and the shift, checked on the request thread before anything is queued, so an

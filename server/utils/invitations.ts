@@ -1,6 +1,6 @@
 // Invitations by e-mail: a one-time link whose token is stored only as its SHA-256, valid 7 days.
 import { and, desc, eq, gt, isNull } from 'drizzle-orm'
-import type { InvitationRow, ProjectRole } from '../../shared/types/db'
+import type { InvitationRow, ProjectRole } from '#shared/types/db'
 
 export const INVITATION_DAYS = 7
 const WEEK = INVITATION_DAYS * 24 * 3600 * 1000

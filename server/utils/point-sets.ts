@@ -6,7 +6,7 @@ import { gunzipSync } from 'node:zlib'
 import {
   MAX_BYTES, MAX_POINTS, PointFileError, TooManyPointsError, UploadFieldsSchema, detectFormat, generatePoints, parseFile, toCsv, validatePoints,
   type PointData, type PointSetView, type Rejection, type UploadFormat,
-} from '../../shared/pointsets'
+} from '#shared/pointsets'
 
 type PointSetRow = typeof tables.pointSets.$inferSelect
 
@@ -112,6 +112,13 @@ export async function checkUpload(text: string, filename: string | undefined, fo
   const read = parsed.points.length + parsed.rejected.length
   if (!valid.length) {
     const first = allRejected[0]
+    // Every point refused for its leg count: the problem is the typed leg count (or the file's
+    // mixture of sizes), so the headline says that rather than quoting one point.
+    const sizes = new Set(parsed.points.map(p => (p.momenta ?? p.lambda ?? []).length))
+    if (read && rejected.length === parsed.points.length && !parsed.rejected.length && sizes.size === 1 && !sizes.has(setN)) {
+      const legs = [...sizes][0]
+      throw fieldError(422, n !== undefined ? 'n' : 'file', `${n !== undefined ? `is ${n}, but` : 'every'} the file's ${read} point${read === 1 ? '' : 's'} ${read === 1 ? 'has' : 'have'} ${legs} legs`, { rejected: allRejected.slice(0, 1000), read })
+    }
     throw fieldError(422, 'file', read
       ? `none of the ${read} points is valid; point ${first!.point}: ${first!.reason}`
       : 'holds no points', { rejected: allRejected.slice(0, 1000), read })

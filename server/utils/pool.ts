@@ -7,7 +7,7 @@ import { availableParallelism } from 'node:os'
 import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import Tinypool from 'tinypool'
-import type { EvaluateRequestInput, EvaluateResponse } from '../../shared/schemas/evaluate'
+import type { EvaluateRequestInput, EvaluateResponse } from '#shared/schemas/evaluate'
 import type { Failure, Outcome, Task } from '../workers/tasks'
 
 export interface PoolOptions {

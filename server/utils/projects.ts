@@ -1,6 +1,6 @@
 import { and, asc, eq } from 'drizzle-orm'
-import { pruneDeep } from '../../shared/schemas/json-bounds'
-import type { ProjectRole } from '../../shared/types/db'
+import { pruneDeep } from '#shared/schemas/json-bounds'
+import type { ProjectRole } from '#shared/types/db'
 
 export function projectView(project: typeof tables.projects.$inferSelect, role: ProjectRole) {
   return {

@@ -6,7 +6,7 @@ import { Queue, QueueEvents } from 'bullmq'
 import IORedis from 'ioredis'
 import { and, count, eq, gt } from 'drizzle-orm'
 import { CHUNK_ATTEMPTS, QUEUE_NAME, jobId, redisLabel, redisOptions, type ChunkJob } from '../queue/shared'
-import type { Verdict } from '../../shared/pointsets'
+import type { Verdict } from '#shared/pointsets'
 
 /** Points per queued chunk (POLEWRIGHT_QUEUE_CHUNK, default the embedded chunk size). */
 export function queueChunkSize() {

@@ -1,9 +1,9 @@
 // Demo data: an invented research group with invented people (example.test addresses).
 // Idempotent: running it twice changes nothing.
 import { and, eq } from 'drizzle-orm'
-import type { Graph } from '../../shared/schemas/graph'
-import { expandedGraph } from '../../shared/editor/demo'
-import type { ProjectRole } from '../../shared/types/db'
+import type { Graph } from '#shared/schemas/graph'
+import { expandedGraph } from '#shared/editor/demo'
+import type { ProjectRole } from '#shared/types/db'
 
 export const DEMO_PASSWORD = 'polewright-demo'
 

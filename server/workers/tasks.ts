@@ -20,16 +20,16 @@ import {
   probeFalloff,
   validateProcess,
   type Field,
-} from '../../shared/physics/index'
-import { TARGET_INFO } from '../../shared/physics/targets/index'
-import { checkLimit } from '../../shared/physics/checks/index'
-import type { LimitCheckRequestInput } from '../../shared/schemas/limit-checks'
-import { checkOrder, effectiveOrder, inOrder, isIdentity, responseToLabels, shiftInOrder } from '../../shared/physics/colour-order'
-import { MAX_SPIN } from '../../shared/physics/theories'
-import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '../../shared/physics/formula'
-import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics } from '../../shared/schemas/evaluate'
-import { generatePoints } from '../../shared/pointsets/generate'
-import type { GenerateInput } from '../../shared/pointsets/schemas'
+} from '#shared/physics/index'
+import { TARGET_INFO } from '#shared/physics/targets/index'
+import { checkLimit } from '#shared/physics/checks/index'
+import type { LimitCheckRequestInput } from '#shared/schemas/limit-checks'
+import { checkOrder, effectiveOrder, inOrder, isIdentity, responseToLabels, shiftInOrder } from '#shared/physics/colour-order'
+import { MAX_SPIN } from '#shared/physics/theories'
+import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '#shared/physics/formula'
+import { EvaluateRequestSchema, KinematicsSchema, zodIssuePath, type EvaluateRequestInput, type EvaluateResponse, type Kinematics } from '#shared/schemas/evaluate'
+import { generatePoints } from '#shared/pointsets/generate'
+import type { GenerateInput } from '#shared/pointsets/schemas'
 import {
   CrossShiftRequestSchema,
   SHIFTS_MEASURE_LIMITS,
@@ -38,10 +38,10 @@ import {
   type CrossShiftResponse,
   type ShiftRow,
   type ShiftsResponse,
-} from '../../shared/schemas/service'
-import { checkDrawing } from '../../shared/editor/drawing/evaluate'
-import type { Process as GraphProcess } from '../../shared/schemas/graph'
-import type { EditorEdge, EditorNode } from '../../shared/editor/types'
+} from '#shared/schemas/service'
+import { checkDrawing } from '#shared/editor/drawing/evaluate'
+import type { Process as GraphProcess } from '#shared/schemas/graph'
+import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
 export type Task =
   | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[] }

@@ -10,10 +10,11 @@ import type { Field } from './field'
 import { SingularError } from './field'
 import type { Kin } from './spinors'
 import { PhysicsError } from './errors'
+import { FORMULA_MAX_LENGTH } from '../schemas/evaluate'
 
 const FIELD = 'target.formula'
 /** Longest formula accepted (characters), and the largest |exponent|: both keep exact mode bounded. */
-export const FORMULA_MAX_LENGTH = 2000
+export { FORMULA_MAX_LENGTH }
 export const FORMULA_MAX_EXPONENT = 64
 /** Numbers are written with a decimal exponent in ±FORMULA_MAX_LITERAL_EXPONENT and at most this many digits. */
 export const FORMULA_MAX_LITERAL_EXPONENT = 100

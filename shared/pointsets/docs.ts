@@ -62,7 +62,7 @@ export const POINT_SET_SECTION: ApiSection = {
       response: '`{ total, offset, limit, items: [{ idx, label, value, target, deviation, verdict, minInvariant, message }] }`.',
       statuses: [[200, 'the page'], [400, 'a bad query parameter'], [404, 'no such check'], ...auth],
     },
-    { id: 'batch-export-csv', method: 'GET', path: '/api/checks/:id/points.csv', params: { id: 1 }, access: 'viewer', summary: 'The per-point table as CSV: `idx, label, value_re, value_im, target_re, target_im, deviation, verdict, min_invariant, message`.', response: 'A file download.', statuses: [[200, 'the file'], ...auth] },
+    { id: 'batch-export-csv', method: 'GET', path: '/api/checks/:id/points.csv', params: { id: 1 }, access: 'viewer', summary: 'The per-point table as CSV: `point` (from 1, as the pages number points), `label, value_re, value_im, target_re, target_im, deviation, verdict, min_invariant, message`.', response: 'A file download.', statuses: [[200, 'the file'], ...auth] },
     { id: 'batch-export-json', method: 'GET', path: '/api/checks/:id/points.json', params: { id: 1 }, access: 'viewer', summary: 'The per-point table as JSON, with the check\'s request and summary.', response: '`{ check, points: [...] }`.', statuses: [[200, 'the file'], ...auth] },
   ],
 }

@@ -1,6 +1,6 @@
 // Request schemas of the point-set and batch-check routes, shared by the pages and the routes.
 import { z } from 'zod'
-import { TARGET_WORDS, TargetNameEnum } from '../schemas/evaluate'
+import { FormulaTarget, TARGET_WORDS, TargetNameEnum } from '../schemas/evaluate'
 import { MAX_POINTS } from './types'
 import { wholeNumber } from '../schemas/common'
 
@@ -26,7 +26,7 @@ export const ExportQuerySchema = z.object({
 
 export const BatchStartSchema = z.object({
   pointSetId: z.number({ error: 'must be the id of a point set' }).int({ error: 'must be the id of a point set' }).positive({ error: 'must be the id of a point set' }),
-  target: z.union([TargetNameEnum, z.object({ formula: z.string().max(20000) })], { error: `must be ${TARGET_WORDS}` }).default('auto'),
+  target: z.union([TargetNameEnum, FormulaTarget], { error: `must be ${TARGET_WORDS}` }).default('auto'),
   /** Overrides the diagram's shift for this run. */
   shift: z.tuple([z.number().int().positive(), z.number().int().positive()], { error: 'must be two leg labels [i, j]' }).optional(),
 })

@@ -27,12 +27,15 @@ export const TOKEN_PREFIX = 'pw_'
 
 /**
  * Splits a comment into plain text and inline math: `$...$` on one line is math, `\$` is a
- * literal dollar sign. Unclosed `$` stays text.
+ * literal dollar sign. Unclosed `$` stays text. As in the usual Markdown rule for inline TeX, an
+ * opening `$` must be followed by a non-space and a closing `$` preceded by a non-space and not
+ * followed by a digit, so "costs $5 and $10" keeps both dollars.
  */
 export function splitInlineMath(body: string): { kind: 'text' | 'math', value: string }[] {
   const parts: { kind: 'text' | 'math', value: string }[] = []
   let text = ''
   let i = 0
+  const space = (ch: string | undefined) => ch === undefined || /\s/.test(ch)
   while (i < body.length) {
     const c = body[i]!
     if (c === '\\' && body[i + 1] === '$') {
@@ -40,19 +43,24 @@ export function splitInlineMath(body: string): { kind: 'text' | 'math', value: s
       i += 2
       continue
     }
-    if (c === '$') {
+    if (c === '$' && !space(body[i + 1])) {
       let j = i + 1
       let math = ''
-      while (j < body.length && body[j] !== '$' && body[j] !== '\n') {
+      let closed = false
+      while (j < body.length && body[j] !== '\n') {
         if (body[j] === '\\' && body[j + 1] === '$') {
           math += '\\$'
           j += 2
           continue
         }
+        if (body[j] === '$' && !space(body[j - 1]) && !/\d/.test(body[j + 1] ?? '')) {
+          closed = true
+          break
+        }
         math += body[j]
         j++
       }
-      if (j < body.length && body[j] === '$' && math.trim()) {
+      if (closed && math.trim()) {
         if (text) parts.push({ kind: 'text', value: text })
         text = ''
         parts.push({ kind: 'math', value: math })

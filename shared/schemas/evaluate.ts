@@ -13,6 +13,11 @@ export const RationalString = z.string().regex(/^\s*[+-]?\d+(\s*\/\s*[+-]?\d+)?\
 const exactSpinor = z.tuple([RationalString, RationalString])
 const seed = z.union([z.number().int(), z.string().min(1).max(200)])
 
+/** Characters a target formula may have (the formula parser refuses longer ones too). */
+export const FORMULA_MAX_LENGTH = 2000
+/** A typed target formula; the length message names the limit the parser enforces. */
+export const FormulaTarget = z.object({ formula: z.string().max(FORMULA_MAX_LENGTH, { error: `is longer than ${FORMULA_MAX_LENGTH} characters` }) })
+
 export const TheoryEnum = z.enum(THEORY_NAMES)
 export const TargetNameEnum = z.enum(['auto', ...TARGET_NAMES, 'none'])
 /** The target names in words, for error messages. */
@@ -34,7 +39,7 @@ export const EvaluateRequestSchema = z.object({
   helicities: z.array(num).min(1),
   kinematics: KinematicsSchema,
   shift: z.tuple([z.number().int(), z.number().int()]).optional(),
-  target: z.union([TargetNameEnum, z.object({ formula: z.string().max(20000) })]).default('auto'),
+  target: z.union([TargetNameEnum, FormulaTarget]).default('auto'),
   arithmetic: z.enum(['float', 'exact']).default('float'),
   probeFalloff: z.boolean().default(false),
   tree: z.boolean().default(false),

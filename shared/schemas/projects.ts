@@ -19,6 +19,10 @@ export const DiagramCreateSchema = z.object({
   graph: GraphSchema,
 })
 
+export const DiagramDuplicateSchema = z.object({
+  title: z.string().trim().min(1, { error: 'is required' }).max(200).optional(),
+})
+
 export const DiagramUpdateSchema = z.object({
   title: z.string().trim().min(1, { error: 'is required' }).max(200).optional(),
   graph: GraphSchema.optional(),

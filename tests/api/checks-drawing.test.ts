@@ -3,11 +3,11 @@
 // names the channel, and the stored check keeps the comparison.
 import { beforeAll, describe, expect, it } from 'vitest'
 import { projectWithRoles } from '../helpers/api'
-import { expandedGraph } from '../../shared/editor/demo'
-import { validateGraph } from '../../shared/editor/validate'
-import type { EditorEdge, EditorNode } from '../../shared/editor/types'
-import { DrawingResultSchema } from '../../shared/schemas/drawing'
-import type { Graph } from '../../shared/schemas/graph'
+import { expandedGraph } from '#shared/editor/demo'
+import { validateGraph } from '#shared/editor/validate'
+import type { EditorEdge, EditorNode } from '#shared/editor/types'
+import { DrawingResultSchema } from '#shared/schemas/drawing'
+import type { Graph } from '#shared/schemas/graph'
 
 type Roles = Awaited<ReturnType<typeof projectWithRoles>>
 let r: Roles

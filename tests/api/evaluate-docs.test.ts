@@ -1,7 +1,7 @@
 // The API page's examples are real: each parses with the schema its route validates with, and
 // each example of a route that writes nothing succeeds against the built server, as written.
 import { describe, expect, it } from 'vitest'
-import { API_SECTIONS, curlSnippet, examplePath, fetchSnippet } from '../../shared/docs/api-routes'
+import { API_SECTIONS, curlSnippet, examplePath, fetchSnippet } from '#shared/docs/api-routes'
 import { baseURL, newUser } from '../helpers/api'
 
 const routes = API_SECTIONS.flatMap(s => s.routes)

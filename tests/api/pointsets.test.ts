@@ -183,8 +183,10 @@ describe('batch checks', () => {
     expect(cols.minInvariant.every((x: number) => x > 0 && x <= 1)).toBe(true)
     const csv = await ctx.viewer.get(`/api/checks/${start.body.id}/points.csv`)
     const lines = (csv.body as string).trim().split('\n')
-    expect(lines[0]).toBe('idx,label,value_re,value_im,target_re,target_im,deviation,verdict,min_invariant,message')
+    expect(lines[0]).toBe('point,label,value_re,value_im,target_re,target_im,deviation,verdict,min_invariant,message')
     expect(lines).toHaveLength(301)
+    // Numbered from 1, as the page numbers the points.
+    expect(lines[1]!.split(',')[0]).toBe('1')
     const json = (await ctx.viewer.get(`/api/checks/${start.body.id}/points.json`)).body
     expect(json.points).toHaveLength(300)
     expect(json.check.summary.counts.agrees).toBe(300)

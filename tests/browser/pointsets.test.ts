@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { openBrowser, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
-import { generatePoints, toCsv } from '../../shared/pointsets'
+import { generatePoints, toCsv } from '#shared/pointsets'
 
 let b: BrowserSession
 beforeAll(async () => {

@@ -9,7 +9,7 @@ import BlockNode from './BlockNode.vue'
 import TermFrameNode from './TermFrameNode.vue'
 import LineEdge from '../edges/LineEdge.vue'
 
-export type { LegData, VertexData, BlockData, LineData } from '~~/shared/editor/types'
+export type { LegData, VertexData, BlockData, LineData } from '#shared/editor/types'
 
 export const nodeTypes = markRaw({
   leg: LegNode,

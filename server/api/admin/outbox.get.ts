@@ -1,4 +1,4 @@
-import { limitQuery } from '../../../shared/schemas/common'
+import { limitQuery } from '#shared/schemas/common'
 // Site administrators: the messages the local catcher captured (nothing is captured with real SMTP).
 export default defineEventHandler(async (event) => {
   await requireSiteAdmin(event)

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { LoginSchema } from '../../../shared/schemas/auth'
+import { LoginSchema } from '#shared/schemas/auth'
 
 // The attempt is taken from the throttle before anything is checked (see throttle.ts). An unknown
 // address is verified against a dummy hash, so it costs the same time as a wrong password; a

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { RegisterSchema } from '../../../shared/schemas/auth'
+import { RegisterSchema } from '#shared/schemas/auth'
 
 export default defineEventHandler(async (event) => {
   const body = await readValid(event, RegisterSchema)

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { CommentBodySchema } from '../../../shared/schemas/collab'
+import { CommentBodySchema } from '#shared/schemas/collab'
 
 // Only the author edits a comment (an owner may delete it, not put words in someone's mouth).
 export default defineEventHandler(async (event) => {

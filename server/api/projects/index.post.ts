@@ -1,4 +1,4 @@
-import { ProjectCreateSchema } from '../../../shared/schemas/projects'
+import { ProjectCreateSchema } from '#shared/schemas/projects'
 
 export default defineEventHandler(async (event) => {
   const auth = await requireAuth(event)

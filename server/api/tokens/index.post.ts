@@ -1,4 +1,4 @@
-import { TOKEN_PREFIX, TokenCreateSchema } from '../../../shared/schemas/collab'
+import { TOKEN_PREFIX, TokenCreateSchema } from '#shared/schemas/collab'
 
 // 201 with the token itself: shown this once, stored only as its SHA-256.
 export default defineEventHandler(async (event) => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { expandedGraph } from '~~/shared/editor/demo'
-import { GraphSchema, type Process } from '~~/shared/schemas/graph'
-import { validateGraph } from '~~/shared/editor/validate'
-import type { EditorNode } from '~~/shared/editor/types'
+import { expandedGraph } from '#shared/editor/demo'
+import { GraphSchema, type Process } from '#shared/schemas/graph'
+import { validateGraph } from '#shared/editor/validate'
+import type { EditorNode } from '#shared/editor/types'
 
 describe('demo diagrams: expanded and laid out', () => {
   it.each<[string, Process, boolean]>([

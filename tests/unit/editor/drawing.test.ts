@@ -3,16 +3,16 @@
 // recursion of the process and the independent target: Parke–Taylor (PRL 56 (1986) 2459) for MHV,
 // Berends–Giele (Nucl. Phys. B306 (1988) 759) otherwise, Hodges (arXiv:1204.1930) / KLT for gravitons.
 import { describe, expect, it } from 'vitest'
-import { expandedGraph } from '~~/shared/editor/demo'
-import { checkDrawing, type CheckedResponse } from '~~/shared/editor/drawing'
-import { evaluateRequest, toLabels } from '~~/shared/editor/process'
-import { validateGraph } from '~~/shared/editor/validate'
-import type { EditorEdge, EditorNode } from '~~/shared/editor/types'
-import { nodeOf } from '~~/shared/editor/types'
-import { evaluate, floatTolerance } from '~~/shared/physics/index'
-import { DrawingResultSchema } from '~~/shared/schemas/drawing'
-import type { Graph, Process } from '~~/shared/schemas/graph'
-import type { EvaluateRequestInput, WireComplex } from '~~/shared/schemas/evaluate'
+import { expandedGraph } from '#shared/editor/demo'
+import { checkDrawing, type CheckedResponse } from '#shared/editor/drawing'
+import { evaluateRequest, toLabels } from '#shared/editor/process'
+import { validateGraph } from '#shared/editor/validate'
+import type { EditorEdge, EditorNode } from '#shared/editor/types'
+import { nodeOf } from '#shared/editor/types'
+import { evaluate, floatTolerance } from '#shared/physics/index'
+import { DrawingResultSchema } from '#shared/schemas/drawing'
+import type { Graph, Process } from '#shared/schemas/graph'
+import type { EvaluateRequestInput, WireComplex } from '#shared/schemas/evaluate'
 
 type G = { nodes: EditorNode[], edges: EditorEdge[] }
 

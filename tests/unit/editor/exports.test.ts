@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest'
-import { evaluate, rationalPoint, kinToWire, rationalField } from '~~/shared/physics/index'
-import { shiftedKin } from '~~/shared/physics/falloff'
-import { Fraction } from '~~/shared/physics/field'
-import { termsCsv, termsLatex, canvasSvg } from '~~/shared/editor/exports'
-import { kinematicsOf, defaultEvalSettings } from '~~/shared/editor/kinematics'
-import { falloffFit, log10AbsRational, shiftExact } from '~~/shared/editor/falloff'
-import { expandedGraph } from '~~/shared/editor/demo'
-import type { Process } from '~~/shared/schemas/graph'
-import type { EditorNode } from '~~/shared/editor/types'
+import { evaluate, rationalPoint, kinToWire, rationalField } from '#shared/physics/index'
+import { shiftedKin } from '#shared/physics/falloff'
+import { Fraction } from '#shared/physics/field'
+import { termsCsv, termsLatex, canvasSvg } from '#shared/editor/exports'
+import { kinematicsOf, defaultEvalSettings } from '#shared/editor/kinematics'
+import { falloffFit, log10AbsRational, shiftExact } from '#shared/editor/falloff'
+import { expandedGraph } from '#shared/editor/demo'
+import type { Process } from '#shared/schemas/graph'
+import type { EditorNode } from '#shared/editor/types'
 
 const p: Process = { theory: 'gluon', helicities: [-1, -1, 1, 1, 1], shift: [1, 2] }
 

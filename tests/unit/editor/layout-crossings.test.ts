@@ -1,10 +1,10 @@
 // Legs hanging off one vertex or Block keep the cyclic order of its slots, so their lines do not
 // cross on the way in (counted over laid-out expansions of 5- to 8-gluon processes).
 import { describe, expect, it } from 'vitest'
-import { expandedGraph } from '~~/shared/editor/demo'
-import { handleLayout, nodeSize } from '~~/shared/editor/geometry'
-import type { EditorEdge, EditorNode } from '~~/shared/editor/types'
-import type { Process } from '~~/shared/schemas/graph'
+import { expandedGraph } from '#shared/editor/demo'
+import { handleLayout, nodeSize } from '#shared/editor/geometry'
+import type { EditorEdge, EditorNode } from '#shared/editor/types'
+import type { Process } from '#shared/schemas/graph'
 
 /** Pairs of legs on one hub and one side whose rows are in the opposite order of their slots. */
 function legCrossings(nodes: EditorNode[], edges: EditorEdge[]): number {

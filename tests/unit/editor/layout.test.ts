@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
-import { components, layoutGraph, layoutPositions } from '~~/shared/editor/layout'
-import { nodeSize } from '~~/shared/editor/geometry'
-import type { EditorEdge, EditorNode } from '~~/shared/editor/types'
+import { components, layoutGraph, layoutPositions } from '#shared/editor/layout'
+import { nodeSize } from '#shared/editor/geometry'
+import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
 const leg = (id: string, label: number, helicity: number): EditorNode => ({ id, type: 'leg', position: { x: 0, y: 0 }, data: { label, helicity } })
 const vtx = (id: string, type: 'angle' | 'square'): EditorNode => ({ id, type, position: { x: 0, y: 0 }, data: {} })

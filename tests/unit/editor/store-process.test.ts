@@ -4,8 +4,8 @@
 import { beforeEach, describe, expect, it } from 'vitest'
 import { createPinia, setActivePinia } from 'pinia'
 import { useEditorStore } from '~~/stores/editor'
-import type { Process } from '~~/shared/schemas/graph'
-import type { EvaluateResponse } from '~~/shared/schemas/evaluate'
+import type { Process } from '#shared/schemas/graph'
+import type { EvaluateResponse } from '#shared/schemas/evaluate'
 
 const doc = (process?: Process) => ({ id: 1, projectId: 1, title: 'T', version: 1, role: 'editor' as const, graph: { schemaVersion: 1 as const, ...(process ? { process } : {}), nodes: [], edges: [] } })
 const four: Process = { theory: 'gluon', helicities: [-1, -1, 1, 1], shift: [1, 2] }

@@ -1,13 +1,13 @@
 import { beforeEach, describe, expect, it } from 'vitest'
 import { createPinia, setActivePinia } from 'pinia'
 import { useEditorStore } from '~~/stores/editor'
-import { evaluate } from '~~/shared/physics/index'
-import type { Process } from '~~/shared/schemas/graph'
-import { GraphSchema } from '~~/shared/schemas/graph'
-import { processFromCanvas, matchTerms, componentChannels, toLabels, evaluateRequest } from '~~/shared/editor/process'
-import { validateGraph } from '~~/shared/editor/validate'
-import { blockPaths } from '~~/shared/editor/expand'
-import type { LegData } from '~~/shared/editor/types'
+import { evaluate } from '#shared/physics/index'
+import type { Process } from '#shared/schemas/graph'
+import { GraphSchema } from '#shared/schemas/graph'
+import { processFromCanvas, matchTerms, componentChannels, toLabels, evaluateRequest } from '#shared/editor/process'
+import { validateGraph } from '#shared/editor/validate'
+import { blockPaths } from '#shared/editor/expand'
+import type { LegData } from '#shared/editor/types'
 
 const doc = (process?: Process) => ({ id: 1, projectId: 1, title: 'T', version: 1, role: 'editor' as const, graph: { schemaVersion: 1 as const, ...(process ? { process } : {}), nodes: [], edges: [] } })
 

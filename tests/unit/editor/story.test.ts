@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { resultStory, type StoryInput } from '~~/shared/editor/story'
+import { resultStory, type StoryInput } from '#shared/editor/story'
 
 const base: StoryInput = { verdict: 'agrees', drawing: null, falloff: -1, crossAgree: true, hasTarget: true }
 

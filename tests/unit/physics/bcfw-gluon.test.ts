@@ -4,13 +4,13 @@
 // fundamental BCJ relation (Bern, Carrasco, Johansson, arXiv:0805.3993), the soft-gluon factor
 // (Weinberg, Phys. Rev. 140 (1965) B516; colour-ordered form common practice).
 import { describe, expect, it } from 'vitest'
-import { Complex, complexField as C, rationalField as Q, type Field } from '../../../shared/physics/field'
-import { randomPoint, rationalPoint, physicalPoint, solveLastTwo } from '../../../shared/physics/kinematics'
-import { bcfw, bcfwValue } from '../../../shared/physics/bcfw'
-import { defaultShift, isValidShift, processOf } from '../../../shared/physics/theories'
-import { parkeTaylor } from '../../../shared/physics/targets/parke-taylor'
-import { berendsGiele } from '../../../shared/physics/targets/berends-giele'
-import { angle, mandelstam, square, type Kin } from '../../../shared/physics/spinors'
+import { Complex, complexField as C, rationalField as Q, type Field } from '#shared/physics/field'
+import { randomPoint, rationalPoint, physicalPoint, solveLastTwo } from '#shared/physics/kinematics'
+import { bcfw, bcfwValue } from '#shared/physics/bcfw'
+import { defaultShift, isValidShift, processOf } from '#shared/physics/theories'
+import { parkeTaylor } from '#shared/physics/targets/parke-taylor'
+import { berendsGiele } from '#shared/physics/targets/berends-giele'
+import { angle, mandelstam, square, type Kin } from '#shared/physics/spinors'
 import { allHelicities, countMinus, relDiff } from './helpers'
 
 const g = processOf('gluon')

@@ -5,14 +5,14 @@
 // Johansson, arXiv:0805.3993). Each ratio must tend to 1 at the expected rate, each identity hold
 // to 1e-12 at generic points (exactly in exact arithmetic) and fail when a term is dropped.
 import { describe, expect, it } from 'vitest'
-import { checkLimit, collinearCheck, identityCheck, shuffles, softCheck, IDENTITIES, type IdentityName } from '../../../shared/physics/checks/index'
-import { judge } from '../../../shared/physics/checks/soft'
-import { processOf } from '../../../shared/physics/theories'
-import { rationalField as Q } from '../../../shared/physics/field'
-import { ddField } from '../../../shared/physics/double-double'
-import { randomPoint, rationalPoint, toDoubleDouble } from '../../../shared/physics/kinematics'
-import { PhysicsError } from '../../../shared/physics/errors'
-import type { IdentityResponse, LimitPathResponse } from '../../../shared/schemas/limit-checks'
+import { checkLimit, collinearCheck, identityCheck, shuffles, softCheck, IDENTITIES, type IdentityName } from '#shared/physics/checks/index'
+import { judge } from '#shared/physics/checks/soft'
+import { processOf } from '#shared/physics/theories'
+import { rationalField as Q } from '#shared/physics/field'
+import { ddField } from '#shared/physics/double-double'
+import { randomPoint, rationalPoint, toDoubleDouble } from '#shared/physics/kinematics'
+import { PhysicsError } from '#shared/physics/errors'
+import type { IdentityResponse, LimitPathResponse } from '#shared/schemas/limit-checks'
 
 const gluon = processOf('gluon')
 const graviton = processOf('graviton')

@@ -4,11 +4,11 @@
 // under different shifts; for the cubic scalar adjacent shifts miss a boundary term while
 // non-adjacent shifts agree with the Feynman diagrams.
 import { describe, expect, it } from 'vitest'
-import { complexField as C, rationalField as Q } from '../../../shared/physics/field'
-import { randomPoint, rationalPoint } from '../../../shared/physics/kinematics'
-import { crossShift } from '../../../shared/physics/cross-shift'
-import { processOf, type TheoryName } from '../../../shared/physics/theories'
-import { cubicScalarFeynman } from '../../../shared/physics/targets/cubic-scalar'
+import { complexField as C, rationalField as Q } from '#shared/physics/field'
+import { randomPoint, rationalPoint } from '#shared/physics/kinematics'
+import { crossShift } from '#shared/physics/cross-shift'
+import { processOf, type TheoryName } from '#shared/physics/theories'
+import { cubicScalarFeynman } from '#shared/physics/targets/cubic-scalar'
 
 const consistent: [string, TheoryName, number | undefined, number[]][] = [
   ['gluon −−++', 'gluon', undefined, [-1, -1, 1, 1]],

@@ -2,9 +2,9 @@
 // naming the field; schema failures are zod errors → 400 at the route).
 import { describe, expect, it } from 'vitest'
 import { ZodError } from 'zod'
-import { evaluate, ENGINE_VERSION, PhysicsError, physicalMomenta, randomPoint, kinToWire, solveLastTwo } from '../../../shared/physics/index'
-import { EvaluateRequestSchema, zodIssuePath, type EvaluateRequestInput } from '../../../shared/schemas/evaluate'
-import { Fraction, complexField as C, rationalField as Q } from '../../../shared/physics/field'
+import { evaluate, ENGINE_VERSION, PhysicsError, physicalMomenta, randomPoint, kinToWire, solveLastTwo } from '#shared/physics/index'
+import { EvaluateRequestSchema, zodIssuePath, type EvaluateRequestInput } from '#shared/schemas/evaluate'
+import { Fraction, complexField as C, rationalField as Q } from '#shared/physics/field'
 
 const mhv = (n: number) => [-1, -1, ...Array(n - 2).fill(1)]
 

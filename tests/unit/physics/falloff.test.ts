@@ -2,8 +2,8 @@
 // exponent falloff table of docs/conventions.md (validity: Britto, Cachazo, Feng, Witten, PRL 94 (2005)
 // 181602; the exponents themselves are common practice).
 import { describe, expect, it } from 'vitest'
-import { probeFalloff, falloffTable } from '../../../shared/physics/falloff'
-import { processOf, tableExponent, type TheoryName } from '../../../shared/physics/theories'
+import { probeFalloff, falloffTable } from '#shared/physics/falloff'
+import { processOf, tableExponent, type TheoryName } from '#shared/physics/theories'
 
 const cases: [TheoryName, number[]][] = [
   ['gluon', [-1, -1, 1, 1]],

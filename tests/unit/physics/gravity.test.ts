@@ -2,14 +2,14 @@
 // 1986; Bern, Dixon, Perelstein, Rozowsky, Nucl. Phys. B546 (1999) 423); Bose symmetry; the
 // soft-graviton factor (Weinberg, Phys. Rev. 140 (1965) B516).
 import { describe, expect, it } from 'vitest'
-import { Fraction, complexField as C, rationalField as Q } from '../../../shared/physics/field'
-import { fromDoubleDouble, randomPoint, rationalPoint, solveLastTwo, toDoubleDouble } from '../../../shared/physics/kinematics'
-import { ddField } from '../../../shared/physics/double-double'
-import { bcfwValue, bcfw } from '../../../shared/physics/bcfw'
-import { processOf, isValidShift } from '../../../shared/physics/theories'
-import { hodges } from '../../../shared/physics/targets/hodges'
-import { klt } from '../../../shared/physics/targets/klt'
-import { angle, square, type Kin } from '../../../shared/physics/spinors'
+import { Fraction, complexField as C, rationalField as Q } from '#shared/physics/field'
+import { fromDoubleDouble, randomPoint, rationalPoint, solveLastTwo, toDoubleDouble } from '#shared/physics/kinematics'
+import { ddField } from '#shared/physics/double-double'
+import { bcfwValue, bcfw } from '#shared/physics/bcfw'
+import { processOf, isValidShift } from '#shared/physics/theories'
+import { hodges } from '#shared/physics/targets/hodges'
+import { klt } from '#shared/physics/targets/klt'
+import { angle, square, type Kin } from '#shared/physics/spinors'
 import { allHelicities, countMinus, relDiff } from './helpers'
 
 const G = processOf('graviton')

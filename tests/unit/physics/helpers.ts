@@ -1,5 +1,5 @@
 // Shared helpers of the engine tests.
-import type { Field } from '../../../shared/physics/field'
+import type { Field } from '#shared/physics/field'
 
 /** Every ±s helicity list of length n. */
 export function allHelicities(n: number, s = 1): number[][] {

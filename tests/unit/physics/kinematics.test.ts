@@ -1,8 +1,8 @@
 // Kinematics: spinors of real momenta (docs/conventions.md), seeded points, RAMBO (Kleiss, Stirling,
 // Ellis, Comput. Phys. Commun. 40 (1986) 359), and validation of given momenta.
 import { describe, expect, it } from 'vitest'
-import { complexField as C, rationalField as Q } from '../../../shared/physics/field'
-import { det, momentumSum, outer } from '../../../shared/physics/spinors'
+import { complexField as C, rationalField as Q } from '#shared/physics/field'
+import { det, momentumSum, outer } from '#shared/physics/spinors'
 import {
   conditionRatio,
   momentumOfBispinor,
@@ -13,8 +13,8 @@ import {
   rationalPoint,
   spinorsOfMomentum,
   type Momentum,
-} from '../../../shared/physics/kinematics'
-import { PhysicsError } from '../../../shared/physics/errors'
+} from '#shared/physics/kinematics'
+import { PhysicsError } from '#shared/physics/errors'
 
 const all = (n: number) => Array.from({ length: n }, (_, i) => i)
 const mass2 = (p: number[]) => p[0]! ** 2 - p[1]! ** 2 - p[2]! ** 2 - p[3]! ** 2

@@ -3,7 +3,7 @@
 // SYMSAC 1981; von Manteuffel & Schabinger, arXiv:1406.4513) against known fractions, and the whole
 // evaluation against the big-rational reference at the engine suite's exact points.
 import { describe, expect, it } from 'vitest'
-import { Fraction, rationalField as Q } from '../../../shared/physics/field'
+import { Fraction, rationalField as Q } from '#shared/physics/field'
 import {
   LaneField,
   PRIME_LIMIT,
@@ -14,15 +14,15 @@ import {
   primeFieldAt,
   rationalReconstruct,
   reconstructFrom,
-} from '../../../shared/physics/finite-field'
-import { bcfwByPrimes, byPrimes } from '../../../shared/physics/modular'
-import { shiftedKin } from '../../../shared/physics/falloff'
-import { evaluate } from '../../../shared/physics/index'
-import { rationalPoint, solveLastTwo } from '../../../shared/physics/kinematics'
-import { bcfw } from '../../../shared/physics/bcfw'
-import { defaultShift, processOf } from '../../../shared/physics/theories'
-import type { Kin, Spinor } from '../../../shared/physics/spinors'
-import type { EvaluateRequestInput } from '../../../shared/schemas/evaluate'
+} from '#shared/physics/finite-field'
+import { bcfwByPrimes, byPrimes } from '#shared/physics/modular'
+import { shiftedKin } from '#shared/physics/falloff'
+import { evaluate } from '#shared/physics/index'
+import { rationalPoint, solveLastTwo } from '#shared/physics/kinematics'
+import { bcfw } from '#shared/physics/bcfw'
+import { defaultShift, processOf } from '#shared/physics/theories'
+import type { Kin, Spinor } from '#shared/physics/spinors'
+import type { EvaluateRequestInput } from '#shared/schemas/evaluate'
 import { allHelicities } from './helpers'
 
 const residuesOf = (f: Fraction, count: number, first = 0) => Array.from({ length: count }, (_, t) => primeFieldAt(first + t).fromRational(f)!)

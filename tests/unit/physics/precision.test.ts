@@ -3,16 +3,16 @@
 // momenta near −z, the spin-0 four-particle test (Benincasa & Cachazo, arXiv:0705.4305: a single
 // self-interacting species is consistent for spin 0 and 2 only) and one-sentence warnings.
 import { describe, expect, it } from 'vitest'
-import { evaluate, spinorsOfMomentum, lostPrecision, floatTolerance, type Momentum } from '../../../shared/physics/index'
-import { complexField as C, rationalField as Q, negligible } from '../../../shared/physics/field'
-import { ddField } from '../../../shared/physics/double-double'
-import { randomPoint, rationalPoint } from '../../../shared/physics/kinematics'
-import { crossShift, scalarFactorisation } from '../../../shared/physics/cross-shift'
-import { probeFalloff } from '../../../shared/physics/falloff'
-import { processOf } from '../../../shared/physics/theories'
-import { cubicScalarAllChannels } from '../../../shared/physics/targets/cubic-scalar'
-import { mandelstam, type Kin } from '../../../shared/physics/spinors'
-import type { Fraction } from '../../../shared/physics/field'
+import { evaluate, spinorsOfMomentum, lostPrecision, floatTolerance, type Momentum } from '#shared/physics/index'
+import { complexField as C, rationalField as Q, negligible } from '#shared/physics/field'
+import { ddField } from '#shared/physics/double-double'
+import { randomPoint, rationalPoint } from '#shared/physics/kinematics'
+import { crossShift, scalarFactorisation } from '#shared/physics/cross-shift'
+import { probeFalloff } from '#shared/physics/falloff'
+import { processOf } from '#shared/physics/theories'
+import { cubicScalarAllChannels } from '#shared/physics/targets/cubic-scalar'
+import { mandelstam, type Kin } from '#shared/physics/spinors'
+import type { Fraction } from '#shared/physics/field'
 
 // Six gluons at small-integer spinors where two BCFW poles of the [2,5⟩ shift coincide: exact
 // arithmetic meets an exact zero; doubles used to divide by its rounding remainder (≈ 6e16).

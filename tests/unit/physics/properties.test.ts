@@ -2,12 +2,12 @@
 // and little-group scaling t^(−2h) (common practice) at random seeds, helicities and shifts.
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { complexField as C, rationalField as Q, Fraction } from '../../../shared/physics/field'
-import { randomPoint, rationalPoint } from '../../../shared/physics/kinematics'
-import { bcfw } from '../../../shared/physics/bcfw'
-import { isValidShift, processOf } from '../../../shared/physics/theories'
-import { berendsGiele } from '../../../shared/physics/targets/berends-giele'
-import type { Kin } from '../../../shared/physics/spinors'
+import { complexField as C, rationalField as Q, Fraction } from '#shared/physics/field'
+import { randomPoint, rationalPoint } from '#shared/physics/kinematics'
+import { bcfw } from '#shared/physics/bcfw'
+import { isValidShift, processOf } from '#shared/physics/theories'
+import { berendsGiele } from '#shared/physics/targets/berends-giele'
+import type { Kin } from '#shared/physics/spinors'
 import { relDiff } from './helpers'
 
 const g = processOf('gluon')

@@ -1,11 +1,11 @@
 // The theory and target registries and the shared colour-order helpers: what the zod enums, the
 // batch runner and the editor derive from them.
 import { describe, expect, it } from 'vitest'
-import { THEORIES, THEORY_NAMES, isColourOrdered, legsOf, pdgOf, processOf, spinOf, theoryOfSpin, validateProcess } from '../../../shared/physics/theories'
-import { TARGETS, TARGET_INFO, TARGET_NAMES } from '../../../shared/physics/targets/index'
-import { checkOrder, effectiveOrder, inOrder, orderProblem, responseToLabels, shiftInOrder, toLabelOrder } from '../../../shared/physics/colour-order'
-import { TargetNameEnum, TheoryEnum, type EvaluateResponse } from '../../../shared/schemas/evaluate'
-import { TheorySchema } from '../../../shared/schemas/graph'
+import { THEORIES, THEORY_NAMES, isColourOrdered, legsOf, pdgOf, processOf, spinOf, theoryOfSpin, validateProcess } from '#shared/physics/theories'
+import { TARGETS, TARGET_INFO, TARGET_NAMES } from '#shared/physics/targets/index'
+import { checkOrder, effectiveOrder, inOrder, orderProblem, responseToLabels, shiftInOrder, toLabelOrder } from '#shared/physics/colour-order'
+import { TargetNameEnum, TheoryEnum, type EvaluateResponse } from '#shared/schemas/evaluate'
+import { TheorySchema } from '#shared/schemas/graph'
 
 describe('theory registry', () => {
   it('is the source of both theory enums', () => {

@@ -2,10 +2,10 @@
 // gravitons as squares of gluons, structural kinds, Bose (anti)symmetry (Benincasa & Cachazo,
 // arXiv:0705.4305), half-integer helicities in the formula itself.
 import { describe, expect, it } from 'vitest'
-import { Fraction, rationalField as Q } from '../../../shared/physics/field'
-import type { Kin, Spinor } from '../../../shared/physics/spinors'
-import { boseSymmetry, threePoint, threePointFormula, threePointSurvives } from '../../../shared/physics/three-point'
-import { processOf } from '../../../shared/physics/theories'
+import { Fraction, rationalField as Q } from '#shared/physics/field'
+import type { Kin, Spinor } from '#shared/physics/spinors'
+import { boseSymmetry, threePoint, threePointFormula, threePointSurvives } from '#shared/physics/three-point'
+import { processOf } from '#shared/physics/theories'
 
 const f = (a: number, b = 1) => new Fraction(a, b)
 // generic spinors (three-point kinematics is not needed for the algebraic checks)

@@ -1,7 +1,7 @@
 // docs/conventions.md "Verdicts", the float tolerance and the deviation.
 import { describe, expect, it } from 'vitest'
-import { decideVerdict, deviationOf, floatTolerance, type VerdictInput } from '../../../shared/physics/verdict'
-import { complexField as C, rationalField as Q, Fraction, Complex } from '../../../shared/physics/field'
+import { decideVerdict, deviationOf, floatTolerance, type VerdictInput } from '#shared/physics/verdict'
+import { complexField as C, rationalField as Q, Fraction, Complex } from '#shared/physics/field'
 
 const ok: VerdictInput = { singular: false, targetNone: false, shiftValidByTable: true, probedExponent: null, vanishing: false, arithmetic: 'float', n: 6, deviation: 1e-14, exactEqual: false }
 

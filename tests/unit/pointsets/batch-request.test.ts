@@ -4,9 +4,9 @@
 import { describe, expect, it } from 'vitest'
 import { requestFor, codeMismatch } from '../../../server/utils/batch'
 import { evaluateInOrder } from '../../../server/workers/tasks'
-import { evaluate } from '../../../shared/physics/index'
-import { generatePoint } from '../../../shared/pointsets'
-import type { Process } from '../../../shared/schemas/graph'
+import { evaluate } from '#shared/physics/index'
+import { generatePoint } from '#shared/pointsets'
+import type { Process } from '#shared/schemas/graph'
 
 describe('batch requests', () => {
   it.each<[Process & { order: number[] }]>([

@@ -1,7 +1,7 @@
 // Our CSV and JSON layouts: round trips, refusal of unreadable files with line and column, and
 // the per-point reasons for points that break momentum conservation or masslessness.
 import { describe, expect, it } from 'vitest'
-import { parseCsv, parseJson, toCsv, toJsonFile, validatePoints, generatePoints, PointFileError, type PointData } from '../../../shared/pointsets'
+import { parseCsv, parseJson, toCsv, toJsonFile, validatePoints, generatePoints, PointFileError, type PointData } from '#shared/pointsets'
 
 function refusal(f: () => unknown): PointFileError {
   try {

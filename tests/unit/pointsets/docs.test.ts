@@ -1,9 +1,9 @@
 // The API page's point-set section: every example parses with its route's schema, and the JSON
 // Schemas the page shows can be generated.
 import { describe, expect, it } from 'vitest'
-import { POINT_SET_SECTION } from '../../../shared/pointsets/docs'
-import { JsonPointFileSchema } from '../../../shared/pointsets/json'
-import { jsonSchemaOf } from '../../../shared/docs/api-routes'
+import { POINT_SET_SECTION } from '#shared/pointsets/docs'
+import { JsonPointFileSchema } from '#shared/pointsets/json'
+import { jsonSchemaOf } from '#shared/docs/api-routes'
 
 describe('API docs: point sets', () => {
   const withExamples = POINT_SET_SECTION.routes.filter(r => r.schema)

@@ -1,7 +1,7 @@
 // Generated sets reproduce from their seed; their invariants agree with s_ij = 2 p_i·p_j computed
 // directly from the momenta (massless legs, mostly-minus metric, docs/conventions.md).
 import { describe, expect, it } from 'vitest'
-import { generatePoints, generatePoint, invariantMatrix, kinOf, minInvariantRatio, validatePoints, GenerateSchema } from '../../../shared/pointsets'
+import { generatePoints, generatePoint, invariantMatrix, kinOf, minInvariantRatio, validatePoints, GenerateSchema } from '#shared/pointsets'
 
 describe('generated point sets', () => {
   it('reproduce from the seed, point by point', () => {
@@ -57,7 +57,7 @@ describe('generated point sets', () => {
 
 describe('plot data', () => {
   it('bins log10 deviations in half decades and counts exact zeros apart', async () => {
-    const { deviationHistogram, deviationScatter } = await import('../../../shared/pointsets')
+    const { deviationHistogram, deviationScatter } = await import('#shared/pointsets')
     const h = deviationHistogram([1e-15, 3e-15, 2e-13, 0, null, 9.9e-10])
     expect(h.zeros).toBe(1)
     expect(h.lo).toBe(-15)

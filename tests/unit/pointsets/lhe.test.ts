@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
-import { parseLhe, validatePoints, PointFileError, TooManyPointsError, MAX_POINTS } from '../../../shared/pointsets'
+import { parseLhe, validatePoints, PointFileError, TooManyPointsError, MAX_POINTS } from '#shared/pointsets'
 
 const fixture = readFileSync(resolve(import.meta.dirname, '../../fixtures/gluons.lhe'), 'utf8')
 

@@ -1,8 +1,8 @@
 // Every CSV the app writes neutralises spreadsheet formulas (OWASP ASVS 4.0 V5.3.x output encoding:
 // the "CSV injection" rule — a cell starting with = + - @ tab or CR gets a leading apostrophe).
 import { describe, expect, it } from 'vitest'
-import { neutraliseCell } from '../../../shared/csv-safe'
-import { toCsv } from '../../../shared/pointsets/csv'
+import { neutraliseCell } from '#shared/csv-safe'
+import { toCsv } from '#shared/pointsets/csv'
 
 describe('V5.3.x CSV exports carry no spreadsheet formulas', () => {
   it.each(['=HYPERLINK("http://x.example","y")', '+1+2', '@SUM(A1:A2)', '-2+3+cmd|x', '\tx', '\r=1'])('neutralises %j', (s) => {

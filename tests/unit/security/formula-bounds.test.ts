@@ -1,9 +1,9 @@
 // Heavy formulas are refused at parse time, before any exact arithmetic runs (OWASP ASVS 4.0 V5.1.4:
 // structured data is checked against ranges; V13.1.x / V11.1.4: no single request occupies a worker).
 import { describe, expect, it } from 'vitest'
-import { compileFormula } from '../../../shared/physics/formula'
-import { PhysicsError } from '../../../shared/physics/errors'
-import { rationalField as Q } from '../../../shared/physics/field'
+import { compileFormula } from '#shared/physics/formula'
+import { PhysicsError } from '#shared/physics/errors'
+import { rationalField as Q } from '#shared/physics/field'
 import { randomRationalPoint } from '../physics/targets/_points'
 
 function refusal(src: string): PhysicsError {

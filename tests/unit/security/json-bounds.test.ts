@@ -1,9 +1,9 @@
 // Free-form JSON fields are measured without recursion (OWASP ASVS 4.0 V5.1.4: structured data is
 // bounded); a graph stored before the bound still opens, cut where it is too deep.
 import { describe, expect, it } from 'vitest'
-import { GraphSchema } from '../../../shared/schemas/graph'
-import { jsonDepth, pruneDeep } from '../../../shared/schemas/json-bounds'
-import { describeIssues, IdParam, limitQuery } from '../../../shared/schemas/common'
+import { GraphSchema } from '#shared/schemas/graph'
+import { jsonDepth, pruneDeep } from '#shared/schemas/json-bounds'
+import { describeIssues, IdParam, limitQuery } from '#shared/schemas/common'
 
 function nest(levels: number): unknown {
   let v: unknown = 1

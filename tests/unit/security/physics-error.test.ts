@@ -2,7 +2,7 @@
 // generic, safe error with the field, never "Server Error").
 import { describe, expect, it } from 'vitest'
 import { createError } from 'h3'
-import { PhysicsError } from '../../../shared/physics/errors'
+import { PhysicsError } from '#shared/physics/errors'
 
 describe('V7.4.1 PhysicsError through h3', () => {
   it('keeps 422, the reason phrase and data.field', () => {

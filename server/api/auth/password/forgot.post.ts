@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { ForgotPasswordSchema } from '../../../../shared/schemas/collab'
+import { ForgotPasswordSchema } from '#shared/schemas/collab'
 
 const HOUR = 3600 * 1000
 

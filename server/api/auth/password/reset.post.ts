@@ -1,5 +1,5 @@
 import { and, eq, gt, isNull } from 'drizzle-orm'
-import { ResetPasswordSchema } from '../../../../shared/schemas/collab'
+import { ResetPasswordSchema } from '#shared/schemas/collab'
 
 // Sets a new password from a one-time link, marks the link (and any other open link of the
 // account) used, ends every session and revokes every API token of the account (a reset is how a

@@ -1,7 +1,7 @@
 // The per-point table of a batch check, paged (view=rows), or every point as parallel arrays for
 // the plots (view=columns: idx, deviation, minInvariant, verdict; at most 10,000 points per set).
 import { and, asc, count, desc, eq, sql } from 'drizzle-orm'
-import { CheckPointsQuerySchema } from '../../../../shared/pointsets'
+import { CheckPointsQuerySchema } from '#shared/pointsets'
 
 export default defineEventHandler(async (event) => {
   const { check } = await requireCheckRole(event, routeId(event), 'viewer')

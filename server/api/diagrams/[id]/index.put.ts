@@ -1,5 +1,5 @@
 import { and, eq, sql } from 'drizzle-orm'
-import { DiagramUpdateSchema } from '../../../../shared/schemas/projects'
+import { DiagramUpdateSchema } from '#shared/schemas/projects'
 
 // Optimistic concurrency: one atomic UPDATE … WHERE id = ? AND version = ? decides who wins;
 // a stale version gets 409 and nothing is overwritten. Every saved version is kept as a revision.

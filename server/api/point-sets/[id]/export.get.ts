@@ -1,5 +1,5 @@
 // The whole set as a file in our CSV or JSON layout (re-uploadable). Read page by page.
-import { ExportQuerySchema, toCsv, toJsonFile, type PointData } from '../../../../shared/pointsets'
+import { ExportQuerySchema, toCsv, toJsonFile, type PointData } from '#shared/pointsets'
 
 const PAGE = 1000
 

@@ -1,7 +1,7 @@
 // A page of points: momenta (or spinors) per leg, spinors on demand, invariants s_ij on demand.
-import { PointsQuerySchema, invariantMatrix, kinOf } from '../../../../shared/pointsets'
-import { kinToWire } from '../../../../shared/physics/kinematics'
-import { complexField } from '../../../../shared/physics/field'
+import { PointsQuerySchema, invariantMatrix, kinOf } from '#shared/pointsets'
+import { kinToWire } from '#shared/physics/kinematics'
+import { complexField } from '#shared/physics/field'
 
 export default defineEventHandler(async (event) => {
   const { pointSet } = await requirePointSetRole(event, routeId(event), 'viewer')

@@ -1,5 +1,5 @@
 import { desc, eq } from 'drizzle-orm'
-import { limitQuery } from '../../../../shared/schemas/common'
+import { limitQuery } from '#shared/schemas/common'
 
 export default defineEventHandler(async (event) => {
   const { project } = await requireProjectRole(event, routeId(event), 'viewer')

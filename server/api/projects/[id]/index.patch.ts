@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { ProjectUpdateSchema } from '../../../../shared/schemas/projects'
+import { ProjectUpdateSchema } from '#shared/schemas/projects'
 
 export default defineEventHandler(async (event) => {
   const { project, user, role } = await requireProjectRole(event, routeId(event), 'owner')

@@ -1,11 +1,11 @@
 // Helpers shared by the target tests. Points come from the core's seeded generators
 // (shared/physics/kinematics.ts), which redraw until a point is well-conditioned.
 import { expect } from 'vitest'
-import { Complex, complexField } from '../../../../shared/physics/field'
-import type { Kin } from '../../../../shared/physics/spinors'
-import { solveLastTwo } from '../../../../shared/physics/kinematics'
+import { Complex, complexField } from '#shared/physics/field'
+import type { Kin } from '#shared/physics/spinors'
+import { solveLastTwo } from '#shared/physics/kinematics'
 
-export { randomPoint as randomComplexPoint, rationalPoint as randomRationalPoint } from '../../../../shared/physics/kinematics'
+export { randomPoint as randomComplexPoint, rationalPoint as randomRationalPoint } from '#shared/physics/kinematics'
 
 /** The point with legs relabelled: leg a of the result is leg perm[a] of k. */
 export function permuteKin<T>(k: Kin<T>, perm: readonly number[]): Kin<T> {

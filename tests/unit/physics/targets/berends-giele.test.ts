@@ -4,13 +4,13 @@
 // fundamental BCJ relation (Bern, Carrasco, Johansson, arXiv:0805.3993), little-group scaling and
 // the leading soft-gluon factor (Weinberg, Phys. Rev. 140 (1965) B516).
 import { describe, expect, it } from 'vitest'
-import { Complex, Fraction, complexField as C, rationalField as Q } from '../../../../shared/physics/field'
-import type { Field } from '../../../../shared/physics/field'
-import type { Kin } from '../../../../shared/physics/spinors'
-import { angle, square, mandelstam } from '../../../../shared/physics/spinors'
-import { toFloatKin } from '../../../../shared/physics/kinematics'
-import { berendsGiele } from '../../../../shared/physics/targets/berends-giele'
-import { parkeTaylor } from '../../../../shared/physics/targets/parke-taylor'
+import { Complex, Fraction, complexField as C, rationalField as Q } from '#shared/physics/field'
+import type { Field } from '#shared/physics/field'
+import type { Kin } from '#shared/physics/spinors'
+import { angle, square, mandelstam } from '#shared/physics/spinors'
+import { toFloatKin } from '#shared/physics/kinematics'
+import { berendsGiele } from '#shared/physics/targets/berends-giele'
+import { parkeTaylor } from '#shared/physics/targets/parke-taylor'
 import { expectSubleading, permuteKin, randomComplexPoint, randomRationalPoint, relDiff, withSoftLeg } from './_points'
 
 const TOL = 1e-9 // docs/conventions.md: a sound float tolerance at generic points

@@ -3,9 +3,9 @@
 // their number is the Catalan number C_{n−2} (the classical Euler–Segner count of polygon
 // triangulations; reference from memory).
 import { describe, expect, it } from 'vitest'
-import { Fraction, complexField as C, rationalField as Q } from '../../../../shared/physics/field'
-import { mandelstam } from '../../../../shared/physics/spinors'
-import { cubicScalarFeynman } from '../../../../shared/physics/targets/cubic-scalar'
+import { Fraction, complexField as C, rationalField as Q } from '#shared/physics/field'
+import { mandelstam } from '#shared/physics/spinors'
+import { cubicScalarFeynman } from '#shared/physics/targets/cubic-scalar'
 import { permuteKin, randomComplexPoint, randomRationalPoint, relDiff } from './_points'
 
 /**

@@ -2,13 +2,13 @@
 // three-point and KLT forms of docs/conventions.md it must reproduce those values exactly; brackets are
 // compared with the spinor primitives; errors point at the user's character.
 import { describe, expect, it } from 'vitest'
-import { Fraction, complexField as C, rationalField as Q, SingularError } from '../../../../shared/physics/field'
-import { angle, square, mandelstam, sandwich } from '../../../../shared/physics/spinors'
-import { compileFormula } from '../../../../shared/physics/formula'
-import { evaluate } from '../../../../shared/physics/index'
-import { PhysicsError } from '../../../../shared/physics/errors'
-import { parkeTaylor } from '../../../../shared/physics/targets/parke-taylor'
-import { klt } from '../../../../shared/physics/targets/klt'
+import { Fraction, complexField as C, rationalField as Q, SingularError } from '#shared/physics/field'
+import { angle, square, mandelstam, sandwich } from '#shared/physics/spinors'
+import { compileFormula } from '#shared/physics/formula'
+import { evaluate } from '#shared/physics/index'
+import { PhysicsError } from '#shared/physics/errors'
+import { parkeTaylor } from '#shared/physics/targets/parke-taylor'
+import { klt } from '#shared/physics/targets/klt'
 import { randomComplexPoint, randomRationalPoint, relDiff } from './_points'
 
 function ptFormula(n: number, i: number, j: number): string {

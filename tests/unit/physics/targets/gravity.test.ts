@@ -3,12 +3,12 @@
 // identities: independence of the removed rows/columns and reference legs, Bose symmetry,
 // little-group scaling and the leading soft-graviton factor (Weinberg, Phys. Rev. 140 (1965) B516).
 import { describe, expect, it } from 'vitest'
-import { Complex, Fraction, complexField as C, rationalField as Q } from '../../../../shared/physics/field'
-import type { Kin } from '../../../../shared/physics/spinors'
-import { angle, square } from '../../../../shared/physics/spinors'
-import { hodges, determinant } from '../../../../shared/physics/targets/hodges'
-import type { HodgesOptions } from '../../../../shared/physics/targets/hodges'
-import { klt } from '../../../../shared/physics/targets/klt'
+import { Complex, Fraction, complexField as C, rationalField as Q } from '#shared/physics/field'
+import type { Kin } from '#shared/physics/spinors'
+import { angle, square } from '#shared/physics/spinors'
+import { hodges, determinant } from '#shared/physics/targets/hodges'
+import type { HodgesOptions } from '#shared/physics/targets/hodges'
+import { klt } from '#shared/physics/targets/klt'
 import { expectSubleading, permuteKin, randomComplexPoint, randomRationalPoint, relDiff, withSoftLeg } from './_points'
 
 const TOL = 1e-9

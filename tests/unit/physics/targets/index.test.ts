@@ -1,12 +1,12 @@
 // Target selection (docs/api.md "Evaluation request") and evaluation through the registry; the values themselves are
 // checked against outside references in the other files of this folder.
 import { describe, expect, it } from 'vitest'
-import { complexField as C, rationalField as Q } from '../../../../shared/physics/field'
-import { TARGETS, applicableTargets, autoTarget, evaluateTarget } from '../../../../shared/physics/targets'
-import type { TargetName, TargetTheory } from '../../../../shared/physics/targets'
-import { parkeTaylor } from '../../../../shared/physics/targets/parke-taylor'
-import { berendsGiele } from '../../../../shared/physics/targets/berends-giele'
-import { PhysicsError } from '../../../../shared/physics/errors'
+import { complexField as C, rationalField as Q } from '#shared/physics/field'
+import { TARGETS, applicableTargets, autoTarget, evaluateTarget } from '#shared/physics/targets'
+import type { TargetName, TargetTheory } from '#shared/physics/targets'
+import { parkeTaylor } from '#shared/physics/targets/parke-taylor'
+import { berendsGiele } from '#shared/physics/targets/berends-giele'
+import { PhysicsError } from '#shared/physics/errors'
 import { randomComplexPoint, randomRationalPoint, relDiff } from './_points'
 
 describe('applicable targets and the auto choice', () => {

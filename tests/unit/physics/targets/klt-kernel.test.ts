@@ -4,10 +4,10 @@
 // arXiv:1204.1930) for seven-graviton MHV and anti-MHV, and to BCFW for seven-graviton NMHV —
 // the process that had no target before.
 import { describe, expect, it } from 'vitest'
-import { complexField as C, rationalField as Q } from '../../../../shared/physics/field'
-import { klt, kltKernel } from '../../../../shared/physics/targets/klt'
-import { hodges } from '../../../../shared/physics/targets/hodges'
-import { evaluate } from '../../../../shared/physics/index'
+import { complexField as C, rationalField as Q } from '#shared/physics/field'
+import { klt, kltKernel } from '#shared/physics/targets/klt'
+import { hodges } from '#shared/physics/targets/hodges'
+import { evaluate } from '#shared/physics/index'
 import { randomComplexPoint, randomRationalPoint, relDiff } from './_points'
 
 const allGraviton = (n: number) => Array.from({ length: 1 << n }, (_, m) => Array.from({ length: n }, (_, t) => (m & (1 << t) ? 2 : -2)))

@@ -1,7 +1,7 @@
 // Starts a batch check: the diagram's process over a point set of the same project, in the pool.
 // Answers 202 with the check at once; progress comes from GET /api/batch-checks/:id/events.
 import { and, eq } from 'drizzle-orm'
-import { BatchStartSchema } from '../../../../../shared/pointsets'
+import { BatchStartSchema } from '#shared/pointsets'
 
 export default defineEventHandler(async (event) => {
   const { diagram, project, user } = await requireDiagramRole(event, routeId(event), 'editor')

@@ -1,5 +1,5 @@
 import { and, desc, eq, getTableColumns } from 'drizzle-orm'
-import { limitQuery } from '../../../../../shared/schemas/common'
+import { limitQuery } from '#shared/schemas/common'
 
 // The diagram's checks, newest first, without their request and result payloads.
 export default defineEventHandler(async (event) => {

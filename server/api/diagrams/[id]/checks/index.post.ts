@@ -1,7 +1,7 @@
-import { CheckRunSchema } from '../../../../../shared/schemas/service'
-import type { EvaluateRequest } from '../../../../../shared/schemas/evaluate'
-import { drawingGraph, hasDrawnTerms, type CheckedResponse } from '../../../../../shared/editor/drawing/evaluate'
-import type { EditorEdge, EditorNode } from '../../../../../shared/editor/types'
+import { CheckRunSchema } from '#shared/schemas/service'
+import type { EvaluateRequest } from '#shared/schemas/evaluate'
+import { drawingGraph, hasDrawnTerms, type CheckedResponse } from '#shared/editor/drawing/evaluate'
+import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
 // Runs a check: the diagram's process (theory, spin, helicities, colour order, shift) at the
 // point in the body, stored with its provenance (engine version, arithmetic, seed, duration, who).

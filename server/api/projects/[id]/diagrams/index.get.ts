@@ -1,8 +1,9 @@
-import { desc, eq } from 'drizzle-orm'
+import { desc, eq, sql } from 'drizzle-orm'
 
 export default defineEventHandler(async (event) => {
   const { project } = await requireProjectRole(event, routeId(event), 'viewer')
-  const rows = await useDB().select({
+  const db = useDB()
+  const rows = await db.select({
     id: tables.diagrams.id,
     projectId: tables.diagrams.projectId,
     title: tables.diagrams.title,
@@ -10,7 +11,26 @@ export default defineEventHandler(async (event) => {
     graph: tables.diagrams.graph,
     updatedAt: tables.diagrams.updatedAt,
     updatedBy: tables.diagrams.updatedBy,
-  }).from(tables.diagrams).where(eq(tables.diagrams.projectId, project.id)).orderBy(desc(tables.diagrams.updatedAt))
+    updatedByName: tables.users.name,
+  }).from(tables.diagrams)
+    .leftJoin(tables.users, eq(tables.users.id, tables.diagrams.updatedBy))
+    .where(eq(tables.diagrams.projectId, project.id)).orderBy(desc(tables.diagrams.updatedAt))
+  // The newest finished check of each diagram (SQLite takes the bare columns from the max row).
+  const c = tables.checks
+  const latest = await db.select({
+    diagramId: c.diagramId,
+    id: c.id,
+    kind: c.kind,
+    verdict: c.verdict,
+    diagramVersion: c.diagramVersion,
+    createdAt: sql<number>`max(${c.createdAt})`,
+  }).from(c).where(sql`${c.projectId} = ${project.id} and ${c.diagramId} is not null and ${c.verdict} is not null`).groupBy(c.diagramId)
+  const byDiagram = new Map(latest.map(l => [l.diagramId, { id: l.id, kind: l.kind, verdict: l.verdict, diagramVersion: l.diagramVersion, createdAt: new Date(Number(l.createdAt)) }]))
   // The list carries the process (for a summary line), not the whole canvas.
-  return rows.map(({ graph, ...d }) => ({ ...d, process: (graph as { process?: unknown }).process ?? null, nodes: ((graph as { nodes?: unknown[] }).nodes ?? []).length }))
+  return rows.map(({ graph, ...d }) => ({
+    ...d,
+    process: (graph as { process?: unknown }).process ?? null,
+    nodes: ((graph as { nodes?: unknown[] }).nodes ?? []).length,
+    latestCheck: byDiagram.get(d.id) ?? null,
+  }))
 })

@@ -1,4 +1,4 @@
-import { DiagramCreateSchema } from '../../../../../shared/schemas/projects'
+import { DiagramCreateSchema } from '#shared/schemas/projects'
 
 export default defineEventHandler(async (event) => {
   const { project, user } = await requireProjectRole(event, routeId(event), 'editor')

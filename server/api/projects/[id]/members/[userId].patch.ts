@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm'
-import { MemberUpdateSchema } from '../../../../../shared/schemas/projects'
+import { MemberUpdateSchema } from '#shared/schemas/projects'
 
 export default defineEventHandler(async (event) => {
   const access = await requireProjectRole(event, routeId(event), 'owner')

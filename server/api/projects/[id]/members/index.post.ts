@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { MemberAddSchema } from '../../../../../shared/schemas/projects'
+import { MemberAddSchema } from '#shared/schemas/projects'
 
 // 201 for an existing user (added at once and notified); 202 for an address without an account
 // (an invitation is e-mailed).

@@ -1,6 +1,6 @@
 // A seeded set: N physical points (RAMBO, energy) or N random complex points; point i uses the
 // seed "<seed>:<i>", so the set is reproducible from its stored seed.
-import { GenerateSchema, PHYSICAL_MAX_LEGS, type PointData } from '../../../../../shared/pointsets'
+import { GenerateSchema, PHYSICAL_MAX_LEGS, type PointData } from '#shared/pointsets'
 
 export default defineEventHandler(async (event) => {
   const { project, user } = await requireProjectRole(event, routeId(event), 'editor')
