@@ -82,14 +82,15 @@ describe('point sets in the browser', () => {
     try {
       const owner = await signIn(demo.owner)
       const project = (await owner.get('/api/projects')).body.find((p: { name: string }) => p.name.startsWith('Brackenridge'))
-      const set = (await owner.get(`/api/projects/${project.id}/point-sets`)).body.find((s: { name: string }) => s.name.startsWith('Five-gluon phase-space'))
+      const set = (await owner.get(`/api/projects/${project.id}/point-sets`)).body.find((s: { name: string, count: number }) => s.name.startsWith('Five-gluon phase-space'))
       await signInBrowser(viewer.page, demo.viewer, demo.password)
       await viewer.page.goto(`/projects/${project.id}/point-sets`)
       await viewer.page.waitForLoadState('networkidle')
       expect(await viewer.page.locator('[data-test=upload-form]').count()).toBe(0)
       await viewer.page.goto(`/projects/${project.id}/point-sets/${set.id}`)
       await viewer.page.waitForLoadState('networkidle')
-      expect(await viewer.page.locator('[data-test=point]').count()).toBe(20)
+      // the page shows the points 50 to a page
+      expect(await viewer.page.locator('[data-test=point]').count()).toBe(Math.min(50, set.count))
       expect(await viewer.page.locator('[data-test=delete-set]').count()).toBe(0)
       expect(await viewer.page.locator('[data-test=batch-form]').count()).toBe(0)
       expect(viewer.errors).toEqual([])
