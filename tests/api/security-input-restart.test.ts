@@ -6,24 +6,13 @@ import { spawn, type ChildProcess } from 'node:child_process'
 import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
+import { testServerEnv } from '../setup/server'
 
 const root = resolve(import.meta.dirname, '../..')
 const dir = mkdtempSync(join(tmpdir(), 'polewright-restart-'))
 const port = 4100 + Math.floor(Math.random() * 200)
 const base = `http://127.0.0.1:${port}`
-const env = {
-  ...process.env,
-  PORT: String(port),
-  HOST: '127.0.0.1',
-  DATABASE_URL: `file:${join(dir, 'test.db')}`,
-  NUXT_SESSION_PASSWORD: 'test-session-password-0123456789-abcdefghijklmnop',
-  POLEWRIGHT_MIGRATIONS_DIR: join(root, 'db/migrations'),
-  POLEWRIGHT_INSECURE_COOKIE: '1',
-  MAIL_OUTBOX_DIR: join(dir, 'outbox'),
-  SMTP_PORT: String(port + 1000),
-  APP_URL: base,
-  NODE_ENV: 'production',
-}
+const env = { ...testServerEnv(dir, port, port + 1000), POLEWRIGHT_INSECURE_COOKIE: '1', APP_URL: base }
 let server: ChildProcess | null = null
 
 async function start() {
