@@ -7,6 +7,8 @@ import { defaultShift, isValidShift, vanishes, type Process } from './theories'
 import { threePoint, threePointSurvives, type VertexKind } from './three-point'
 import { PhysicsError } from './errors'
 import { parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/parke-taylor'
+import { GLUON_PDG } from './quarks'
+import { quarkMhvValue } from './targets/quark-mhv'
 
 /** A leg of a (sub-)amplitude: an external label (1-based) or an internal line L1, L2, … */
 export type LegRef = { label: number } | { line: string }
@@ -46,6 +48,8 @@ export interface BcfwOptions {
   closedForms?: boolean
   /** Refuse trees with more nodes than this. */
   maxNodes?: number
+  /** PDG codes of the legs in `h`'s order (default: the process's own). */
+  pdg?: number[]
 }
 
 interface Ctx<T> {
@@ -62,6 +66,38 @@ export const DEFAULT_MAX_TREE_NODES = 20000
 
 const ZERO_HEL = [0]
 const GLUON_HEL = [1, -1]
+const QUARK_HEL = [0.5, -0.5]
+
+/**
+ * The species of A_L's internal leg (PDG code; A_R's is its antiparticle): a gluon when A_L's
+ * quark lines are complete, the missing end of its one open line otherwise; null when A_L has
+ * more than one open line (no single particle can be exchanged).
+ */
+export function internalSpecies(c: readonly number[], L: readonly number[]): number | null {
+  let open = 0
+  let missing = GLUON_PDG
+  for (const t of L) {
+    const x = c[t]!
+    if (x === GLUON_PDG) continue
+    if (L.some((u) => c[u] === -x)) continue
+    open++
+    missing = -x
+  }
+  return open === 0 ? GLUON_PDG : open === 1 ? missing : null
+}
+
+/**
+ * Fermion sign of a term with a quark exchanged (docs/conventions.md "Quarks"): with −P̂ carried by
+ * (λ_P, −λ̃_P) on A_L, the exchanged quark's two helicity states enter with these signs, keyed by
+ * whether A_L's internal leg is the quark (PDG > 0) and by its helicity. Fixed against the
+ * quark-line Berends–Giele current ("fermion signs" in physics/quarks-bcfw.test.ts).
+ */
+export const FERMION_SIGN = { quarkOnLeft: { plus: 1, minus: 1 }, antiquarkOnLeft: { plus: 1, minus: 1 } }
+
+function fermionSign(cInt: number, x: number): number {
+  const s = cInt > 0 ? FERMION_SIGN.quarkOnLeft : FERMION_SIGN.antiquarkOnLeft
+  return x > 0 ? s.plus : s.minus
+}
 
 /** Rank-one split P̂ = λ_P λ̃_Pᵀ from its largest entry (r, c): λ_P = column c, λ̃_P = row r / P̂_rc. */
 export function splitRankOne<T>(F: Field<T>, P: Bispinor<T>): { lambda: Spinor<T>; lambdaTilde: Spinor<T> } {
@@ -118,8 +154,8 @@ function computeChannels(n: number, i: number, j: number, colourOrdered: boolean
 
 
 /** Whether a side of a channel can be non-zero, from its helicities alone (three-point kinds structurally). */
-export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind): boolean {
-  return h.length === 3 ? threePointSurvives(p, h, kind) : !vanishes(p, h)
+export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind, pdg?: readonly number[]): boolean {
+  return h.length === 3 ? threePointSurvives(p, h, kind, pdg) : !vanishes(p, h, pdg)
 }
 
 /** Label list like "1,2,5" for messages. */
@@ -209,16 +245,27 @@ export function channelKinematics<T>(F: Field<T>, k: Kin<T>, shift: readonly [nu
   return { P2, z, kL, kR }
 }
 
-function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number], legs: LegRef[] | undefined, wantTerms: boolean, top = false): SumResult<T> {
+function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number], legs: LegRef[] | undefined, wantTerms: boolean, top = false, c?: number[]): SumResult<T> {
   const { F, p } = ctx
   const n = h.length
   const [i, j] = shift
-  const hs = p.s === 0 ? ZERO_HEL : p.s === 1 ? GLUON_HEL : [p.s, -p.s]
+  const hsBoson = p.s === 0 ? ZERO_HEL : p.s === 1 ? GLUON_HEL : [p.s, -p.s]
   let value = F.zero
   const terms: Term<T>[] = []
   for (const { L, R } of channels(n, i, j, p.colourOrdered)) {
     const nL = L.length
     const nR = R.length
+    let cL: number[] | undefined
+    let cR: number[] | undefined
+    let cInt = GLUON_PDG
+    if (c) {
+      const x = internalSpecies(c, L)
+      if (x === null) continue
+      cInt = x
+      cL = [...L.map((t) => c[t]!), x]
+      cR = [...R.map((t) => c[t]!), x === GLUON_PDG ? x : -x]
+    }
+    const hs = cInt === GLUON_PDG ? hsBoson : QUARK_HEL
     const hL: number[] = new Array(nL + 1)
     const hR: number[] = new Array(nR + 1)
     for (let t = 0; t < nL; t++) hL[t] = h[L[t]!]!
@@ -229,7 +276,7 @@ function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number]
       const x = hs[a]!
       hL[nL] = x
       hR[nR] = -x
-      const ok = sideSurvives(p, hL, 'angle') && sideSurvives(p, hR, 'square')
+      const ok = sideSurvives(p, hL, 'angle', cL) && sideSurvives(p, hR, 'square', cR)
       if (a === 0) live0 = ok
       else live1 = ok
     }
@@ -244,12 +291,13 @@ function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number]
       const x = hs[a]!
       const hLx = hL.slice()
       hLx[nL] = x
-      const left = side(ctx, kL, hLx, 'angle', legsL)
+      const left = side(ctx, kL, hLx, 'angle', legsL, cL)
       if (F.isZero(left.value)) continue
       const hRx = hR.slice()
       hRx[nR] = -x
-      const right = side(ctx, kR, hRx, 'square', legsR)
-      const tv = F.div(F.mul(left.value, right.value), P2)
+      const right = side(ctx, kR, hRx, 'square', legsR, cR)
+      let tv = F.div(F.mul(left.value, right.value), P2)
+      if (cInt !== GLUON_PDG && fermionSign(cInt, x) < 0) tv = F.neg(tv)
       value = F.add(value, tv)
       if (wantTerms) {
         terms.push({
@@ -272,27 +320,35 @@ interface SideResult<T> {
   node?: SubAmplitude<T> | Vertex<T>
 }
 
-function side<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], kind: VertexKind, legs: LegRef[] | undefined): SideResult<T> {
+function side<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], kind: VertexKind, legs: LegRef[] | undefined, c?: number[]): SideResult<T> {
   const { F, p } = ctx
   if (h.length === 3) {
-    const value = threePoint(F, p, k, h, kind)
+    const value = threePoint(F, p, k, h, kind, undefined, c)
     if (ctx.tree) {
       if (++ctx.nodes > ctx.maxNodes) throw new PhysicsError('tree', `the term tree has more than ${ctx.maxNodes} nodes; ask for tree: false`)
       return { value, node: { kind, legs: legs!, helicities: h, value } }
     }
     return { value }
   }
-  if (!ctx.tree) return { value: amplitudeValue(ctx, k, h) }
-  const shift = defaultShift(p, h)
+  if (!ctx.tree) return { value: amplitudeValue(ctx, k, h, c) }
+  const shift = defaultShift(p, h, c)
   if (++ctx.nodes > ctx.maxNodes) throw new PhysicsError('tree', `the term tree has more than ${ctx.maxNodes} nodes; ask for tree: false`)
-  if (vanishes(p, h)) return { value: F.zero, node: { value: F.zero, shift: [shift[0] + 1, shift[1] + 1], legs: legs!, helicities: h, terms: [] } }
-  const r = bcfwSum(ctx, k, h, shift, legs, true)
+  if (vanishes(p, h, c)) return { value: F.zero, node: { value: F.zero, shift: [shift[0] + 1, shift[1] + 1], legs: legs!, helicities: h, terms: [] } }
+  const r = bcfwSum(ctx, k, h, shift, legs, true, false, c)
   return { value: r.value, node: { value: r.value, shift: [shift[0] + 1, shift[1] + 1], legs: legs!, helicities: h, terms: r.terms } }
 }
 
-function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[]): T {
+function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], c?: number[]): T {
   const { F, p } = ctx
-  if (ctx.closedForms && p.theory === 'gluon') {
+  if (c && c.some((x) => x !== GLUON_PDG)) {
+    if (vanishes(p, h, c)) return F.zero
+    if (ctx.closedForms) {
+      const v = quarkMhvValue(F, k, h, c)
+      if (v !== null) return v
+    }
+    return subSum(ctx, k, h, defaultShift(p, h, c), c)
+  }
+  if (ctx.closedForms && (p.theory === 'gluon' || p.theory === 'qcd')) {
     // one pass: the two minus (MHV) or two plus (anti-MHV) legs, or a vanishing class
     const n = h.length
     let minus = 0
@@ -368,16 +424,16 @@ function cheapestSubsetShift(p: Process, h: number[]): [number, number] {
  * so when that shift meets a spurious singularity — a pole or bracket of its own terms vanishing
  * exactly, which small rationals can hit by accident — the other valid shifts are tried in turn.
  */
-function subSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], first: [number, number]): T {
+function subSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], first: [number, number], c?: number[]): T {
   try {
-    return bcfwSum(ctx, k, h, first, undefined, false).value
+    return bcfwSum(ctx, k, h, first, undefined, false, false, c).value
   } catch (e) {
     if (!(e instanceof SingularError)) throw e
     const n = h.length
     for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
-      if (i === j || (i === first[0] && j === first[1]) || !isValidShift(ctx.p, h, i, j)) continue
+      if (i === j || (i === first[0] && j === first[1]) || !isValidShift(ctx.p, h, i, j, c)) continue
       try {
-        return bcfwSum(ctx, k, h, [i, j], undefined, false).value
+        return bcfwSum(ctx, k, h, [i, j], undefined, false, false, c).value
       } catch (e2) {
         if (!(e2 instanceof SingularError)) throw e2
       }
@@ -449,22 +505,23 @@ export function bcfw<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], shift: 
     nodes: 0,
     maxNodes: opts.maxNodes ?? DEFAULT_MAX_TREE_NODES,
   }
-  if (vanishes(p, h)) return { value: F.zero, terms: [] }
+  const c = opts.pdg ?? (p.pdg && p.pdg.length === h.length ? p.pdg : undefined)
+  if (vanishes(p, h, c)) return { value: F.zero, terms: [] }
   const legs: LegRef[] = h.map((_, t) => ({ label: t + 1 }))
-  return bcfwSum(ctx, k, h, shift, legs, true, true)
+  return bcfwSum(ctx, k, h, shift, legs, true, true, c)
 }
 
 /**
  * A sub-amplitude's value as the recursion computes one below the top (closed forms, the cheapest
  * valid shift): what a Block stands for.
  */
-export function subAmplitudeValue<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[]): T {
+export function subAmplitudeValue<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], pdg?: number[]): T {
   if (h.length === 3) throw new PhysicsError('helicities', 'a three-point amplitude is a vertex, not a block')
   const ctx: Ctx<T> = { F, p, tree: false, closedForms: true, lines: 0, nodes: 0, maxNodes: DEFAULT_MAX_TREE_NODES }
-  return amplitudeValue(ctx, k, h)
+  return amplitudeValue(ctx, k, h, pdg)
 }
 
 /** The amplitude value only (default shift at the top), the fast path used by the other modules. */
-export function bcfwValue<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], shift?: [number, number]): T {
-  return bcfw(F, p, k, h, shift ?? defaultShift(p, h)).value
+export function bcfwValue<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], shift?: [number, number], pdg?: number[]): T {
+  return bcfw(F, p, k, h, shift ?? defaultShift(p, h, pdg), { pdg }).value
 }

@@ -4,9 +4,10 @@
 // derive from it; adding a theory is adding an entry (DEVELOPERS.md "Adding a theory").
 import { PhysicsError } from './errors'
 import type { Arithmetic } from './field'
+import { QCD_SPECIES, qcdDefaultShift, qcdFalloff, qcdVanishes, checkQcdSpecies, pdgOfSpecies, speciesOfPdg } from './quarks'
 
 /** The theory names, in catalogue order (a tuple so zod can build its enum from it). */
-export const THEORY_NAMES = ['gluon', 'graviton', 'scalar-cubic', 'spin'] as const
+export const THEORY_NAMES = ['gluon', 'graviton', 'scalar-cubic', 'spin', 'qcd'] as const
 export type TheoryName = (typeof THEORY_NAMES)[number]
 
 /** A particle species a theory's legs may carry. */
@@ -158,6 +159,22 @@ export const THEORIES: Record<TheoryName, TheoryInfo> = {
     defaultShift: firstMinusShift,
     vanishes: (legs, s) => s === 2 && helicityVanishing(legs),
   },
+  qcd: {
+    name: 'qcd',
+    amplitudeLatex: 'A',
+    particles: 'gluons and massless quarks',
+    label: 'QCD: gluons and massless quarks (colour-ordered)',
+    species: QCD_SPECIES,
+    colourOrdered: true,
+    limits: { float: 10, exact: 8, measure: 7 },
+    minLegs: 4,
+    needsSpin: false,
+    helicityRule: 'gluons ±1, quarks and antiquarks ±1/2; each quark line q_f, qbar_f once per flavour, at most two lines',
+    falloff: qcdFalloff,
+    validShift: (legs, i, j) => (qcdFalloff(legs, i, j) ?? 0) < 0,
+    defaultShift: qcdDefaultShift,
+    vanishes: qcdVanishes,
+  },
 }
 
 /** Largest spin s offered for theory `spin` (the bracket powers grow like 3s). */
@@ -192,10 +209,10 @@ export function pdgOf(theory: TheoryName): number | null {
   return sp.length === 1 ? sp[0]!.pdg : null
 }
 
-/** The legs of a single-species process from its helicities (the request's wire format). */
-export function legsOf(theory: TheoryName, helicities: readonly number[]): Leg[] {
-  const species = THEORIES[theory].species[0]!.name
-  return helicities.map((h) => ({ species, h }))
+/** The legs of a process from its helicities and, for several species, the species per leg (else the first). */
+export function legsOf(theory: TheoryName, helicities: readonly number[], species?: readonly string[]): Leg[] {
+  const first = THEORIES[theory].species[0]!.name
+  return helicities.map((h, t) => ({ species: species?.[t] ?? first, h }))
 }
 
 /** A process: theory, the spin s its particles carry (gluon 1, graviton 2, scalar 0), its legs. */
@@ -206,17 +223,26 @@ export interface Process {
   colourOrdered: boolean
   /** Species and helicity per external leg (validateProcess fills them). */
   legs?: Leg[]
+  /** Several species (qcd): the PDG code per external leg (21 gluon, ±1..±6 quarks). */
+  pdg?: number[]
 }
 
-export function processOf(theory: TheoryName, spin?: number, helicities?: readonly number[]): Process {
+export function processOf(theory: TheoryName, spin?: number, helicities?: readonly number[], species?: readonly string[]): Process {
   const info = THEORIES[theory]
   const s = spinOf(theory, spin) as number
-  return { theory, s, colourOrdered: info.colourOrdered, ...(helicities ? { legs: legsOf(theory, helicities) } : {}) }
+  const legs = helicities ? legsOf(theory, helicities, species) : undefined
+  const pdg = legs && info.species.length > 1 ? legs.map((l) => pdgOfSpecies(l.species)) : undefined
+  return { theory, s, colourOrdered: info.colourOrdered, ...(legs ? { legs } : {}), ...(pdg ? { pdg } : {}) }
 }
 
 /** Checks the process before any work (422s name the field), returns warnings. */
-export function validateProcess(theory: TheoryName, helicities: number[], arithmetic: Arithmetic, spin?: number): { process: Process; warnings: string[] } {
+export function validateProcess(theory: TheoryName, helicities: number[], arithmetic: Arithmetic, spin?: number, species?: readonly string[]): { process: Process; warnings: string[] } {
   const warnings: string[] = []
+  if (species !== undefined && THEORIES[theory].species.length === 1) {
+    const only = THEORIES[theory].species[0]!.name
+    const bad = species.findIndex((x) => x !== only)
+    if (bad >= 0) throw new PhysicsError(`species[${bad}]`, `theory ${theory} has only the species ${only}, got ${species[bad]}`)
+  }
   const n = helicities.length
   const info = THEORIES[theory]
   if (info.needsSpin) {
@@ -237,6 +263,12 @@ export function validateProcess(theory: TheoryName, helicities: number[], arithm
   if (n < info.minLegs) throw new PhysicsError('helicities', `at least ${info.minLegs} legs are needed for on-shell recursion, got ${n}`)
   const limit = info.limits[arithmetic]
   if (n > limit) throw new PhysicsError('helicities', `${n} legs exceed the limit of ${limit} for ${info.label} in ${arithmetic} arithmetic`)
+  if (species !== undefined && species.length !== n) throw new PhysicsError('species', `${species.length} species given for ${n} helicities`)
+  if (theory === 'qcd') {
+    const process = processOf(theory, spin, helicities, species)
+    warnings.push(...checkQcdSpecies(process.legs!))
+    return { process, warnings }
+  }
   const process = processOf(theory, spin, helicities)
   helicities.forEach((h, i) => {
     if (Math.abs(h) !== process.s || (process.s === 0 && h !== 0)) {
@@ -247,28 +279,33 @@ export function validateProcess(theory: TheoryName, helicities: number[], arithm
   return { process, warnings }
 }
 
-// The helpers below take helicities (any sub-amplitude's, not only the process's external legs);
-// a theory with several species calls its entry's rules with the legs instead.
-const legsFor = (p: Process, helicities: readonly number[]) => legsOf(p.theory, helicities)
+// The helpers below take helicities (any sub-amplitude's, not only the process's external legs)
+// and, for several species, the PDG codes of the same legs (default: the process's own, when the
+// lengths match).
+function legsFor(p: Process, helicities: readonly number[], pdg?: readonly number[]): Leg[] {
+  const codes = pdg ?? (p.pdg && p.pdg.length === helicities.length ? p.pdg : undefined)
+  if (!codes) return legsOf(p.theory, helicities)
+  return helicities.map((h, t) => ({ species: speciesOfPdg(codes[t]!), h }))
+}
 
 /** Tree-level vanishing by the theory's rule (gluons, gravitons: the helicity classes). */
-export function vanishes(p: Process, helicities: readonly number[]): boolean {
-  return THEORIES[p.theory].vanishes(legsFor(p, helicities), p.s)
+export function vanishes(p: Process, helicities: readonly number[], pdg?: readonly number[]): boolean {
+  return THEORIES[p.theory].vanishes(legsFor(p, helicities, pdg), p.s)
 }
 
 /** Validity of the [i,j⟩ shift (0-based) by the falloff table (docs/conventions.md "Falloff"). */
-export function isValidShift(p: Process, helicities: readonly number[], i: number, j: number): boolean {
-  return THEORIES[p.theory].validShift(legsFor(p, helicities), i, j)
+export function isValidShift(p: Process, helicities: readonly number[], i: number, j: number, pdg?: readonly number[]): boolean {
+  return THEORIES[p.theory].validShift(legsFor(p, helicities, pdg), i, j)
 }
 
 /** Large-z exponent of A(z) under [i,j⟩ by the table; null where it has no entry (spin s ≠ 2). */
-export function tableExponent(p: Process, helicities: readonly number[], i: number, j: number): number | null {
-  return THEORIES[p.theory].falloff(legsFor(p, helicities), i, j)
+export function tableExponent(p: Process, helicities: readonly number[], i: number, j: number, pdg?: readonly number[]): number | null {
+  return THEORIES[p.theory].falloff(legsFor(p, helicities, pdg), i, j)
 }
 
 /** The default shift (0-based) by the theory's rule. */
-export function defaultShift(p: Process, helicities: readonly number[]): [number, number] {
-  return THEORIES[p.theory].defaultShift(legsFor(p, helicities))
+export function defaultShift(p: Process, helicities: readonly number[], pdg?: readonly number[]): [number, number] {
+  return THEORIES[p.theory].defaultShift(legsFor(p, helicities, pdg))
 }
 
 /** Checks a user's 1-based shift, returns it 0-based. */

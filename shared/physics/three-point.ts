@@ -6,6 +6,7 @@ import { SingularError, negligible, spinorSize, type Field } from './field'
 import { PhysicsError } from './errors'
 import { angleOf, squareOf, type Kin, type Spinor } from './spinors'
 import type { Process } from './theories'
+import { GLUON_PDG } from './quarks'
 
 export type VertexKind = 'angle' | 'square'
 
@@ -59,8 +60,9 @@ export function threePointFormula<T>(F: Field<T>, k: Kin<T>, h: readonly number[
  * Σh < 0, the square vertex Σh > 0 (Σh = 0 only for scalars, which couple on both kinds); pure
  * gluon, graviton and spin-s theories have no (−−−) or (+++) vertex.
  */
-export function threePointSurvives(p: Process, h: readonly number[], kind: VertexKind): boolean {
+export function threePointSurvives(p: Process, h: readonly number[], kind: VertexKind, pdg?: readonly number[]): boolean {
   const sum = h[0]! + h[1]! + h[2]!
+  if (pdg && quarkVertex(pdg, h) === null) return false
   if (p.s === 0) return sum === 0
   if ((h[0]! > 0 && h[1]! > 0 && h[2]! > 0) || (h[0]! < 0 && h[1]! < 0 && h[2]! < 0)) return false
   return kind === 'angle' ? sum < 0 : sum > 0
@@ -71,11 +73,32 @@ export function threePointSurvives(p: Process, h: readonly number[], kind: Verte
  * holding î is an angle vertex, the side holding ĵ a square vertex), never by a float threshold;
  * the other kind vanishes there identically.
  */
-export function threePoint<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number[], kind: VertexKind, coupling?: T): T {
-  if (!threePointSurvives(p, h, kind)) return F.zero
+export function threePoint<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number[], kind: VertexKind, coupling?: T, pdg?: readonly number[]): T {
+  if (!threePointSurvives(p, h, kind, pdg)) return F.zero
   if (p.s === 0) return coupling ?? F.one
+  if (pdg && quarkVertex(pdg, h) === 'quark') return threePointFormula(F, k, h, kind, QUARK_SIGMA[kind], coupling)
   return threePointFormula(F, k, h, kind, sigmaOf(p), coupling)
 }
+
+/**
+ * The vertices of massless QCD among three legs with PDG codes: three gluons, or q̄_f q_f g with
+ * opposite helicities on the quark line (a vector coupling conserves helicity); null when none.
+ */
+export function quarkVertex(pdg: readonly number[], h: readonly number[]): 'gluon' | 'quark' | null {
+  const g = pdg.filter((c) => c === GLUON_PDG).length
+  if (g === 3) return 'gluon'
+  if (g !== 1) return null
+  const q = [0, 1, 2].filter((t) => pdg[t] !== GLUON_PDG)
+  if (pdg[q[0]!]! !== -pdg[q[1]!]!) return null
+  return h[q[0]!] === -h[q[1]!]! ? 'quark' : null
+}
+
+/**
+ * The sign of the q̄qg block per kind, read off the quark-line Berends–Giele current at
+ * three-point kinematics (docs/conventions.md "Quarks"; "q̄qg blocks" in
+ * physics/quarks-three-point.test.ts).
+ */
+export const QUARK_SIGMA: Record<VertexKind, number> = { angle: 1, square: -1 }
 
 /**
  * Bose symmetry of the block: (A3 of gluons)^s picks up (−1)^s under exchange of two identical

@@ -21,7 +21,7 @@ import { checkTargetPoint } from './parke-taylor'
 import { angleOf } from '../spinors'
 import { solveLastTwo } from '../kinematics'
 
-type Quad<T> = [T, T, T, T]
+export type Quad<T> = [T, T, T, T]
 
 export interface BerendsGieleOptions {
   /**
@@ -70,7 +70,7 @@ function tooSmall<T>(F: Field<T>, bracket: T, q: Spinor<T>, s: Spinor<T>): boole
 }
 
 /** The rescaled polarizations ε′ of every leg, with the reference spinors of `opts`. */
-function polarizations<T>(F: Field<T>, k: Kin<T>, helicities: readonly number[], opts?: BerendsGieleOptions): Quad<T>[] {
+export function polarizations<T>(F: Field<T>, k: Kin<T>, helicities: readonly number[], opts?: BerendsGieleOptions): Quad<T>[] {
   const n = helicities.length
   const firstMinus = helicities.indexOf(-1)
   const firstPlus = helicities.indexOf(1)
@@ -115,7 +115,7 @@ function polarizations<T>(F: Field<T>, k: Kin<T>, helicities: readonly number[],
 }
 
 /** t(v,w) = 2 v·w = V00 W11 + V11 W00 − V01 W10 − V10 W01. */
-function tdot<T>(F: Field<T>, v: Quad<T>, w: Quad<T>): T {
+export function tdot<T>(F: Field<T>, v: Quad<T>, w: Quad<T>): T {
   return F.sub(F.add(F.mul(v[0], w[3]), F.mul(v[3], w[0])), F.add(F.mul(v[1], w[2]), F.mul(v[2], w[1])))
 }
 
@@ -133,8 +133,16 @@ function axpy<T>(F: Field<T>, acc: Quad<T>, c: T, v: Quad<T>): void {
  */
 export function berendsGiele<T>(F: Field<T>, k: Kin<T>, helicities: number[], opts?: BerendsGieleOptions): T {
   checkGluons(k, helicities)
-  const n = helicities.length
-  if ((F as unknown) === complexField && opts?.precision !== 'double') {
+  return withDoubleDouble(F, k, opts?.precision, (G, kk) => recursion(G, kk, helicities, opts))
+}
+
+/**
+ * Runs an off-shell recursion in double-double when F is the complex double field (unless
+ * 'double' is asked), else in F itself.
+ */
+export function withDoubleDouble<T>(F: Field<T>, k: Kin<T>, precision: 'double' | 'double-double' | undefined, run: <U>(G: Field<U>, k: Kin<U>) => U): T {
+  if ((F as unknown) === complexField && precision !== 'double') {
+    const n = k.lambda.length
     const kc = k as unknown as Kin<Complex>
     const toDD = (s: Spinor<Complex>): Spinor<DD> => [ddOf(s[0].re, s[0].im), ddOf(s[1].re, s[1].im)]
     let kd: Kin<DD> = { lambda: kc.lambda.map(toDD), lambdaTilde: kc.lambdaTilde.map(toDD) }
@@ -142,16 +150,26 @@ export function berendsGiele<T>(F: Field<T>, k: Kin<T>, helicities: number[], op
     // conserves only to rounding. Re-solving the last two λ̃ in double-double moves the point by
     // rounding size onto the surface (to ~1e-32), as the engine does for given momenta.
     if (!ddField.isZero(angleOf(ddField, kd.lambda[n - 2]!, kd.lambda[n - 1]!))) kd = solveLastTwo(ddField, kd)
-    const v = recursion(ddField, kd, helicities, opts)
+    const v = run(ddField, kd)
     return new Complex(v.rh + v.rl, v.ih + v.il) as unknown as T
   }
-  return recursion(F, k, helicities, opts)
+  return run(F, k)
 }
 
 function recursion<T>(F: Field<T>, k: Kin<T>, helicities: number[], opts?: BerendsGieleOptions): T {
   const n = helicities.length
-  const m = n - 1 // currents over the legs 0..m−1; the last leg closes the amplitude
   const eps = polarizations(F, k, helicities, opts)
+  const { top } = gluonCurrents(F, k, eps, n - 1, true)
+  // A = 2 ε′_n · [P² J′] = 2 ε′_n · (S/2) = t(ε′_n, S)/2.
+  return F.div(tdot(F, eps[n - 1]!, top), F.fromInt(2))
+}
+
+/**
+ * The currents J′ of every interval a..b of the first m legs of k (index a*m+b), from their
+ * polarizations; with `openTop` the full interval keeps its vertex sum S (= 2P²J′) undivided,
+ * returned as `top`.
+ */
+export function gluonCurrents<T>(F: Field<T>, k: Kin<T>, eps: readonly Quad<T>[], m: number, openTop = false): { cur: Quad<T>[]; mom: Quad<T>[]; top: Quad<T> } {
   const Z = F.zero
   const two = F.fromInt(2)
 
@@ -213,7 +231,7 @@ function recursion<T>(F: Field<T>, k: Kin<T>, helicities: number[], opts?: Beren
         }
         for (let c2 = a + 1; c2 <= b - 1; c2++) axpy(F, S, F.neg(c3[c2]!), cur[(c2 + 1) * m + b]!)
       }
-      if (len === m) {
+      if (len === m && openTop) {
         top = S
         break
       }
@@ -226,6 +244,5 @@ function recursion<T>(F: Field<T>, k: Kin<T>, helicities: number[], opts?: Beren
       pj[a * m + b] = tdot(F, P, J)
     }
   }
-  // A = 2 ε′_n · [P² J′] = 2 ε′_n · (S/2) = t(ε′_n, S)/2.
-  return F.div(tdot(F, eps[n - 1]!, top), two)
+  return { cur, mom, top }
 }

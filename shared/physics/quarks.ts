@@ -1,0 +1,118 @@
+// Massless QCD: gluons and quarks of six flavours, colour-ordered primitive amplitudes
+// (docs/conventions.md "Quarks"). Legs carry PDG codes: 21 gluon, f = 1..6 a quark of flavour f,
+// −f its antiquark. Everything a theory entry needs for several species lives here.
+import { PhysicsError } from './errors'
+import type { Leg, Species } from './theories'
+
+export const GLUON_PDG = 21
+export const MAX_FLAVOUR = 6
+/** Quark lines a process may hold (one per flavour). */
+export const MAX_QUARK_LINES = 2
+
+const FLAVOURS = Array.from({ length: MAX_FLAVOUR }, (_, t) => t + 1)
+
+/** The species of the qcd theory, gluon first (its spin is the process's `s`). */
+export const QCD_SPECIES: Species[] = [
+  { name: 'g', spin: 1, colourOrdered: true, pdg: GLUON_PDG, latex: 'g' },
+  ...FLAVOURS.map((f) => ({ name: `q${f}`, spin: 1 / 2, colourOrdered: true, pdg: f, latex: `q_{${f}}` })),
+  ...FLAVOURS.map((f) => ({ name: `qbar${f}`, spin: 1 / 2, colourOrdered: true, pdg: -f, latex: `\\bar q_{${f}}` })),
+]
+
+const BY_NAME = new Map(QCD_SPECIES.map((s) => [s.name, s]))
+const BY_PDG = new Map(QCD_SPECIES.map((s) => [s.pdg!, s.name]))
+// single-species theories keep their names (a gluon leg of theory gluon is "gluon")
+BY_NAME.set('gluon', { ...QCD_SPECIES[0]!, name: 'gluon' })
+
+/** PDG code of a species name (gluon names of both theories give 21). */
+export function pdgOfSpecies(name: string): number {
+  const s = BY_NAME.get(name)
+  if (!s) throw new PhysicsError('species', `unknown species ${name}`)
+  return s.pdg!
+}
+
+export function speciesOfPdg(code: number): string {
+  const s = BY_PDG.get(code)
+  if (!s) throw new PhysicsError('species', `no species has the particle code ${code}`)
+  return s
+}
+
+export const isQuarkCode = (c: number) => c !== GLUON_PDG && Math.abs(c) >= 1 && Math.abs(c) <= MAX_FLAVOUR
+
+/** Checks the species and helicities of a qcd process (422s name the field); returns warnings. */
+export function checkQcdSpecies(legs: readonly Leg[]): string[] {
+  const seen = new Map<number, number>()
+  legs.forEach((l, t) => {
+    const s = BY_NAME.get(l.species)
+    if (!s || l.species === 'gluon') throw new PhysicsError(`species[${t}]`, `unknown species ${l.species} (g, q1..q6, qbar1..qbar6)`)
+    if (Math.abs(l.h) !== s.spin) throw new PhysicsError(`helicities[${t}]`, `a ${s.spin === 1 ? 'gluon' : 'quark'} has helicity ${s.spin === 1 ? '±1' : '±1/2'}, got ${l.h}`)
+    if (s.pdg !== GLUON_PDG) {
+      if (seen.has(s.pdg!)) throw new PhysicsError(`species[${t}]`, `${l.species} appears twice; each flavour forms at most one quark line`)
+      seen.set(s.pdg!, t)
+    }
+  })
+  for (const [c, t] of seen) if (!seen.has(-c)) throw new PhysicsError(`species[${t}]`, `${speciesOfPdg(c)} has no partner ${speciesOfPdg(-c)}: a quark line needs both ends`)
+  if (seen.size > 2 * MAX_QUARK_LINES) throw new PhysicsError('species', `at most ${MAX_QUARK_LINES} quark lines are offered, got ${seen.size / 2}`)
+  const warnings: string[] = []
+  for (const [c, t] of seen) if (c > 0 && legs[seen.get(-c)!]!.h === legs[t]!.h) warnings.push(`the quark line of flavour ${c} has equal helicities at both ends, so the amplitude vanishes (helicity is conserved along a massless quark line)`)
+  return warnings
+}
+
+const codeOf = (l: Leg) => pdgOfSpecies(l.species)
+
+/**
+ * Zero at tree level: a quark line with equal helicities at its two (outgoing) ends, or n ≥ 4
+ * with fewer than two negative or two positive helicities (supersymmetric Ward identities,
+ * common practice).
+ */
+export function qcdVanishes(legs: readonly Leg[]): boolean {
+  const n = legs.length
+  const hOf = new Map<number, number>()
+  let minus = 0
+  for (const l of legs) {
+    const c = codeOf(l)
+    if (c !== GLUON_PDG) {
+      const other = hOf.get(-c)
+      if (other !== undefined && other === l.h) return true
+      hOf.set(c, l.h)
+    }
+    if (l.h < 0) minus++
+  }
+  return n >= 4 && (minus < 2 || n - minus < 2)
+}
+
+function adjacent(n: number, i: number, j: number): boolean {
+  return (i - j + n) % n === 1 || (j - i + n) % n === 1
+}
+
+/**
+ * The rise above the gluon base (−1 adjacent, −2 not) of A(z) under [i,j⟩, by the helicity type of
+ * leg i (λ̃ shifted) and leg j (λ shifted): g± a gluon, f± a quark or antiquark (the same for both).
+ * Measured by the exact probe with the quark-line Berends–Giele current as A(z) at n = 5, 6, for
+ * every position of the line (docs/conventions.md "Falloff"); [f±, f±⟩ (two lines) has no entry.
+ */
+export const QCD_FALLOFF_RISE: Record<string, number> = {
+  'g-g-': 0, 'g-g+': 0, 'g-f-': 0, 'g-f+': 0,
+  'g+g+': 0, 'g+g-': 4, 'g+f+': 1, 'g+f-': 3,
+  'f+g+': 0, 'f+g-': 3, 'f+f-': 3,
+  'f-g+': 0, 'f-g-': 1, 'f-f+': 1,
+}
+
+const typeOf = (l: Leg) => `${isQuarkCode(codeOf(l)) ? 'f' : 'g'}${l.h > 0 ? '+' : '-'}`
+
+/** Large-z exponent of A(z) under [i,j⟩ (0-based) by the measured table; null where it has none. */
+export function qcdFalloff(legs: readonly Leg[], i: number, j: number): number | null {
+  const rise = QCD_FALLOFF_RISE[typeOf(legs[i]!) + typeOf(legs[j]!)]
+  if (rise === undefined) return null
+  return (adjacent(legs.length, i, j) ? -1 : -2) + rise
+}
+
+/** [i, i+1⟩ from the first negative leg when valid, else the first valid adjacent, else any valid pair. */
+export function qcdDefaultShift(legs: readonly Leg[]): [number, number] {
+  const n = legs.length
+  const ok = (i: number, j: number) => (qcdFalloff(legs, i, j) ?? 0) < 0
+  const m = legs.findIndex((l) => l.h < 0)
+  if (m >= 0 && ok(m, (m + 1) % n)) return [m, (m + 1) % n]
+  for (let a = 0; a < n; a++) for (const [i, j] of [[a, (a + 1) % n], [(a + 1) % n, a]] as [number, number][]) if (ok(i, j)) return [i, j]
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) if (i !== j && ok(i, j)) return [i, j]
+  return [0, 1]
+}
