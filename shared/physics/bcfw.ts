@@ -87,17 +87,11 @@ export function internalSpecies(c: readonly number[], L: readonly number[]): num
 }
 
 /**
- * Fermion sign of a term with a quark exchanged (docs/conventions.md "Quarks"): with −P̂ carried by
- * (λ_P, −λ̃_P) on A_L, the exchanged quark's two helicity states enter with these signs, keyed by
- * whether A_L's internal leg is the quark (PDG > 0) and by its helicity. Fixed against the
- * quark-line Berends–Giele current ("fermion signs" in physics/quarks-bcfw.test.ts).
+ * Every term with a quark exchanged carries −1 (docs/conventions.md "Quarks"), whatever the
+ * exchanged helicity and whichever side holds the quark: with −P̂ as (λ_P, −λ̃_P) this is what the
+ * quark-line Berends–Giele current gives ("fermion sign" in physics/quarks-bcfw.test.ts).
  */
-export const FERMION_SIGN = { quarkOnLeft: { plus: 1, minus: 1 }, antiquarkOnLeft: { plus: 1, minus: 1 } }
-
-function fermionSign(cInt: number, x: number): number {
-  const s = cInt > 0 ? FERMION_SIGN.quarkOnLeft : FERMION_SIGN.antiquarkOnLeft
-  return x > 0 ? s.plus : s.minus
-}
+export const FERMION_EXCHANGE_SIGN = -1
 
 /** Rank-one split P̂ = λ_P λ̃_Pᵀ from its largest entry (r, c): λ_P = column c, λ̃_P = row r / P̂_rc. */
 export function splitRankOne<T>(F: Field<T>, P: Bispinor<T>): { lambda: Spinor<T>; lambdaTilde: Spinor<T> } {
@@ -297,7 +291,7 @@ function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number]
       hRx[nR] = -x
       const right = side(ctx, kR, hRx, 'square', legsR, cR)
       let tv = F.div(F.mul(left.value, right.value), P2)
-      if (cInt !== GLUON_PDG && fermionSign(cInt, x) < 0) tv = F.neg(tv)
+      if (cInt !== GLUON_PDG && FERMION_EXCHANGE_SIGN < 0) tv = F.neg(tv)
       value = F.add(value, tv)
       if (wantTerms) {
         terms.push({

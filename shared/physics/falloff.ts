@@ -11,6 +11,8 @@ import { classifyGluon, parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/par
 import { berendsGiele } from './targets/berends-giele'
 import { cubicScalarAllChannels, cubicScalarFeynman } from './targets/cubic-scalar'
 import { PhysicsError } from './errors'
+import { quarkLine, quarkLineBerendsGiele } from './targets/quark-line'
+import { GLUON_PDG } from './quarks'
 import { defaultShift, isValidShift, processOf, tableExponent, vanishes, type Process, type TheoryName } from './theories'
 
 /** The probe points z = 10^6, 10^7, 10^8 (exact, so size costs only digits): O(1/z) corrections stay far below 0.5. */
@@ -74,7 +76,9 @@ export function alternativeShift(p: Process, h: readonly number[], i: number, j:
  * species; else BCFW under another valid shift.
  */
 function amplitudeIn<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], alt: [number, number] | null): T {
-  if (p.theory === 'gluon') {
+  // one quark line: its Berends–Giele current, independent of any shift
+  if (p.pdg && quarkLine(p.pdg)) return quarkLineBerendsGiele(F, k, h, p.pdg)
+  if (p.theory === 'gluon' || (p.theory === 'qcd' && p.pdg?.every((c) => c === GLUON_PDG) !== false)) {
     const c = classifyGluon(h)
     if (c.kind === 'mhv') return parkeTaylorMhv(F, k, c.i, c.j)
     if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(F, k, c.i, c.j)
@@ -92,9 +96,9 @@ function amplitudeIn<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], alt: [n
  * form is cheaper in rationals; big rationals when the primes meet an exact zero (a retry follows).
  */
 function amplitudeAt(p: Process, k: Kin<Fraction>, h: number[], alt: [number, number] | null): Fraction {
-  const c = p.theory === 'gluon' ? classifyGluon(h).kind : null
+  const c = p.theory === 'gluon' || (p.theory === 'qcd' && !p.pdg?.some((x) => x !== GLUON_PDG)) ? classifyGluon(h).kind : null
   if (c === 'mhv' || c === 'anti-mhv') return amplitudeIn(Q, p, k, h, alt)
-  const r = byPrimes(k, (F, km) => ({ shape: '', values: [amplitudeIn(F, p, km, h, alt)], info: null }), { key: `falloff:${p.theory}:${p.s}:${h.join(',')}:${alt?.join(',') ?? '-'}` })
+  const r = byPrimes(k, (F, km) => ({ shape: '', values: [amplitudeIn(F, p, km, h, alt)], info: null }), { key: `falloff:${p.theory}:${p.s}:${h.join(',')}:${p.pdg?.join(',') ?? ''}:${alt?.join(',') ?? '-'}` })
   return r ? r.values[0]! : amplitudeIn(Q, p, k, h, alt)
 }
 

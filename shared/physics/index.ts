@@ -167,15 +167,15 @@ interface Computed<T> {
 
 type ResolvedTarget = { kind: 'none' } | { kind: 'named'; name: TargetName } | { kind: 'formula'; formula: CompiledFormula }
 
-function resolveTarget(target: EvaluateRequestInput['target'], theory: Process['theory'], helicities: number[], spin?: number): ResolvedTarget {
+function resolveTarget(target: EvaluateRequestInput['target'], theory: Process['theory'], helicities: number[], spin?: number, pdg?: number[]): ResolvedTarget {
   const t = target ?? 'auto'
   if (typeof t === 'object') return { kind: 'formula', formula: compileFormula(t.formula, helicities.length) }
   if (t === 'none') return { kind: 'none' }
   if (t === 'auto') {
-    const a = autoTarget(theory, helicities, spin)
+    const a = autoTarget(theory, helicities, spin, pdg)
     return a ? { kind: 'named', name: a } : { kind: 'none' }
   }
-  if (!applicableTargets(theory, helicities, spin).includes(t)) {
+  if (!applicableTargets(theory, helicities, spin, pdg).includes(t)) {
     throw new PhysicsError('target', `${t} does not apply to ${theory === 'spin' ? `spin ${spin}` : theory} with helicities [${helicities.join(', ')}]`)
   }
   return { kind: 'named', name: t }
@@ -187,9 +187,10 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   const req = EvaluateRequestSchema.parse(input)
   const { theory, helicities, arithmetic } = req
   const n = helicities.length
-  const { process: p, warnings } = validateProcess(theory, helicities, arithmetic, req.spin)
+  const { process: p, warnings } = validateProcess(theory, helicities, arithmetic, req.spin, req.species)
+  const pdg = p.pdg
   const shift = req.shift ? checkShift(req.shift as [number, number], n) : defaultShift(p, helicities)
-  const target = resolveTarget(req.target, theory, helicities, req.spin)
+  const target = resolveTarget(req.target, theory, helicities, req.spin, pdg)
   const point = buildPoint(req.kinematics, n, arithmetic)
   warnings.push(...point.warnings)
   const modular = arithmetic === 'exact' && !req.tree && (req.exact?.backend ?? 'modular') === 'modular'
@@ -198,7 +199,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   else {
     const kd = point.kin as Kin<Complex>
     const condition = conditionRatio(complexField, kd)
-    if (p.theory !== 'gluon') body = run(ddField, toDoubleDouble(kd), 'double-double', condition) // see toDoubleDouble
+    if (p.theory !== 'gluon' && p.theory !== 'qcd') body = run(ddField, toDoubleDouble(kd), 'double-double', condition) // see toDoubleDouble
     else if (condition < POOR_CONDITION) {
       body = run(ddField, toDoubleDouble(kd), 'double-double', condition)
       body.warnings.push(`the point is poorly conditioned (min |s| / max |s_ij| = ${condition.toExponential(1)}), so the recursion ran in double-double`)
@@ -221,13 +222,13 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
    */
   function computeByPrimes(k: Kin<Fraction>): Computed<Fraction> | null {
     const vanishing = vanishes(p, helicities)
-    const key = `${theory}:${req.spin ?? ''}:${helicities.join(',')}:${shift.join(',')}:${target.kind === 'named' ? target.name : target.kind}:${req.kinematics.kind}`
+    const key = `${theory}:${req.spin ?? ''}:${helicities.join(',')}:${pdg?.join(',') ?? ''}:${shift.join(',')}:${target.kind === 'named' ? target.name : target.kind}:${req.kinematics.kind}`
     const r = byPrimes(
       k,
       (Fp, km) => {
         if (!vanishing && vanishingPole(Fp, p, km)) throw new SingularError('a pole vanishes')
         const b = bcfw(Fp, p, km, helicities, shift)
-        const tv = target.kind === 'none' ? null : target.kind === 'named' ? evaluateTarget(target.name, Fp, km, helicities) : target.formula.evaluate(Fp, km, amplitudeOf)
+        const tv = target.kind === 'none' ? null : target.kind === 'named' ? evaluateTarget(target.name, Fp, km, helicities, pdg) : target.formula.evaluate(Fp, km, amplitudeOf)
         const values = tv === null ? [b.value] : [b.value, tv]
         let shape = ''
         for (const t of b.terms) {
@@ -251,9 +252,10 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
   /** A(σ) for a formula target: this process with its legs in the order σ, by BCFW under the default shift. */
   function amplitudeOf<T>(F: Field<T>, k: Kin<T>, order: number[]): T {
     const h = order.map((t) => helicities[t]!)
-    if (vanishes(p, h)) return F.zero
+    const c = pdg ? order.map((t) => pdg[t]!) : undefined
+    if (vanishes(p, h, c)) return F.zero
     const kk = { lambda: order.map((t) => k.lambda[t]!), lambdaTilde: order.map((t) => k.lambdaTilde[t]!) }
-    return bcfw(F, p, kk, h, defaultShift(p, h)).value
+    return bcfw(F, p, kk, h, defaultShift(p, h, c), { pdg: c }).value
   }
 
   function compute<T>(F: Field<T>, k: Kin<T>): Computed<T> {
@@ -276,7 +278,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
     let targetValue: T | null = null
     if (target.kind !== 'none' && !singular) {
       try {
-        targetValue = target.kind === 'named' ? evaluateTarget(target.name, F, k, helicities) : target.formula.evaluate(F, k, amplitudeOf)
+        targetValue = target.kind === 'named' ? evaluateTarget(target.name, F, k, helicities, pdg) : target.formula.evaluate(F, k, amplitudeOf)
       } catch (e) {
         if (!(e instanceof SingularError)) throw e
         singular = target.kind === 'named' ? `${e.what} in the target ${target.name}` : e.what.replace(/^the formula/, 'the target formula')
@@ -340,6 +342,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       n,
       theory,
       ...(theory === 'spin' ? { spin: req.spin } : {}),
+      ...(req.species ? { species: req.species } : {}),
       shift: [i + 1, j + 1],
       arithmetic,
       value: value === null ? null : (F.toWire(value) as WireComplex),

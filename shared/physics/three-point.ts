@@ -94,11 +94,11 @@ export function quarkVertex(pdg: readonly number[], h: readonly number[]): 'gluo
 }
 
 /**
- * The sign of the q̄qg block per kind, read off the quark-line Berends–Giele current at
- * three-point kinematics (docs/conventions.md "Quarks"; "q̄qg blocks" in
- * physics/quarks-three-point.test.ts).
+ * The sign of the q̄qg block per kind: +1 for both, unlike the gluon square vertex. Read off the
+ * quark-line Berends–Giele current at three-point kinematics (docs/conventions.md "Quarks";
+ * "q̄qg blocks" in physics/quarks-bcfw.test.ts).
  */
-export const QUARK_SIGMA: Record<VertexKind, number> = { angle: 1, square: -1 }
+export const QUARK_SIGMA: Record<VertexKind, number> = { angle: 1, square: 1 }
 
 /**
  * Bose symmetry of the block: (A3 of gluons)^s picks up (−1)^s under exchange of two identical

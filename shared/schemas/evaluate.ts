@@ -37,6 +37,9 @@ export const EvaluateRequestSchema = z.object({
   spin: num.optional(),
   // No upper bound here: a long list is refused with 422 and the limit (docs/api.md), before any work.
   helicities: z.array(num).min(1),
+  // Several species (theory qcd): one name per leg, "g", "q1".."q6", "qbar1".."qbar6"; omitted, every
+  // leg is the theory's first species (a gluon). The engine checks names and lengths (422).
+  species: z.array(z.string().max(16)).optional(),
   kinematics: KinematicsSchema,
   shift: z.tuple([z.number().int(), z.number().int()]).optional(),
   target: z.union([TargetNameEnum, FormulaTarget]).default('auto'),
@@ -91,6 +94,8 @@ export interface EvaluateResponse {
   n: number
   theory: z.output<typeof TheoryEnum>
   spin?: number
+  /** Echoed when the request gave species per leg. */
+  species?: string[]
   shift: [number, number]
   arithmetic: 'float' | 'exact'
   value: WireComplex | null

@@ -9,6 +9,9 @@ import { berendsGiele } from './berends-giele'
 import { hodges, classifyGraviton } from './hodges'
 import { KLT_MAX_N, klt } from './klt'
 import { cubicScalarFeynman } from './cubic-scalar'
+import { quarkLine, quarkLineBerendsGiele } from './quark-line'
+import { classifyQuarkMhv, quarkMhv } from './quark-mhv'
+import { GLUON_PDG } from '../quarks'
 
 import { THEORY_NAMES, type TheoryName } from '../theories'
 
@@ -25,15 +28,22 @@ export interface Target<N extends string = string> {
   source: string
   /** |h| of the particles it takes (helicities are checked against it before `evaluate`). */
   spin: number
-  /** Applies to this process (n ≥ 3, every |h| = spin already checked). */
-  applies(theory: TargetTheory, helicities: readonly number[], spin?: number): boolean
-  /** The target's value at a point (0-based legs). */
-  evaluate<T>(F: Field<T>, k: Kin<T>, helicities: number[]): T
+  /** Applies to this process (n ≥ 3, every |h| = spin already checked; quarks: |h| = 1/2 on quark legs). */
+  applies(theory: TargetTheory, helicities: readonly number[], spin?: number, pdg?: readonly number[]): boolean
+  /** The target's value at a point (0-based legs; pdg: the species of theory qcd). */
+  evaluate<T>(F: Field<T>, k: Kin<T>, helicities: number[], pdg?: readonly number[]): T
+  /** Takes quark legs (|h| = 1/2 where pdg names a quark). */
+  quarks?: boolean
 }
 
 /** Keeps the names as a literal union (TargetName) while the entries stay in one list. */
 function defineTargets<const N extends string>(list: Target<N>[]): Target<N>[] {
   return list
+}
+
+/** Gluons, or a qcd process without quarks. */
+function gluonsOnly(theory: TargetTheory, pdg?: readonly number[]): boolean {
+  return theory === 'gluon' || (theory === 'qcd' && (!pdg || pdg.every((c) => c === GLUON_PDG)))
 }
 
 /** Gravitons and a spin-2 species are one theory here. */
@@ -42,29 +52,51 @@ function gravityLike(theory: TargetTheory, spin?: number): boolean {
 }
 
 /**
- * The registry, preferred target first: `auto` picks the first entry that applies (gluon
- * MHV/anti-MHV → parke-taylor, other gluons → berends-giele, graviton MHV → hodges, other
+ * The registry, preferred target first: `auto` picks the first entry that applies (quark MHV →
+ * quark-mhv, other one-line quark processes → berends-giele-quark, gluon MHV/anti-MHV → parke-taylor, other gluons → berends-giele, graviton MHV → hodges, other
  * gravitons at n ≤ 6 → klt, cubic scalar → feynman).
  */
 export const TARGETS = defineTargets([
   {
+    name: 'quark-mhv',
+    label: 'Quark MHV (Mangano–Parke)',
+    theories: ['qcd'],
+    description: 'Closed form of the MHV amplitude with one massless quark line and gluons, −⟨q̄ i⟩³⟨q i⟩/(⟨12⟩…⟨n1⟩) for q̄⁻ and gluon i⁻ (the quark ends swapped for q̄⁺), and its parity conjugate.',
+    source: 'M. Mangano, S. Parke, Phys. Rept. 200 (1991) 301; L. Dixon, hep-ph/9601359',
+    spin: 1,
+    quarks: true,
+    applies: (theory, h, _s, pdg) => theory === 'qcd' && !!pdg && classifyQuarkMhv(h, pdg).kind !== 'other',
+    evaluate: (F, k, h, pdg) => quarkMhv(F, k, h, pdg!),
+  },
+  {
+    name: 'berends-giele-quark',
+    label: 'Berends–Giele with a quark line',
+    theories: ['qcd'],
+    description: 'Off-shell recursion of colour-ordered Feynman rules with one massless quark line (quark–gluon vertex, quark propagator) and the gluon currents of Berends–Giele; every helicity configuration.',
+    source: 'F. A. Berends, W. T. Giele, Nucl. Phys. B306 (1988) 759',
+    spin: 1,
+    quarks: true,
+    applies: (theory, _h, _s, pdg) => theory === 'qcd' && !!pdg && quarkLine(pdg) !== null,
+    evaluate: (F, k, h, pdg) => quarkLineBerendsGiele(F, k, h, pdg!),
+  },
+  {
     name: 'parke-taylor',
     label: 'Parke–Taylor',
-    theories: ['gluon'],
+    theories: ['gluon', 'qcd'],
     description: 'Closed form of the MHV gluon amplitude, ⟨ij⟩⁴/(⟨12⟩…⟨n1⟩), and its parity conjugate (−1)ⁿ[ij]⁴/([12]…[n1]).',
     source: 'S. Parke, T. Taylor, Phys. Rev. Lett. 56 (1986) 2459',
     spin: 1,
-    applies: (theory, h) => theory === 'gluon' && classifyGluon(h).kind !== 'other',
+    applies: (theory, h, _s, pdg) => gluonsOnly(theory, pdg) && classifyGluon(h).kind !== 'other',
     evaluate: (F, k, h) => parkeTaylor(F, k, h),
   },
   {
     name: 'berends-giele',
     label: 'Berends–Giele',
-    theories: ['gluon'],
+    theories: ['gluon', 'qcd'],
     description: 'Off-shell recursion of colour-ordered Feynman rules (three- and four-gluon vertices) with polarization vectors built from spinors; every helicity configuration.',
     source: 'F. A. Berends, W. T. Giele, Nucl. Phys. B306 (1988) 759',
     spin: 1,
-    applies: (theory) => theory === 'gluon',
+    applies: (theory, _h, _s, pdg) => gluonsOnly(theory, pdg),
     evaluate: (F, k, h) => berendsGiele(F, k, h),
   },
   {
@@ -110,14 +142,19 @@ export const TARGET_INFO: TargetInfo[] = TARGETS.map(({ name, label, theories, d
 const byName = new Map(TARGETS.map((t) => [t.name, t]))
 
 /** The targets that apply to a process, the preferred one first. */
-export function applicableTargets(theory: TargetTheory, helicities: number[], spin?: number): TargetName[] {
+export function applicableTargets(theory: TargetTheory, helicities: number[], spin?: number, pdg?: readonly number[]): TargetName[] {
   if (helicities.length < 3 || !THEORY_NAMES.includes(theory)) return []
-  return TARGETS.filter((t) => helicities.every((h) => Math.abs(h) === t.spin) && t.applies(theory, helicities, spin)).map((t) => t.name)
+  return TARGETS.filter((t) => spinsFit(t, helicities, pdg) && t.applies(theory, helicities, spin, pdg)).map((t) => t.name)
+}
+
+/** Every |h| is the target's spin, or 1/2 on a quark leg of a target that takes quarks. */
+function spinsFit(t: Target, helicities: readonly number[], pdg?: readonly number[]): boolean {
+  return helicities.every((h, i) => Math.abs(h) === (t.quarks && pdg && pdg[i] !== GLUON_PDG ? 1 / 2 : t.spin))
 }
 
 /** The best independent target (the first that applies); null if none (spin s ≠ 2). */
-export function autoTarget(theory: TargetTheory, helicities: number[], spin?: number): TargetName | null {
-  return applicableTargets(theory, helicities, spin)[0] ?? null
+export function autoTarget(theory: TargetTheory, helicities: number[], spin?: number, pdg?: readonly number[]): TargetName | null {
+  return applicableTargets(theory, helicities, spin, pdg)[0] ?? null
 }
 
 function countNeg(helicities: readonly number[]): number {
@@ -132,16 +169,16 @@ const PARTICLES: Record<number, string> = { 0: 'scalars (helicity 0)', 1: 'gluon
  * Evaluates a target at a point (0-based legs). Classes that vanish identically at tree level
  * (spin ≥ 1, n ≥ 4, fewer than two minus or two plus helicities) give exactly zero.
  */
-export function evaluateTarget<T>(name: TargetName, F: Field<T>, k: Kin<T>, helicities: number[]): T {
+export function evaluateTarget<T>(name: TargetName, F: Field<T>, k: Kin<T>, helicities: number[], pdg?: readonly number[]): T {
   const t = byName.get(name)
   if (!t) throw new PhysicsError('target', `unknown target ${name}`)
   const n = helicities.length
-  if (helicities.some((h) => Math.abs(h) !== t.spin)) throw new PhysicsError('target', `${name} applies to ${PARTICLES[t.spin] ?? `spin ${t.spin}`} only`)
+  if (!spinsFit(t, helicities, pdg)) throw new PhysicsError('target', `${name} applies to ${t.quarks ? 'gluons (±1) and quarks (±1/2)' : (PARTICLES[t.spin] ?? `spin ${t.spin}`)} only`)
   if (t.spin > 0 && n >= 4) {
     const m = countNeg(helicities)
     if (m < 2 || n - m < 2) return F.zero
   }
-  return t.evaluate(F, k, helicities)
+  return t.evaluate(F, k, helicities, pdg)
 }
 
-export { parkeTaylor, berendsGiele, hodges, klt, cubicScalarFeynman }
+export { parkeTaylor, berendsGiele, hodges, klt, cubicScalarFeynman, quarkMhv, quarkLineBerendsGiele }
