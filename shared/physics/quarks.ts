@@ -88,7 +88,8 @@ function adjacent(n: number, i: number, j: number): boolean {
  * The rise above the gluon base (−1 adjacent, −2 not) of A(z) under [i,j⟩, by the helicity type of
  * leg i (λ̃ shifted) and leg j (λ shifted): g± a gluon, f± a quark or antiquark (the same for both).
  * Measured by the exact probe with the quark-line Berends–Giele current as A(z) at n = 5, 6, for
- * every position of the line (docs/conventions.md "Falloff"); [f±, f±⟩ (two lines) has no entry.
+ * every position of the line (docs/conventions.md "Falloff"). Two quarks of different lines:
+ * see TWO_LINE_EXPONENT.
  */
 export const QCD_FALLOFF_RISE: Record<string, number> = {
   'g-g-': 0, 'g-g+': 0, 'g-f-': 0, 'g-f+': 0,
@@ -97,22 +98,48 @@ export const QCD_FALLOFF_RISE: Record<string, number> = {
   'f-g+': 0, 'f-g-': 1, 'f-f+': 1,
 }
 
+/**
+ * Shifts of two quarks of different lines with equal helicity signs: −1 adjacent or not, measured
+ * at n = 4 on single-gluon exchange only; other pairs of different lines get the one-line entry,
+ * which is never lower than measured there (0 and 2 above the base for [f−,f+⟩ and [f+,f−⟩).
+ */
+export const TWO_LINE_EXPONENT = -1
+
 const typeOf = (l: Leg) => `${isQuarkCode(codeOf(l)) ? 'f' : 'g'}${l.h > 0 ? '+' : '-'}`
+
+/** Two quark legs of different lines. */
+function otherLines(legs: readonly Leg[], i: number, j: number): boolean {
+  const a = codeOf(legs[i]!)
+  const b = codeOf(legs[j]!)
+  return isQuarkCode(a) && isQuarkCode(b) && Math.abs(a) !== Math.abs(b)
+}
 
 /** Large-z exponent of A(z) under [i,j⟩ (0-based) by the measured table; null where it has none. */
 export function qcdFalloff(legs: readonly Leg[], i: number, j: number): number | null {
-  const rise = QCD_FALLOFF_RISE[typeOf(legs[i]!) + typeOf(legs[j]!)]
+  const key = typeOf(legs[i]!) + typeOf(legs[j]!)
+  if ((key === 'f+f+' || key === 'f-f-') && otherLines(legs, i, j)) return TWO_LINE_EXPONENT
+  const rise = QCD_FALLOFF_RISE[key]
   if (rise === undefined) return null
   return (adjacent(legs.length, i, j) ? -1 : -2) + rise
 }
 
-/** [i, i+1⟩ from the first negative leg when valid, else the first valid adjacent, else any valid pair. */
+/**
+ * [i, i+1⟩ from the first negative leg when valid, else the first valid adjacent, else any valid
+ * pair; pairs of two lines (entries measured at n = 4 only) come last.
+ */
 export function qcdDefaultShift(legs: readonly Leg[]): [number, number] {
   const n = legs.length
-  const ok = (i: number, j: number) => (qcdFalloff(legs, i, j) ?? 0) < 0
+  const valid = (i: number, j: number) => (qcdFalloff(legs, i, j) ?? 0) < 0
+  let late: [number, number] | null = null
+  const ok = (i: number, j: number) => {
+    if (!valid(i, j)) return false
+    if (!otherLines(legs, i, j)) return true
+    late ??= [i, j]
+    return false
+  }
   const m = legs.findIndex((l) => l.h < 0)
   if (m >= 0 && ok(m, (m + 1) % n)) return [m, (m + 1) % n]
   for (let a = 0; a < n; a++) for (const [i, j] of [[a, (a + 1) % n], [(a + 1) % n, a]] as [number, number][]) if (ok(i, j)) return [i, j]
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) if (i !== j && ok(i, j)) return [i, j]
-  return [0, 1]
+  return late ?? [0, 1]
 }

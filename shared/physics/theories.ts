@@ -265,9 +265,8 @@ export function validateProcess(theory: TheoryName, helicities: number[], arithm
   if (n > limit) throw new PhysicsError('helicities', `${n} legs exceed the limit of ${limit} for ${info.label} in ${arithmetic} arithmetic`)
   if (species !== undefined && species.length !== n) throw new PhysicsError('species', `${species.length} species given for ${n} helicities`)
   if (theory === 'qcd') {
-    const process = processOf(theory, spin, helicities, species)
-    warnings.push(...checkQcdSpecies(process.legs!))
-    return { process, warnings }
+    warnings.push(...checkQcdSpecies(legsOf(theory, helicities, species)))
+    return { process: processOf(theory, spin, helicities, species), warnings }
   }
   const process = processOf(theory, spin, helicities)
   helicities.forEach((h, i) => {
