@@ -128,9 +128,9 @@ export function failureError(f: Failure): EvaluationError {
 }
 
 /** Runs any worker task and returns its value (the routes for shifts, cross-shift, catalogue). */
-export async function runInPool<T>(task: Task, opts: PoolOptions = {}): Promise<{ value: T; thread: number }> {
+export async function runInPool<T>(task: Task, opts: PoolOptions = {}): Promise<{ value: T; thread: number; ms?: number }> {
   const o = await runOutcome(task, opts)
-  return { value: unwrap<T>(o), thread: o.ok ? o.thread : 0 }
+  return { value: unwrap<T>(o), thread: o.ok ? o.thread : 0, ms: o.ok ? o.ms : undefined }
 }
 
 /** One evaluation (docs/api.md "Evaluation request"), off the request thread. `order`: a colour order of the labels. */

@@ -44,7 +44,8 @@ import type { Process as GraphProcess } from '#shared/schemas/graph'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
 export type Task =
-  | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[] }
+  /** `json`: the response comes back as its JSON text (a string crosses postMessage far cheaper than the object, and the route sends it as is). */
+  | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[]; json?: boolean }
   | { kind: 'evaluateMany'; reqs: EvaluateRequestInput[] }
   | { kind: 'shifts'; req: unknown }
   | { kind: 'crossShift'; req: unknown }
@@ -63,7 +64,7 @@ export interface Failure {
   issues?: unknown
   stack?: string
 }
-export type Outcome<T = unknown> = { ok: true; value: T; thread: number } | Failure
+export type Outcome<T = unknown> = { ok: true; value: T; thread: number; ms?: number } | Failure
 
 export function failureOf(e: unknown): Failure {
   if (e instanceof PhysicsError) return { ok: false, status: 422, field: e.field, message: e.message }
@@ -79,7 +80,9 @@ export function failureOf(e: unknown): Failure {
 
 export function runTask(task: Task): Outcome {
   try {
-    return { ok: true, value: dispatch(task), thread: threadId }
+    const value = dispatch(task)
+    if (task.kind === 'evaluate' && task.json) return { ok: true, value: JSON.stringify(value), thread: threadId, ms: (value as EvaluateResponse).ms }
+    return { ok: true, value, thread: threadId }
   } catch (e) {
     return failureOf(e)
   }

@@ -91,34 +91,59 @@ function untangleLegs(ids: string[], edges: EditorEdge[], byId: Map<string, Edit
 
 type Local = { pos: Map<string, { x: number, y: number }>, w: number, h: number }
 
-/** One group of nodes laid out left to right by dagre, with top-left positions from (0, 0). */
-function layoutGroup(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number): Local {
-  const inside = new Set(ids)
+// dagre's result depends only on the node sizes and the oriented edges in insertion order, so a
+// shape met before (every re-layout of a canvas: the next expansion step, undo, a re-expand) is not
+// laid out again. The 8 groups of a fully expanded 8-gluon NMHV are 8 different shapes, so the
+// first layout of a canvas gains nothing.
+const shapes = new Map<string, { x: number, y: number, width: number, height: number }[]>()
+const SHAPES_KEPT = 500
+
+/** The dagre layout (centres and sizes, in the order of ids) of one group's shape. */
+function dagreShape(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number) {
+  const index = new Map(ids.map((id, k) => [id, k]))
+  const sizes = ids.map(id => nodeSize(byId.get(id)!))
+  const pairs: [number, number][] = []
+  for (const e of edges) {
+    if (!index.has(e.source) || !index.has(e.target) || e.source === e.target) continue
+    const [a, b] = orient(e, byId)
+    pairs.push([index.get(a)!, index.get(b)!])
+  }
+  const key = `${nodesep},${ranksep}|${sizes.map(z => `${z.width}x${z.height}`).join(',')}|${pairs.map(([a, b]) => `${a}>${b}`).join(',')}`
+  const hit = shapes.get(key)
+  if (hit) return hit
   const g = new Graph()
   g.setGraph({ rankdir: 'LR', nodesep, ranksep, marginx: 0, marginy: 0 })
   g.setDefaultEdgeLabel(() => ({}))
-  for (const id of ids) g.setNode(id, { ...nodeSize(byId.get(id)!) })
-  for (const e of edges) {
-    if (!inside.has(e.source) || !inside.has(e.target) || e.source === e.target) continue
-    const [a, b] = orient(e, byId)
-    g.setEdge(a, b)
-  }
+  sizes.forEach((z, k) => g.setNode(String(k), { ...z }))
+  for (const [a, b] of pairs) g.setEdge(String(a), String(b))
   // No incremental re-layout state: each call lays out a fresh graph (and is faster without it).
   layout(g, { useDynamic: false })
+  const out = ids.map((_, k) => {
+    const p = g.node(String(k)) as { x: number, y: number, width: number, height: number }
+    return { x: p.x, y: p.y, width: p.width, height: p.height }
+  })
+  if (shapes.size >= SHAPES_KEPT) shapes.clear()
+  shapes.set(key, out)
+  return out
+}
+
+/** One group of nodes laid out left to right by dagre, with top-left positions from (0, 0). */
+function layoutGroup(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number): Local {
+  const placed = dagreShape(ids, edges, byId, nodesep, ranksep)
   let minX = Infinity
   let minY = Infinity
   let maxX = -Infinity
   let maxY = -Infinity
   const local = new Map<string, { x: number, y: number }>()
-  for (const id of ids) {
-    const p = g.node(id) as { x: number, y: number, width: number, height: number }
+  ids.forEach((id, k) => {
+    const p = placed[k]!
     const tl = { x: p.x - p.width / 2, y: p.y - p.height / 2 }
     local.set(id, tl)
     minX = Math.min(minX, tl.x)
     minY = Math.min(minY, tl.y)
     maxX = Math.max(maxX, tl.x + p.width)
     maxY = Math.max(maxY, tl.y + p.height)
-  }
+  })
   untangleLegs(ids, edges, byId, local)
   for (const [id, p] of local) local.set(id, { x: p.x - minX, y: p.y - minY })
   return { pos: local, w: maxX - minX, h: maxY - minY }
