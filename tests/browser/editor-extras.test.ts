@@ -80,6 +80,8 @@ describe('editor extras', () => {
     await ref.locator('[data-test=syntax-use]').first().click()
     expect(await page.inputValue('input[name=formula]')).toBe(FORMULA_SYNTAX[0]!.example)
     await page.locator('[data-test=formula-preview] .katex').waitFor()
+    // The reference fits the side panel: nothing scrolls sideways.
+    expect(await page.evaluate(() => { const el = document.querySelector('[data-test=kinematics]')!.parentElement!; return el.scrollWidth - el.clientWidth })).toBeLessThanOrEqual(0)
     await shot(page, 'editor-extras-syntax')
     // Parke–Taylor for − − + + +, typed with Unicode angle brackets and a bracket written as ⟨1 2⟩.
     await page.fill('input[name=formula]', '⟨1 2⟩^4/(⟨12⟩⟨23⟩⟨34⟩⟨45⟩⟨51⟩)')
