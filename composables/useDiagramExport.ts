@@ -1,7 +1,7 @@
 // Exports of the diagram (JSON to import again, SVG, PNG, the term table as CSV or LaTeX) and the
 // JSON import, which replaces the canvas as one undoable step.
 import { GraphSchema } from '#shared/schemas/graph'
-import { canvasSvg, termsCsv, termsLatex } from '#shared/editor/exports'
+import { canvasSvg, exportCaption, termsCsv, termsLatex } from '#shared/editor/exports'
 import { useEditorStore } from '~~/stores/editor'
 import type { Say } from './useEditorNotice'
 
@@ -43,7 +43,8 @@ async function svgToPng(svg: string, scale = 2): Promise<Blob> {
 export function useDiagramExport(say: Say) {
   const store = useEditorStore()
   const fileBase = computed(() => (store.title || 'diagram').replace(/[^\w-]+/g, '-').replace(/-+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'diagram')
-  const svgText = () => canvasSvg(store.nodes, store.edges, { shift: store.process?.shift, title: store.title })
+  // The figure is captioned with the process and the shift (the PNG is drawn from the same SVG).
+  const svgText = () => canvasSvg(store.nodes, store.edges, { shift: store.process?.shift, title: store.title, caption: exportCaption(store.process) })
 
   function exportJson() {
     const body = { format: 'polewright-diagram', formatVersion: 1, title: store.title, graph: store.toGraph() }

@@ -1,12 +1,15 @@
 // Exports of the editor: the term table as CSV and as a LaTeX table, and the canvas as a
-// standalone SVG drawn from node positions and shapes (the PNG is this SVG drawn on a canvas).
+// standalone SVG drawn from node positions and shapes (the PNG is this SVG drawn on a canvas),
+// captioned with the process and the shift so a figure pasted into a paper says what it shows.
 import type { EvaluateResponse, WireComplex } from '../schemas/evaluate'
 import type { Process } from '../schemas/graph'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
 import { helicityText, sign } from './types'
 import { absOf, fmtDeviation, fmtReal, phaseOf } from './format'
 import { neutraliseCell } from '../csv-safe'
-import { chevronPoints, handleLayout, nodeSize } from './geometry'
+import { chevronPoints, handleLayout, nodeSize, slotAtPosition } from './geometry'
+import { orderOf } from './process'
+import { THEORIES } from '../physics/theories'
 
 /** Colours of tailwind.config.ts (kept in step by hand: the SVG must stand alone). */
 export const PALETTE = {
@@ -62,10 +65,25 @@ export function termsLatex(r: EvaluateResponse, p: Process): string {
   return lines.join('\n') + '\n'
 }
 
+const SUP: Record<string, string> = { '+': '⁺', '−': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹', '/': 'ᐟ' }
+const SUB: Record<string, string> = { 0: '₀', 1: '₁', 2: '₂', 3: '₃', 4: '₄', 5: '₅', 6: '₆', 7: '₇', 8: '₈', 9: '₉' }
+const sup = (t: string) => [...t].map(c => SUP[c] ?? c).join('')
+
+/** The figure caption: A₅(1⁻, 2⁻, 3⁺, 4⁺, 5⁺) · gluons (colour-ordered) · shift [1,2⟩ (legs in colour order). */
+export function exportCaption(p: Process | null | undefined): string {
+  if (!p) return 'no process set'
+  const info = THEORIES[p.theory]
+  const n = p.helicities.length
+  const legs = orderOf(p).map(l => `${l}${sup(helicityText(p.helicities[l - 1]!))}`)
+  const theory = `${info.label}${p.theory === 'spin' && p.spin !== undefined ? `, s = ${p.spin}` : ''}`
+  const shift = p.shift ? `shift [${p.shift[0]},${p.shift[1]}⟩` : 'default shift'
+  return `${info.amplitudeLatex}${[...String(n)].map(d => SUB[d]).join('')}(${legs.join(', ')}) · ${theory} · ${shift}`
+}
+
 const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;')
 
 /** The canvas as a standalone SVG: same shapes, colours and handle positions as the nodes. */
-export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shift?: [number, number], title?: string, padding?: number } = {}): string {
+export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shift?: [number, number], title?: string, caption?: string, padding?: number } = {}): string {
   const pad = opts.padding ?? 40
   const byId = new Map(nodes.map(n => [n.id, n]))
   let minX = Infinity
@@ -81,8 +99,10 @@ export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shif
   }
   if (!nodes.length) { minX = 0; minY = 0; maxX = 200; maxY = 80 }
   const titleH = opts.title ? 28 : 0
-  const W = Math.ceil(maxX - minX + 2 * pad)
-  const H = Math.ceil(maxY - minY + 2 * pad + titleH)
+  const captionH = opts.caption ? 26 : 0
+  // Wide enough for the caption (about 7 px a character at 13 px).
+  const W = Math.ceil(Math.max(maxX - minX + 2 * pad, opts.caption ? opts.caption.length * 7 + 2 * pad : 0))
+  const H = Math.ceil(maxY - minY + 2 * pad + titleH + captionH)
   const ox = pad - minX
   const oy = pad - minY + titleH
   const handlePos = (id: string, h: string | null | undefined) => {
@@ -94,6 +114,7 @@ export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shif
   out.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family="Space Grotesk, system-ui, sans-serif">`)
   out.push(`<rect width="${W}" height="${H}" fill="${PALETTE.paper}"/>`)
   if (opts.title) out.push(`<text x="${pad}" y="${pad - 8}" font-size="15" font-weight="700" fill="${PALETTE.ink}">${esc(opts.title)}</text>`)
+  if (opts.caption) out.push(`<text x="${pad}" y="${H - pad / 2}" font-size="13" fill="${PALETTE.inkSoft}" data-role="caption">${esc(opts.caption)}</text>`)
   for (const e of edges) {
     if (!byId.has(e.source) || !byId.has(e.target)) continue
     const a = handlePos(e.source, e.sourceHandle)
@@ -136,8 +157,17 @@ export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shif
     else {
       const d = n.data as unknown as BlockData
       out.push(`<rect x="${x}" y="${y}" width="${w}" height="${h}" rx="12" fill="${PALETTE.blockLight}" stroke="${PALETTE.block}" stroke-width="1.6"/>`)
-      out.push(`<text x="${x + w / 2}" y="${y + 18}" font-size="12" font-weight="700" text-anchor="middle" fill="${PALETTE.block}">A${d.helicities.length}</text>`)
-      out.push(`<text x="${x + w / 2}" y="${y + 34}" font-size="12" text-anchor="middle" fill="${PALETTE.ink}">${esc(d.helicities.map(sign).join(' '))}</text>`)
+      const k = d.helicities.length
+      out.push(`<text x="${x + 10}" y="${y + 23}" font-size="12" font-weight="700" fill="${PALETTE.block}">A${[...String(k)].map(c => SUB[c]).join('')}</text>`)
+      out.push(`<line x1="${x}" y1="${y + 36}" x2="${x + w}" y2="${y + 36}" stroke="${PALETTE.block}" stroke-opacity="0.3"/>`)
+      // The slot labels, row by row as the card shows them: leg or line name with its helicity.
+      const slotText = (t: number) => `${esc(d.legs?.[t]?.replace(/^L(\d+)$/, 'P$1') ?? String(t + 1))}${sup(helicityText(d.helicities[t]!))}`
+      const at = (pos: number) => slotAtPosition(n, pos, k)
+      for (let r = 0; r < Math.ceil(k / 2); r++) {
+        const ty = y + 40 + r * 18 + 13
+        out.push(`<text x="${x + 12}" y="${ty}" font-size="12" fill="${PALETTE.ink}" data-role="slot">${slotText(at(r))}</text>`)
+        if (r !== k - 1 - r) out.push(`<text x="${x + w - 12}" y="${ty}" font-size="12" text-anchor="end" fill="${PALETTE.ink}" data-role="slot">${slotText(at(k - 1 - r))}</text>`)
+      }
     }
     for (const hl of n.type === 'leg' ? [] : handleLayout(n)) out.push(`<circle cx="${x + hl.x}" cy="${y + hl.y}" r="3" fill="${PALETTE.ink}"/>`)
   }

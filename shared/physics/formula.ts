@@ -1,6 +1,7 @@
 // A user's target formula in the trade's bracket notation: <1 2> (angle), [1 2] (square),
 // s(1,2,3) (Mandelstam), <1|2+3|4] (sandwich), + - * / ^ (integer exponents), parentheses and
-// numbers. A small tokenizer turns each bracket into a function call (ang, sq, sand, mand) and
+// numbers. Typed lookalikes (⟨ ⟩, 〈 〉, −, ·, ×) are read as their ASCII forms through the table
+// of formula-syntax.ts, which also drives the syntax reference. A small tokenizer turns each bracket into a function call (ang, sq, sand, mand) and
 // keeps a map back to the user's characters; the expression grammar is mathjs's own `parse`.
 // The mathjs tree is then compiled into closures over Field<T>, so exact mode stays exact
 // (decimals become exact rationals), and rendered to LaTeX for KaTeX.
@@ -11,6 +12,7 @@ import { SingularError } from './field'
 import type { Kin } from './spinors'
 import { PhysicsError } from './errors'
 import { FORMULA_MAX_LENGTH } from '../schemas/evaluate'
+import { normaliseFormula } from './formula-syntax'
 
 const FIELD = 'target.formula'
 /** Longest formula accepted (characters), and the largest |exponent|: both keep exact mode bounded. */
@@ -466,7 +468,7 @@ export function compileFormula(src: string, n: number): CompiledFormula {
   if (typeof src !== 'string') throw new PhysicsError(FIELD, 'the formula must be a string')
   if (src.length > FORMULA_MAX_LENGTH) throw new PhysicsError(FIELD, `the formula is longer than ${FORMULA_MAX_LENGTH} characters`)
   if (src.trim() === '') throw new PhysicsError(FIELD, 'the formula is empty')
-  const tr = translate(src, n)
+  const tr = translate(normaliseFormula(src), n)
   const tree = parseWithMathjs(tr, src)
   let op = 0
   const opAt = () => tr.ops[op++] ?? src.length

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { evaluate, rationalPoint, kinToWire, rationalField } from '#shared/physics/index'
 import { shiftedKin } from '#shared/physics/falloff'
 import { Fraction } from '#shared/physics/field'
-import { termsCsv, termsLatex, canvasSvg } from '#shared/editor/exports'
+import { termsCsv, termsLatex, canvasSvg, exportCaption } from '#shared/editor/exports'
 import { kinematicsOf, defaultEvalSettings } from '#shared/editor/kinematics'
 import { falloffFit, log10AbsRational, shiftExact } from '#shared/editor/falloff'
 import { expandedGraph } from '#shared/editor/demo'
@@ -72,5 +72,30 @@ describe('falloff points', () => {
     expect(log10AbsRational(`1${'0'.repeat(400)}/7`)).toBeCloseTo(400 - Math.log10(7), 10)
     const pts = [2, 3, 4, 5, 6, 7].map(x => ({ log10z: x, log10abs: 1.3 - 2 * x + 10 ** (-x) }))
     expect(falloffFit(pts)).toMatchObject({ exponent: -2 })
+  })
+})
+
+describe('exported figures are captioned', () => {
+  it('the SVG says the process and the shift, and labels every slot of a Block', () => {
+    const q: Process = { theory: 'gluon', helicities: [-1, 1, -1, 1, 1, 1], shift: [1, 3], order: [1, 2, 3, 4, 6, 5] }
+    const g = expandedGraph(q, false)
+    const caption = exportCaption(q)
+    expect(caption).toBe('A₆(1⁻, 2⁺, 3⁻, 4⁺, 6⁺, 5⁺) · gluons (colour-ordered) · shift [1,3⟩')
+    const svg = canvasSvg(g.nodes as EditorNode[], g.edges, { shift: q.shift, title: 'Six gluons', caption })
+    expect(svg).toContain(`data-role="caption">${caption}</text>`)
+    const blocks = g.nodes.filter(n => n.type === 'block')
+    expect(blocks.length).toBeGreaterThan(0)
+    const slots = blocks.reduce((a, b) => a + (b.data as { helicities: number[] }).helicities.length, 0)
+    expect((svg.match(/data-role="slot"/g) ?? []).length).toBe(slots)
+    // A Block's slot joined to an internal line is labelled by the line (P…), the others by leg.
+    expect(svg).toMatch(/data-role="slot">P\d+[⁺⁻]</)
+    expect(svg).toMatch(/data-role="slot">\d+[⁺⁻]</)
+    // The width leaves room for the caption.
+    expect(Number(/width="(\d+)"/.exec(svg)![1])).toBeGreaterThanOrEqual(caption.length * 7)
+  })
+  it('other theories and no shift', () => {
+    expect(exportCaption({ theory: 'spin', spin: 3, helicities: [-3, -3, 3, 3] })).toBe('A₄(1⁻³, 2⁻³, 3⁺³, 4⁺³) · single species of spin s, s = 3 · default shift')
+    expect(exportCaption({ theory: 'graviton', helicities: [-2, -2, 2, 2, 2], shift: [1, 2] })).toBe('M₅(1⁻², 2⁻², 3⁺², 4⁺², 5⁺²) · gravitons · shift [1,2⟩')
+    expect(exportCaption(null)).toBe('no process set')
   })
 })
