@@ -20,7 +20,14 @@ if (existsSync(ts)) {
   mkdirSync(join(here, '../node_modules/.cache'), { recursive: true })
   dir = mkdtempSync(join(here, '../node_modules/.cache/polewright-bench-'))
   entry = join(dir, `${name}.mjs`)
-  await build({ entryPoints: [ts], bundle: true, platform: 'node', format: 'esm', outfile: entry, logLevel: 'warning', external: ['@libsql/*', 'libsql'] })
+  // Nuxt's #shared alias, as the worker bundle and Vitest resolve it.
+  const shared = { name: 'shared-alias', setup(b) {
+    b.onResolve({ filter: /^#shared\// }, ({ path }) => {
+      const base = join(here, '../shared', path.slice('#shared/'.length))
+      return { path: [`${base}.ts`, join(base, 'index.ts'), base].find(f => existsSync(f)) ?? base }
+    })
+  } }
+  await build({ entryPoints: [ts], bundle: true, platform: 'node', format: 'esm', outfile: entry, logLevel: 'warning', external: ['@libsql/*', 'libsql'], plugins: [shared] })
 } else if (!existsSync(mjs) || name === 'run') {
   console.error(`no benchmark bench/${name}.ts or bench/${name}.mjs`)
   process.exit(2)
