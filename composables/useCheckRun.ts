@@ -89,9 +89,14 @@ export function useCheckRun(ctx: Ctx) {
       checksToken.value++
       return check.result
     }
+    if (!ctx.canEdit.value && drawn) {
+      // A viewer checks the canvas as it is (Blocks opened while exploring included); nothing is stored.
+      notStored.value = 'not stored: viewers run checks without storing them; this is a check of what is drawn'
+      return await $fetch<EvaluateResponse>(`/api/diagrams/${ctx.diagramId}/check-drawing`, { method: 'POST', body: { ...body, graph: store.toGraph() } })
+    }
     notStored.value = ctx.canEdit.value
       ? 'not stored: save the diagram (Ctrl+S) to store checks of this process'
-      : `not stored: viewers run checks without storing them${drawn ? '; this evaluates the process\'s full recursion, not the drawing' : ''}`
+      : 'not stored: viewers run checks without storing them'
     return toLabels(await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: evaluateRequest(p, { ...body }) }), p)
   }
 

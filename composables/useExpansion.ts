@@ -3,6 +3,7 @@
 import type { EvaluateResponse } from '#shared/schemas/evaluate'
 import { evaluateRequest, toLabels } from '#shared/editor/process'
 import { STRUCTURE_SEED } from '#shared/editor/expand'
+import { READABLE_NODES } from '#shared/editor/collapse'
 import { useEditorStore } from '~~/stores/editor'
 import { errMessage, type Say } from './useEditorNotice'
 
@@ -25,21 +26,30 @@ export function useExpansion(say: Say, busy: Ref<boolean>) {
   }
   watch(() => store.expansion?.specs, () => { void ensureTree() })
 
+  function collapsedNote() {
+    const k = store.expansion?.collapsed ?? 0
+    if (!k) return 'every block is open.'
+    return `${k} block${k === 1 ? '' : 's'} kept collapsed so the canvas stays readable (at most ${READABLE_NODES} vertices and blocks): open them one at a time, or Expand fully again to open all.`
+  }
+
   async function expand(full: boolean) {
     if (!store.process) { say('Set the process first: theory, helicities and shift.', 'error'); return }
     if (busy.value) return
     busy.value = true
     try {
       if (!store.expansionStale && store.expansion && store.tree && full) {
-        if (!store.expandAll()) say('Every block is already expanded down to three-point vertices.')
-        else say(`${store.validation.drawing.terms.length} terms of three-point vertices.`)
+        const how = store.expandAll()
+        if (!how) say('Every block is already expanded down to three-point vertices.')
+        else say(how === 'all' ? `${store.validation.drawing.terms.length} terms of three-point vertices.` : `${store.validation.drawing.terms.length} terms; ${collapsedNote()}`)
         return
       }
       const handBuilt = store.nodes.some(n => !(n.data as { comp?: string }).comp)
       const res = await fetchTree(STRUCTURE_SEED)
       store.applyExpansion(res.terms, res.shift, STRUCTURE_SEED, full)
       const terms = store.validation.drawing.terms.length
-      say(`${res.terms.length} channel term${res.terms.length === 1 ? '' : 's'} of [${res.shift.join(',')}⟩${full ? `, ${terms} terms of three-point vertices` : ''}.${handBuilt ? ' The hand-built canvas was replaced (Ctrl+Z brings it back).' : ''}`)
+      const blocks = store.expansion?.collapsed ?? 0
+      const what = !full ? '' : blocks ? `, ${terms} terms; ${collapsedNote()}` : `, ${terms} terms of three-point vertices.`
+      say(`${res.terms.length} channel term${res.terms.length === 1 ? '' : 's'} of [${res.shift.join(',')}⟩${what || '.'}${handBuilt && !store.readOnly ? ' The hand-built canvas was replaced (Ctrl+Z brings it back).' : ''}`)
     }
     catch (e) {
       say(errMessage(e, 'the expansion failed'), 'error')

@@ -10,15 +10,18 @@ import type { EvaluateResponse, WireTerm } from '#shared/schemas/evaluate'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData, NodeKind } from '#shared/editor/types'
 import { nodeOf } from '#shared/editor/types'
 import { validateGraph, particleSpin } from '#shared/editor/validate'
-import { blockPaths, collapseSpec, compId, expandAllSpecs, expandSpec, specsToGraph, topSpecs, type CompSpec } from '#shared/editor/expand'
+import { blockPaths, collapseSpec, compId, expandAllSpecs, specsToGraph, type CompSpec } from '#shared/editor/expand'
 import { matchTerms, processFromCanvas, processKey } from '#shared/editor/process'
 import { layoutGraph } from '#shared/editor/layout'
+import { collapsedCount, openOne, readableSpecs } from '#shared/editor/collapse'
 
 export interface Expansion {
   /** processKey() of the process it was made for. */
   key: string
   seed: string
   specs: CompSpec[]
+  /** Blocks left collapsed to keep the canvas readable (READABLE_NODES); 0 or absent: none. */
+  collapsed?: number
 }
 
 interface Snapshot { process?: Process, nodes: EditorNode[], edges: EditorEdge[], expansion: Expansion | null, title: string }
@@ -210,6 +213,11 @@ export const useEditorStore = defineStore('editor', () => {
     if (readOnly.value || !canRedo.value) return
     history.redo()
   }
+  /** Opening and folding Blocks: viewers explore too, straight on the canvas (no undo, never saved). */
+  function explore(change: () => void) {
+    if (readOnly.value) change()
+    else commit(change)
+  }
 
   // ---- the process ----
   function setProcess(p: Process | undefined) {
@@ -357,7 +365,8 @@ export const useEditorStore = defineStore('editor', () => {
     // Read by the browser benchmark (bench/editor.ts).
     lastLayoutMs.value = performance.now() - t0
     edges.value = g.edges
-    expansion.value = { key: processKey(process.value), seed: expansion.value?.seed ?? 'structure', specs }
+    const collapsed = collapsedCount(tree.value, specs)
+    expansion.value = { key: processKey(process.value), seed: expansion.value?.seed ?? 'structure', specs, ...(collapsed ? { collapsed } : {}) }
     fitToken.value++
   }
   /**
@@ -366,11 +375,11 @@ export const useEditorStore = defineStore('editor', () => {
    */
   function applyExpansion(terms: WireTerm[], shift: [number, number], seed: string, full = false) {
     if (!process.value) return
-    commit(() => {
+    explore(() => {
       process.value = { ...plain(process.value!), shift: [shift[0], shift[1]] }
       tree.value = terms
       expansion.value = { key: processKey(process.value), seed, specs: [] }
-      rebuild(full ? expandAllSpecs(terms, topSpecs(terms)) : topSpecs(terms))
+      rebuild(readableSpecs(terms, full))
     })
   }
   /** A tree fetched again for a saved expansion (after a reload). */
@@ -391,7 +400,7 @@ export const useEditorStore = defineStore('editor', () => {
   function expandBlock(id: string): boolean {
     const at = specOfNode(id)
     if (!at || !tree.value || !expansion.value || !canExpand(id)) return false
-    commit(() => rebuild(expandSpec(tree.value!, expansion.value!.specs, at.spec, at.path)))
+    explore(() => rebuild(openOne(tree.value!, expansion.value!.specs, at.spec, at.path)))
     return true
   }
   /** The innermost expanded sub-amplitude above a node (what collapsing it folds back). */
@@ -405,14 +414,22 @@ export const useEditorStore = defineStore('editor', () => {
     const at = specOfNode(id)
     const path = collapsiblePath(id)
     if (!at || path === null || !tree.value || !expansion.value) return false
-    commit(() => rebuild(collapseSpec(expansion.value!.specs, at.spec, path)))
+    explore(() => rebuild(collapseSpec(expansion.value!.specs, at.spec, path)))
     return true
   }
-  function expandAll(): boolean {
-    if (!tree.value || !expansion.value || expansionStale.value) return false
-    if (!expansion.value.specs.some(s => blockPaths(tree.value!, s).length)) return false
-    commit(() => rebuild(expandAllSpecs(tree.value!, expansion.value!.specs)))
-    return true
+  /**
+   * Expand fully on a shown expansion: Blocks open while the canvas stays readable ('readable');
+   * when none fits any more, every Block opens down to three-point vertices ('all').
+   */
+  function expandAll(): 'readable' | 'all' | false {
+    const t = tree.value
+    const specs = expansion.value?.specs
+    if (!t || !specs || expansionStale.value) return false
+    if (!specs.some(s => blockPaths(t, s).length)) return false
+    const readable = readableSpecs(t, true, specs)
+    const more = readable.length !== specs.length || readable.some((s, k) => Object.keys(s.choices).length !== Object.keys(specs[k]!.choices).length)
+    explore(() => rebuild(more ? readable : expandAllSpecs(t, specs)))
+    return more ? 'readable' : 'all'
   }
 
   // ---- results ----

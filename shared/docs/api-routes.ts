@@ -7,7 +7,7 @@ import { z } from 'zod'
 import { LoginSchema, RegisterSchema } from '../schemas/auth'
 import { DiagramCreateSchema, DiagramUpdateSchema, MemberAddSchema, ProjectCreateSchema } from '../schemas/projects'
 import { EvaluateRequestSchema } from '../schemas/evaluate'
-import { CheckRunSchema, CrossShiftRequestSchema, ShiftsRequestSchema } from '../schemas/service'
+import { CheckRunSchema, CrossShiftRequestSchema, DrawingCheckSchema, ShiftsRequestSchema } from '../schemas/service'
 import { LimitCheckRequestSchema } from '../schemas/limit-checks'
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
@@ -202,6 +202,14 @@ export const API_SECTIONS: ApiSection[] = [
         ],
         response: 'The check in full, as GET /api/checks/:id returns it. With drawn terms, `result.value`, `result.deviation` and `result.verdict` are the drawing\'s, and `result.drawing` is `{ sum, terms: [{ id, channel, internalHelicity, label, lineId, zStar, pole, value, problems }], comparison: { missing, duplicated, foreign, wrongHelicity, incomplete, invalid, messages, complete }, recursion: { value, deviation, verdict }, message }`: each comparison entry is `{ left, helicity, terms, message }` with the message in words ("channel {1,6} with internal helicity − is not drawn"); `recursion` is the process\'s full recursion under the same shift; `summary.drawing` is `{ terms, complete, message }`. Without drawn terms the result is the process\'s recursion, as before.',
         statuses: [[201, 'stored'], [400, 'the body fails the schema'], [422, 'the diagram has no process (`graph.process`), or the process or point is invalid'], [403, 'a viewer'], [404, 'no such diagram'], [503, 'over the time budget'], ...commonErrors],
+      },
+      {
+        id: 'check-drawing', method: 'POST', path: '/api/diagrams/:id/check-drawing', params: { id: 1 }, access: 'viewer', summary: 'Checks the graph in the body as drawn, the way a stored check reads a saved drawing, and stores nothing: what a viewer has on the canvas after opening or folding Blocks (never saved) is checked as it is. The process is `graph.process`, else the diagram\'s saved one. Writes nothing, so any member and read-scope tokens may call it.',
+        schema: DrawingCheckSchema,
+        query: [{ name: 'budgetMs', meaning: 'a smaller time budget for this request, in ms' }],
+        examples: [example(DrawingCheckSchema, 'an empty canvas: the process\'s recursion', { kinematics: { kind: 'random', seed: 1 }, graph: { process: { theory: 'gluon', helicities: [-1, -1, 1, 1, 1] }, nodes: [], edges: [] } })],
+        response: 'The evaluation response (as POST /api/evaluate) in the diagram\'s labels; with drawn terms `value`, `deviation` and `verdict` are the drawing\'s and `drawing` holds the terms and the comparison, as in a stored check\'s `result`. Nothing is stored.',
+        statuses: [[200, 'checked'], [400, 'the body fails the schema (`graph.nodes[3].id`, …)'], [422, 'no process in the graph or the diagram (`graph.process`), or the process or point is invalid'], [404, 'no such diagram, or not a member'], [503, 'over the time budget'], ...commonErrors],
       },
       { id: 'check-list', method: 'GET', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'viewer', summary: 'The diagram\'s checks, newest first.', query: [{ name: 'limit', meaning: 'at most this many (default 50, at most 200)' }], response: 'An array of `{ id, diagramVersion, kind, status, verdict, arithmetic, seed, engineVersion, durationMs, summary, createdBy, createdByName, createdAt }` — without the payloads.', statuses: [[200, 'the list'], [404, 'no such diagram'], ...commonErrors] },
       { id: 'check-get', method: 'GET', path: '/api/checks/:id', params: { id: 1 }, access: 'viewer', summary: 'One check in full.', response: 'The list fields plus `request` and `result` (the evaluation response).', statuses: [[200, 'the check'], [404, 'no such check'], ...commonErrors] },

@@ -6,11 +6,13 @@ import { evaluate } from '../physics/index'
 import { expandAllSpecs, specsToGraph, STRUCTURE_SEED, topSpecs } from './expand'
 import { evaluateRequest, processKey, toLabels } from './process'
 import { layoutGraph } from './layout'
+import { readableSpecs } from './collapse'
 
-export function expandedGraph(process: Process, full = false): Graph {
+/** `full`: every Block opened; 'readable': as Expand fully does it (collapse.ts). */
+export function expandedGraph(process: Process, full: boolean | 'readable' = false): Graph {
   const res = toLabels(evaluate(evaluateRequest(process, { kinematics: { kind: 'random', seed: STRUCTURE_SEED }, target: 'none', tree: true })), process)
   const p: Process = { ...process, shift: res.shift }
-  const specs = full ? expandAllSpecs(res.terms, topSpecs(res.terms)) : topSpecs(res.terms)
+  const specs = full === 'readable' ? readableSpecs(res.terms, true) : full ? expandAllSpecs(res.terms, topSpecs(res.terms)) : topSpecs(res.terms)
   const g = specsToGraph(res.terms, specs)
   return {
     schemaVersion: GRAPH_SCHEMA_VERSION,

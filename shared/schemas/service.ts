@@ -4,6 +4,7 @@
 import { z } from 'zod'
 import { EvaluateRequestSchema, KinematicsSchema, TheoryEnum } from './evaluate'
 import { MEASURE_LIMITS, type TheoryName } from '../physics/theories'
+import { GraphSchema } from './graph'
 
 /**
  * The largest n for which every shift's falloff is measured exactly (`measure: true`; the theory
@@ -81,3 +82,12 @@ export interface CrossShiftResponse {
   warnings: string[]
   ms: number
 }
+
+/**
+ * POST /api/diagrams/:id/check-drawing: a check of the graph in the body (what a viewer has on the
+ * canvas), never stored. Its process is the graph's, else the diagram's saved one.
+ */
+export const DrawingCheckSchema = EvaluateRequestSchema.pick({ kinematics: true, target: true, arithmetic: true }).extend({
+  graph: GraphSchema,
+})
+export type DrawingCheck = z.output<typeof DrawingCheckSchema>
