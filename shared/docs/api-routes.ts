@@ -4,7 +4,7 @@
 // cannot drift from what the server accepts. curl and fetch snippets are generated from these.
 // Later features add their routes to a section here (or a new section).
 import { z } from 'zod'
-import { LoginSchema, RegisterSchema } from '../schemas/auth'
+import { AccountUpdateSchema, LoginSchema, PasswordChangeSchema, RegisterSchema } from '../schemas/auth'
 import { DiagramCreateSchema, DiagramUpdateSchema, MemberAddSchema, ProjectCreateSchema } from '../schemas/projects'
 import { EvaluateRequestSchema } from '../schemas/evaluate'
 import { CheckRunSchema, CrossShiftRequestSchema, DrawingCheckSchema, ShiftsRequestSchema } from '../schemas/service'
@@ -78,6 +78,16 @@ export const API_SECTIONS: ApiSection[] = [
       {
         id: 'session-end', method: 'DELETE', path: '/api/account/sessions/:id', params: { id: 12 }, access: 'a signed-in session (not a token)', summary: 'Ends one of your sessions; that browser is signed out at its next request.',
         response: 'Nothing.', statuses: [[204, 'ended'], [404, 'not one of your sessions'], [403, 'called with an API token']],
+      },
+      {
+        id: 'account-update', method: 'PATCH', path: '/api/account', access: 'a signed-in session (not a token)', summary: 'Changes your display name (the e-mail address does not change).',
+        schema: AccountUpdateSchema, examples: [example(AccountUpdateSchema, 'a new name', { name: 'Ada M. Quill' })],
+        response: 'The user `{ id, email, name, role }`.', statuses: [[200, 'changed'], [400, 'the name is empty or longer than 120 characters'], [401, 'not signed in'], [403, 'called with an API token']],
+      },
+      {
+        id: 'password-change', method: 'POST', path: '/api/account/password', access: 'a signed-in session (not a token)', summary: 'Changes your password; every other session ends, this one stays, API tokens stay.',
+        schema: PasswordChangeSchema, examples: [example(PasswordChangeSchema, 'a new password', { currentPassword: 'a long passphrase', password: 'seven quiet lanterns drift east' })],
+        response: '`{ sessionsEnded }`: how many other browsers were signed out.', statuses: [[200, 'changed'], [400, '`currentPassword` is wrong, or `password` is too short, too easy to guess (the message says why) or unchanged'], [401, 'not signed in'], [403, 'called with an API token'], [429, 'too many wrong current passwords (the sign-in throttle)']],
       },
     ],
   },

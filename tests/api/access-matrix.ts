@@ -77,6 +77,9 @@ export const matrix: RouteAccess[] = [
   // Server-side sessions: the caller's own; ending one would sign the matrix client out.
   { file: 'account/sessions/index.get.ts', access: 'user', scope: 'none' },
   { file: 'account/sessions/[id].delete.ts', access: 'user', scope: 'none', skipAllowed: true },
+  // The caller's own name and password (a change would alter the matrix client's account).
+  { file: 'account/index.patch.ts', access: 'user', scope: 'none', body: {}, skipAllowed: true },
+  { file: 'account/password.post.ts', access: 'user', scope: 'none', body: {}, skipAllowed: true },
   // Point sets and batch checks.
   { file: 'projects/[id]/point-sets/index.get.ts', access: 'viewer', scope: 'project' },
   { file: 'projects/[id]/point-sets/index.post.ts', access: 'editor', scope: 'project', body: {} },
