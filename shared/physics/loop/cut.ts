@@ -110,17 +110,50 @@ export function solveQuadrupleCut<T>(F: Field<T>, K: readonly Bispinor<T>[]): [C
   const qMinus = F.neg(F.sub(b, root))
   const q = F.abs(qPlus) >= F.abs(qMinus) ? qPlus : qMinus
   const taus = [F.div(q, a), F.div(c, q, 'a vanishing cut root')]
+  const Kscale = Math.max(...K.map((P) => sizeOf(F, P)))
   const sols = taus.map((tau) => {
-    const l1 = bispinorAdd(F, L0, bispinorScale(F, tau, V))
+    let l1 = bispinorAdd(F, L0, bispinorScale(F, tau, V))
+    if (F.kind === 'float') l1 = newtonStep(F, M, rhs, l1)
     const ell: Bispinor<T>[] = [l1]
     for (let k = 0; k < 3; k++) ell.push(bispinorAdd(F, ell[k]!, bispinorScale(F, F.fromInt(-1), K[k]!)))
     const split = ell.map((P) => splitRankOne(F, P))
     const onShell = Math.max(...ell.map((P) => {
-      const s = sizeOf(F, P)
-      return s === 0 ? 0 : F.abs(det(F, P)) / (s * s)
+      // relative to the box's own scale: ℓ_k = ℓ_1 − K… carries rounding of the size of K
+      const s = Math.max(sizeOf(F, P), Kscale)
+      return F.abs(det(F, P)) / (s * s)
     }))
     if (ell.some((P) => sizeOf(F, P) === 0)) throw new SingularError('a cut loop momentum vanishes')
     return { ell, lambda: split.map((s) => s.lambda), lambdaTilde: split.map((s) => s.lambdaTilde), onShell }
   })
   return [sols[0]!, sols[1]!]
+}
+
+/**
+ * One Newton step on the four cut conditions (three linear rows M·x = rhs and det x = 0), which
+ * takes the float solution to the rounding of its last operations.
+ */
+function newtonStep<T>(F: Field<T>, M: T[][], rhs: T[], L: Bispinor<T>): Bispinor<T> {
+  const x = [L[0][0], L[0][1], L[1][0], L[1][1]]
+  const f = M.map((r, i) => F.sub(r.reduce((acc, m, j) => F.add(acc, F.mul(m, x[j]!)), F.zero), rhs[i]!))
+  f.push(det(F, L))
+  const J = [...M.map((r) => [...r]), [x[3]!, F.neg(x[2]!), F.neg(x[1]!), x[0]!]]
+  // Gaussian elimination with partial pivoting on [J | f]
+  const A = J.map((r, i) => [...r, f[i]!])
+  for (let c = 0; c < 4; c++) {
+    let piv = c
+    for (let r = c + 1; r < 4; r++) if (F.abs(A[r]![c]!) > F.abs(A[piv]![c]!)) piv = r
+    if (F.isZero(A[piv]![c]!)) return L
+    ;[A[c], A[piv]] = [A[piv]!, A[c]!]
+    for (let r = c + 1; r < 4; r++) {
+      const m = F.div(A[r]![c]!, A[c]![c]!)
+      for (let j = c; j < 5; j++) A[r]![j] = F.sub(A[r]![j]!, F.mul(m, A[c]![j]!))
+    }
+  }
+  const d: T[] = [F.zero, F.zero, F.zero, F.zero]
+  for (let r = 3; r >= 0; r--) {
+    let acc = A[r]![4]!
+    for (let j = r + 1; j < 4; j++) acc = F.sub(acc, F.mul(A[r]![j]!, d[j]!))
+    d[r] = F.div(acc, A[r]![r]!)
+  }
+  return [[F.sub(x[0]!, d[0]!), F.sub(x[1]!, d[1]!)], [F.sub(x[2]!, d[2]!), F.sub(x[3]!, d[3]!)]]
 }
