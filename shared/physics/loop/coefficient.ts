@@ -8,7 +8,7 @@ import { spinorSize, type Field } from '../field'
 import { angleOf, momentumSum, squareOf, type Kin, type Spinor } from '../spinors'
 import { threePoint, type VertexKind } from '../three-point'
 import { bcfw } from '../bcfw'
-import { defaultShift, vanishes, type Process } from '../theories'
+import { defaultShift, type Process } from '../theories'
 import { classifyGluon, parkeTaylorAntiMhv, parkeTaylorMhv } from '../targets/parke-taylor'
 import { berendsGiele } from '../targets/berends-giele'
 import { solveQuadrupleCut, type CutSolution } from './cut'
@@ -47,10 +47,10 @@ function vertexKind<T>(F: Field<T>, l: Spinor<T>, lt: Spinor<T>, e: Spinor<T>, e
 
 /** A gluon tree of four or more legs by the chosen method (vanishing classes give 0). */
 export function cornerTree<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], method: CornerMethod): T {
-  if (vanishes(p, h)) return F.zero
+  const c = classifyGluon(h)
+  if (c.kind === 'vanishing') return F.zero
   if (method === 'berends-giele') return berendsGiele(F, k, h)
   if (method === 'bcfw') return bcfw(F, p, k, h, defaultShift(p, h), { closedForms: false }).value
-  const c = classifyGluon(h)
   if (c.kind === 'mhv') return parkeTaylorMhv(F, k, c.i, c.j)
   if (c.kind === 'anti-mhv') return parkeTaylorAntiMhv(F, k, c.i, c.j)
   return bcfw(F, p, k, h, defaultShift(p, h)).value
@@ -62,7 +62,8 @@ export function cornerTree<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], m
  */
 export function boxCut<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number[], box: Box, opts: { corners?: CornerMethod; order?: number[] } = {}): BoxCut<T> {
   const method = opts.corners ?? 'closed'
-  const order = opts.order ?? [0, 1, 2, 3]
+  // default: three-point corners first, whose helicity rule zeroes most products before a tree is built
+  const order = opts.order ?? [0, 1, 2, 3].sort((a, b) => box.corners[a]!.length - box.corners[b]!.length)
   const K = box.corners.map((c) => momentumSum(F, k, c))
   const cuts = solveQuadrupleCut(F, K)
   const minusOne = F.fromInt(-1)
@@ -74,20 +75,24 @@ export function boxCut<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number
   const terms: BoxTerm<T>[] = []
   let value = F.zero
   solutions.forEach(({ cut, threePoint: kinds }, sIdx) => {
-    // corner q's amplitude for (h_in of −ℓ_q, h_out of +ℓ_{q+1}); memoized over the four values
-    const memo = new Map<string, T>()
+    // corner q's legs (−ℓ_q, its externals, +ℓ_{q+1}) do not depend on the helicities: built once
+    const kins: Kin<T>[] = box.corners.map((ext, q) => {
+      const out = (q + 1) % 4
+      return {
+        lambda: [cut.lambda[q]!, ...ext.map((e) => k.lambda[e]!), cut.lambda[out]!],
+        lambdaTilde: [neg(cut.lambdaTilde[q]!), ...ext.map((e) => k.lambdaTilde[e]!), cut.lambdaTilde[out]!],
+      }
+    })
+    // its amplitude for (h_in of −ℓ_q, h_out of +ℓ_{q+1}), memoized over the four values
+    const memo: (T | undefined)[] = new Array(16)
     const corner = (q: number, hIn: number, hOut: number): T => {
-      const key = `${q}:${hIn}:${hOut}`
-      const hit = memo.get(key)
+      const key = q * 4 + (hIn > 0 ? 2 : 0) + (hOut > 0 ? 1 : 0)
+      const hit = memo[key]
       if (hit !== undefined) return hit
       const ext = box.corners[q]!
-      const out = (q + 1) % 4
-      const lam = [cut.lambda[q]!, ...ext.map((e) => k.lambda[e]!), cut.lambda[out]!]
-      const lamT = [neg(cut.lambdaTilde[q]!), ...ext.map((e) => k.lambdaTilde[e]!), cut.lambdaTilde[out]!]
       const hs = [hIn, ...ext.map((e) => h[e]!), hOut]
-      const kin: Kin<T> = { lambda: lam, lambdaTilde: lamT }
-      const v = ext.length === 1 ? threePoint(F, p, kin, hs, kinds[q]!) : cornerTree(F, p, kin, hs, method)
-      memo.set(key, v)
+      const v = ext.length === 1 ? threePoint(F, p, kins[q]!, hs, kinds[q]!) : cornerTree(F, p, kins[q]!, hs, method)
+      memo[key] = v
       return v
     }
     for (const hl of HELICITY_SETS) {

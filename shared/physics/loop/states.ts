@@ -17,18 +17,20 @@ import type { Box } from './boxes'
 export function orientations(box: Box, kinds: readonly (VertexKind | null)[], helicities: readonly number[]): Map<string, number[]> {
   const groups = new Map<string, number[]>()
   const minus = box.corners.map((c) => c.filter((e) => helicities[e]! < 0).length)
+  const low = kinds.map((kind, q) => (kind ? (kind === 'square' ? 1 : 2) : 2))
+  const high = kinds.map((kind, q) => (kind ? low[q]! : box.corners[q]!.length))
   for (let o = 0; o < 16; o++) {
-    const bit = (l: number) => (o >> (l % 4)) & 1
-    const deg = [0, 1, 2, 3].map((q) => minus[q]! + bit(q) + (1 - bit(q + 1)))
-    const ok = deg.every((d, q) => {
-      const kind = kinds[q]
-      if (kind) return d === (kind === 'square' ? 1 : 2)
-      const legs = box.corners[q]!.length + 2
-      return d >= 2 && d <= legs - 2
-    })
+    let key = ''
+    let ok = true
+    for (let q = 0; q < 4 && ok; q++) {
+      const d = minus[q]! + ((o >> q) & 1) + (1 - ((o >> ((q + 1) % 4)) & 1))
+      ok = d >= low[q]! && d <= high[q]!
+      key += d
+    }
     if (!ok) continue
-    const key = deg.join(',')
-    groups.set(key, [...(groups.get(key) ?? []), o])
+    const g = groups.get(key)
+    if (g) g.push(o)
+    else groups.set(key, [o])
   }
   return groups
 }
