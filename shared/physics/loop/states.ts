@@ -17,7 +17,7 @@ import type { Box } from './boxes'
 export function orientations(box: Box, kinds: readonly (VertexKind | null)[], helicities: readonly number[]): Map<string, number[]> {
   const groups = new Map<string, number[]>()
   const minus = box.corners.map((c) => c.filter((e) => helicities[e]! < 0).length)
-  const low = kinds.map((kind, q) => (kind ? (kind === 'square' ? 1 : 2) : 2))
+  const low = kinds.map((kind) => (kind === 'square' ? 1 : 2))
   const high = kinds.map((kind, q) => (kind ? low[q]! : box.corners[q]!.length))
   for (let o = 0; o < 16; o++) {
     let key = ''
