@@ -23,7 +23,9 @@ import {
 } from '#shared/physics/index'
 import { TARGET_INFO } from '#shared/physics/targets/index'
 import { checkLimit } from '#shared/physics/checks/index'
+import { loopCuts } from '#shared/physics/loop/index'
 import type { LimitCheckRequestInput } from '#shared/schemas/limit-checks'
+import type { LoopCutRequestInput } from '#shared/schemas/loop-cuts'
 import { checkOrder, effectiveOrder, inOrder, isIdentity, responseToLabels, shiftInOrder } from '#shared/physics/colour-order'
 import { MAX_SPIN } from '#shared/physics/theories'
 import { FORMULA_MAX_EXPONENT, FORMULA_MAX_LENGTH } from '#shared/physics/formula'
@@ -50,6 +52,7 @@ export type Task =
   | { kind: 'shifts'; req: unknown }
   | { kind: 'crossShift'; req: unknown }
   | { kind: 'limitCheck'; req: unknown }
+  | { kind: 'loopCuts'; req: unknown }
   | { kind: 'catalogue' }
   | { kind: 'generatePoints'; g: GenerateInput }
   /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
@@ -101,6 +104,8 @@ function dispatch(task: Task): unknown {
       return crossShiftTask(task.req)
     case 'limitCheck':
       return checkLimit(task.req as LimitCheckRequestInput)
+    case 'loopCuts':
+      return loopCuts(task.req as LoopCutRequestInput)
     case 'catalogue':
       return catalogue()
     case 'generatePoints':

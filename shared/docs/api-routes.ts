@@ -9,6 +9,7 @@ import { DiagramCreateSchema, DiagramUpdateSchema, MemberAddSchema, ProjectCreat
 import { EvaluateRequestSchema } from '../schemas/evaluate'
 import { CheckRunSchema, CrossShiftRequestSchema, DrawingCheckSchema, ShiftsRequestSchema } from '../schemas/service'
 import { LimitCheckRequestSchema } from '../schemas/limit-checks'
+import { LoopCutRequestSchema } from '../schemas/loop-cuts'
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
 
@@ -57,7 +58,7 @@ export const API_SECTIONS: ApiSection[] = [
   {
     id: 'auth',
     title: 'Sign-in',
-    intro: 'Pages use a session cookie. Scripts send `Authorization: Bearer <token>` instead (create a token under your account); a read-only token may call every GET route and POST /api/evaluate, /api/shifts, /api/cross-shift and /api/limit-checks, which write nothing.',
+    intro: 'Pages use a session cookie. Scripts send `Authorization: Bearer <token>` instead (create a token under your account); a read-only token may call every GET route and POST /api/evaluate, /api/shifts, /api/cross-shift, /api/limit-checks and /api/loop-cuts, which write nothing.',
     routes: [
       {
         id: 'register', method: 'POST', path: '/api/auth/register', access: 'anyone', summary: 'Creates an account and signs in.',
@@ -194,6 +195,17 @@ export const API_SECTIONS: ApiSection[] = [
         ],
         response: 'Soft and collinear: `{ check, theory, n, helicities, legs, rows: [{ x, ratio, deviation }], rate, expectedRate, holds, factor, source, ms }` — `deviation` is |ratio − 1|, `rate` the fitted r of deviation ~ x^r (expected 1: the next term of each expansion is one power down). Identity: `{ check, theory, n, helicities, identity, arithmetic, relation, terms: [{ order, coefficient, value }], sum, residual, tolerance, holds, source, ms }` — `residual` = |Σ| / max |term|, `holds` when it is ≤ `tolerance` (1e-12; floats run in double-double) or exactly 0 in exact arithmetic.',
         statuses: [[200, 'checked'], [400, 'the body fails the schema'], [422, 'invalid process, a leg that does not exist, or a limit whose A_{n−1} vanishes identically'], [503, 'over the time budget'], ...commonErrors], runnable: true,
+      },
+      {
+        id: 'loop-cuts', method: 'POST', path: '/api/loop-cuts', access: 'signed in', summary: 'Every box of the one-loop colour-ordered gluon amplitude (four corners of consecutive legs, C(n, 4) boxes, n = 4..8) with its coefficient by the quadruple cut: ½ Σ over the two cut solutions and the 16 internal gluon helicities of the product of the four corner trees. For MHV helicities each box is compared with the N = 4 super-Yang–Mills coefficient (Bern, Dixon, Dunbar, Kosower, hep-ph/9403226): −½ (st − P²Q²) A_tree for one-mass and two-mass-easy boxes, −st A_tree at four points, 0 otherwise; a cut that fermions and scalars of the multiplet also cross is shown as its pure-gluon value and not compared. Exact arithmetic works for every box with a massless corner; four-mass boxes need a square root (float only). Writes nothing.',
+        schema: LoopCutRequestSchema,
+        examples: [
+          example(LoopCutRequestSchema, 'the four-point box', { helicities: [-1, -1, 1, 1] }),
+          example(LoopCutRequestSchema, 'six-gluon MHV, exact', { helicities: [-1, -1, 1, 1, 1, 1], arithmetic: 'exact' }),
+          example(LoopCutRequestSchema, 'split NMHV, Berends–Giele corners', { helicities: [-1, -1, -1, 1, 1, 1], corners: 'berends-giele', target: 'none' }),
+        ],
+        response: '`{ theory, n, helicities, arithmetic, corners, tree, boxes: [{ corners, kind, solutions: [{ threePoint, onShell, loopMomentum, states }], terms: [{ solution, helicities, value }], value, target, targetRule, deviation, verdict, note? }], sum, targetSum, counts, verdict, tolerance, source, warnings, ms }` — `helicities` of a term are h₁..h₄ of the lines ℓ₁..ℓ₄ at their outgoing end (line k runs from corner k−1 into corner k); `states` is `gluons` when only gluons of the N = 4 multiplet cross that cut; the overall `verdict` is `singular point` if any box is, else `disagrees` if any box disagrees, else `agrees` if any box was compared.',
+        statuses: [[200, 'the boxes'], [400, 'the body fails the schema'], [422, 'invalid helicities, fewer than 4 or more than 8 legs, or a point that does not fit the arithmetic'], [503, 'over the time budget'], ...commonErrors], runnable: true,
       },
     ],
   },

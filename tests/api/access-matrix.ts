@@ -51,6 +51,7 @@ export const matrix: RouteAccess[] = [
   { file: 'shifts.post.ts', access: 'user', scope: 'none', body: {} },
   { file: 'cross-shift.post.ts', access: 'user', scope: 'none', body: {} },
   { file: 'limit-checks.post.ts', access: 'user', scope: 'none', body: {} },
+  { file: 'loop-cuts.post.ts', access: 'user', scope: 'none', body: {} },
   { file: 'diagrams/[id]/checks/index.post.ts', access: 'editor', scope: 'diagram', body: {} },
   { file: 'diagrams/[id]/checks/index.get.ts', access: 'viewer', scope: 'diagram' },
   { file: 'diagrams/[id]/check-drawing.post.ts', access: 'viewer', scope: 'diagram', body: {} },
