@@ -79,6 +79,10 @@ export function wireOf(v: DD): [number, number] {
   return D.toWire(v) as [number, number]
 }
 
+/** A path holds when its last |ratio − 1| is below LAST_MAX and its fitted rate above expected − RATE_SLACK. */
+export const LAST_MAX = 1e-2
+export const RATE_SLACK = 0.25
+
 /**
  * Judges a path: |ratio − 1| small at the end and falling at (at least about) the expected rate.
  * Deviations at or below the rounding floor (a number, or one per x) are left out of the fit.
@@ -89,7 +93,7 @@ export function judge(rows: PathRow[], expectedRate: number, floor: number | ((x
   const rate = rateOf(above.map((r) => r.x), above.map((r) => r.deviation), 0)
   const lastRow = rows[rows.length - 1]!
   const last = lastRow.deviation
-  const holds = last < 1e-2 && (rate === null ? last <= floorAt(lastRow.x) : rate > expectedRate - 0.25)
+  const holds = last < LAST_MAX && (rate === null ? last <= floorAt(lastRow.x) : rate > expectedRate - RATE_SLACK)
   return { rate, holds }
 }
 
