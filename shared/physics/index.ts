@@ -275,7 +275,7 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
       } catch (e) {
         if (!(e instanceof SingularError)) throw e
         // Not a physical pole (checked above): a zero met by this shift's terms.
-        singular = `under the shift [${i + 1}, ${j + 1}⟩ ${e.what} (another valid shift may avoid it)`
+        singular = `under the shift [${i + 1}, ${j + 1}⟩ ${e.what}; another valid shift may avoid it`
       }
     }
     let targetValue: T | null = null

@@ -13,6 +13,8 @@ export const LimitCheckRequestSchema = z.discriminatedUnion('check', [
     helicities,
     /** The leg made soft (1-based). */
     soft: z.number().int(),
+    /** 'subleading' adds the Cachazo–Strominger factor S⁽¹⁾ (gravitons only; ratio − 1 ~ ε²). */
+    order: z.enum(['leading', 'subleading']).default('leading'),
     seed: seed.optional(),
     /** ε values (default 10⁻¹ … 10⁻⁸). */
     path,
@@ -49,6 +51,8 @@ export interface LimitPathResponse {
   helicities: number[]
   /** Soft: [s]; collinear: [a, b]. */
   legs: number[]
+  /** Soft: the order of the soft factor. */
+  order?: 'leading' | 'subleading'
   /** The ratio A_n / (factor × A_{n−1}) along the path, with |ratio − 1|. */
   rows: { x: number; ratio: [number, number]; deviation: number }[]
   rate: number | null

@@ -207,8 +207,10 @@ export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph
   if (verdict === 'agrees' && problem) verdict = 'disagrees'
   // A complete drawing holds the recursion's terms, so the recursion's precision estimate is its own.
   if (!problem && lostPrecision(verdict, n, deviation, res.precision?.estimated ?? null)) verdict = 'not evaluated'
+  // One sentence: the engine's warning already says "singular point: …"; its reason follows a colon.
+  const why = singular?.replace(/^singular point:?\s*/, '') ?? ''
   const message = singular
-    ? `the drawing meets a singular point (${singular})`
+    ? why ? `the drawing meets a singular point: ${why}` : 'the drawing meets a singular point'
     : problem
       ? `the drawing is not the recursion of [${res.shift[0]}, ${res.shift[1]}⟩: ${problem}${comparison.messages.length > 1 ? ` (and ${comparison.messages.length - 1} more)` : ''}`
       : verdict === 'agrees'

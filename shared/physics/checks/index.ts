@@ -40,12 +40,17 @@ export function checkLimit(input: LimitCheckRequestInput): LimitCheckResponse {
   const ms = () => Math.round((performance.now() - t0) * 1000) / 1000
   if (req.check === 'soft') {
     const s = label(req.soft, n, 'soft')
-    const r = softCheck(p, req.helicities, s, { seed: req.seed, path: req.path })
+    const r = softCheck(p, req.helicities, s, { seed: req.seed, path: req.path, order: req.order })
     const plus = req.helicities[s]! > 0
-    const factor = p.theory === 'gluon'
+    const sub = req.order === 'subleading'
+    const leading = p.theory === 'gluon'
       ? plus ? '⟨ab⟩ / (⟨as⟩⟨sb⟩)' : '−[ab] / ([as][sb])'
       : plus ? 'Σ_a [as]⟨ax⟩⟨ay⟩ / (⟨sa⟩⟨sx⟩⟨sy⟩)' : 'Σ_a ⟨as⟩[ax][ay] / ([sa][sx][sy])'
-    return { check: 'soft', theory: req.theory, n, helicities: req.helicities, legs: [s + 1], ...r, factor, source: 'Weinberg, Phys. Rev. 140 (1965) B516', ms: ms() }
+    const factor = !sub ? leading : plus
+      ? `${leading} + ½ Σ_a [as]/⟨sa⟩ (⟨ax⟩/⟨sx⟩ + ⟨ay⟩/⟨sy⟩) λ̃_s·∂/∂λ̃_a`
+      : `${leading} + ½ Σ_a ⟨as⟩/[sa] ([ax]/[sx] + [ay]/[sy]) λ_s·∂/∂λ_a`
+    const source = sub ? 'Weinberg, Phys. Rev. 140 (1965) B516; Cachazo & Strominger, arXiv:1404.4091' : 'Weinberg, Phys. Rev. 140 (1965) B516'
+    return { check: 'soft', theory: req.theory, n, helicities: req.helicities, legs: [s + 1], order: req.order, ...r, factor, source, ms: ms() }
   }
   if (req.check === 'collinear') {
     const a = label(req.leg, n, 'leg')
@@ -69,6 +74,6 @@ export function checkLimit(input: LimitCheckRequestInput): LimitCheckResponse {
   return arithmetic === 'exact' ? run(Q, rationalPoint(n, seed)) : run(ddField, toDoubleDouble(randomPoint(n, seed)))
 }
 
-export { softCheck, softFactor } from './soft'
+export { softCheck, softFactor, subleadingCoefficients } from './soft'
 export { collinearCheck, splitting } from './collinear'
 export { identityCheck, shuffles, IDENTITIES, IDENTITY_TOLERANCE, type IdentityName } from './identities'
