@@ -97,7 +97,12 @@ export function handleCount(n: EditorNode): number {
   return 3
 }
 
-export function handleIds(n: EditorNode): string[] {
-  if (n.type === 'leg') return ['p']
-  return Array.from({ length: handleCount(n) }, (_, t) => `h${t}`)
+// One shared list per slot count: validation asks for them on every node of every check.
+const HANDLE_IDS: readonly string[][] = Array.from({ length: 65 }, (_, k) => Array.from({ length: k }, (_, t) => `h${t}`))
+const LEG_HANDLES: readonly string[] = ['p']
+
+export function handleIds(n: EditorNode): readonly string[] {
+  if (n.type === 'leg') return LEG_HANDLES
+  const k = handleCount(n)
+  return HANDLE_IDS[k] ?? Array.from({ length: k }, (_, t) => `h${t}`)
 }

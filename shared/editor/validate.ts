@@ -150,8 +150,8 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     }
     slots[node.id] = info
     // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
-    const own = new Set(handleIds(node))
-    for (const h of handlesOf.get(node.id) ?? []) if (!own.has(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
+    const own = handleIds(node)
+    for (const h of handlesOf.get(node.id) ?? []) if (!own.includes(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
     const open = info.filter(x => x.edges.length === 0).length
     const crowded = info.filter(x => x.edges.length > 1)
     const total = info.length
