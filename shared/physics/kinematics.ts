@@ -3,7 +3,7 @@
 // validation of user-given momenta and spinors.
 import seedrandom from 'seedrandom'
 import { Complex, Fraction, complexField, parseRational, rationalField, type Field } from './field'
-import { angleOf, det, momentumSum, type Bispinor, type Kin, type Spinor } from './spinors'
+import { angleOf, bispinorAdd, bispinorZero, det, momentumSum, outer, type Bispinor, type Kin, type Spinor } from './spinors'
 import { PhysicsError, fmtSize } from './errors'
 import { ddField, ddOf, type DD } from './double-double'
 
@@ -77,14 +77,6 @@ export function solveLastTwo<T>(F: Field<T>, k: Kin<T>): Kin<T> {
   return { lambda: k.lambda.slice(), lambdaTilde }
 }
 
-/** Cyclically consecutive sets of size 2..n−2 (one of each complementary pair suffices) and all pairs. */
-function conditionSets(n: number): number[][] {
-  const sets: number[][] = []
-  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) sets.push([i, j])
-  for (let m = 3; m <= n - 3; m++) for (let a = 0; a < n; a++) sets.push(Array.from({ length: m }, (_, t) => (a + t) % n))
-  return sets
-}
-
 /** min |s_S| over pairs and consecutive sets, divided by max |s_ij|. */
 export function conditionRatio<T>(F: Field<T>, k: Kin<T>): number {
   // Remembered points are asked again by every evaluation at them (a point's numbers fix its field).
@@ -95,13 +87,30 @@ export function conditionRatio<T>(F: Field<T>, k: Kin<T>): number {
 const conditionRatios = new WeakMap<object, number>()
 
 function computeConditionRatio<T>(F: Field<T>, k: Kin<T>): number {
+  // All pairs and the cyclically consecutive sets of 3..n−3 legs (one of each complementary pair
+  // suffices), each summed leg by leg from zero as momentumSum does (so the same numbers), but every
+  // leg's momentum formed once and a consecutive set grown from the one a leg shorter.
   const n = k.lambda.length
+  const p = k.lambda.map((l, i) => outer(F, l, k.lambdaTilde[i]!))
+  const zero = bispinorZero(F)
   let maxPair = 0
   let min = Infinity
-  for (const S of conditionSets(n)) {
-    const s = F.abs(det(F, momentumSum(F, k, S)))
-    if (S.length === 2) maxPair = Math.max(maxPair, s)
-    min = Math.min(min, s)
+  for (let i = 0; i < n; i++) {
+    const Pi = bispinorAdd(F, zero, p[i]!)
+    for (let j = i + 1; j < n; j++) {
+      const s = F.abs(det(F, bispinorAdd(F, Pi, p[j]!)))
+      maxPair = Math.max(maxPair, s)
+      min = Math.min(min, s)
+    }
+  }
+  if (n >= 6) {
+    for (let a = 0; a < n; a++) {
+      let P = bispinorAdd(F, bispinorAdd(F, bispinorAdd(F, zero, p[a]!), p[(a + 1) % n]!), p[(a + 2) % n]!)
+      for (let m = 3; m <= n - 3; m++) {
+        if (m > 3) P = bispinorAdd(F, P, p[(a + m - 1) % n]!)
+        min = Math.min(min, F.abs(det(F, P)))
+      }
+    }
   }
   return maxPair === 0 ? 0 : min / maxPair
 }
