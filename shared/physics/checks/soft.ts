@@ -117,4 +117,3 @@ export function softCheck(p: Process, h: number[], s: number, opts: SoftOptions 
   }
   return { rows, ...judge(rows, 1), expectedRate: 1 }
 }
-
