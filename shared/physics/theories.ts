@@ -6,7 +6,7 @@ import { PhysicsError } from './errors'
 import type { Arithmetic } from './field'
 
 /** The theory names, in catalogue order (a tuple so zod can build its enum from it). */
-export const THEORY_NAMES = ['gluon', 'graviton', 'scalar-cubic', 'spin', 'spin-three'] as const
+export const THEORY_NAMES = ['gluon', 'graviton', 'scalar-cubic', 'spin'] as const
 export type TheoryName = (typeof THEORY_NAMES)[number]
 
 /** A particle species a theory's legs may carry. */
@@ -119,22 +119,6 @@ export const THEORIES: Record<TheoryName, TheoryInfo> = {
     minLegs: 4,
     needsSpin: false,
     helicityRule: '±2',
-    falloff: gravityFalloff,
-    validShift: (legs, i, j) => !plusMinus(legs, i, j),
-    defaultShift: firstMinusShift,
-    vanishes: helicityVanishing,
-  },
-  'spin-three': {
-    name: 'spin-three',
-    amplitudeLatex: 'M',
-    particles: 'spin-3 particles',
-    label: 'spin 3 (scratch)',
-    species: [{ name: 'spin-three', spin: 3, colourOrdered: false, pdg: null, latex: 'X' }],
-    colourOrdered: false,
-    limits: { float: 7, exact: 6, measure: 6 },
-    minLegs: 4,
-    needsSpin: false,
-    helicityRule: '±3',
     falloff: gravityFalloff,
     validShift: (legs, i, j) => !plusMinus(legs, i, j),
     defaultShift: firstMinusShift,
