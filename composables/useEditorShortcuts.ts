@@ -1,9 +1,9 @@
 // The editor's keyboard: one table drives both the key handler and the help overlay.
 import { useEventListener } from '@vueuse/core'
 
-export type ShortcutAction =
-  | 'help' | 'delete' | 'undo' | 'redo' | 'save' | 'check' | 'fit' | 'tidy' | 'expand' | 'expandFull'
-  | 'expandBlock' | 'pickShift' | 'addAngle' | 'addSquare' | 'addBlock' | 'addLeg' | 'escape'
+export type ShortcutAction
+  = | 'help' | 'delete' | 'undo' | 'redo' | 'save' | 'check' | 'fit' | 'tidy' | 'expand' | 'expandFull'
+    | 'expandBlock' | 'pickShift' | 'addAngle' | 'addSquare' | 'addBlock' | 'addLeg' | 'escape'
 
 export interface Shortcut {
   /** As the help shows it. */

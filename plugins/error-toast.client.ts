@@ -3,7 +3,7 @@
 import type { ComponentPublicInstance } from 'vue'
 
 function where(instance: ComponentPublicInstance | null, info: string): string {
-  const name = (instance?.$options as { __name?: string, name?: string } | undefined)
+  const name = instance?.$options as { __name?: string, name?: string } | undefined
   const component = name?.__name ?? name?.name
   return component ? `${component} (${info})` : info
 }

@@ -133,7 +133,7 @@ export function composeMail(letter: Letter): Mail {
   const p = (s: string) => `<p style="margin:0 0 14px">${escapeHtml(s).replace(/\n/g, '<br>')}</p>`
   const button = letter.action
     ? `<p style="margin:20px 0"><a href="${escapeHtml(letter.action.url)}" style="background:#3d4fd6;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(letter.action.label)}</a></p>`
-      + `<p style="margin:0 0 14px;font-size:12px;color:#666">Or paste this address into your browser: ${escapeHtml(letter.action.url)}</p>`
+    + `<p style="margin:0 0 14px;font-size:12px;color:#666">Or paste this address into your browser: ${escapeHtml(letter.action.url)}</p>`
     : ''
   const html = `<!doctype html><html><body style="font-family:system-ui,sans-serif;color:#222;max-width:560px;margin:0 auto;padding:16px">`
     + `<p style="font-weight:700;margin:0 0 16px">Polewright</p>`

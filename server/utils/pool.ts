@@ -100,13 +100,15 @@ async function runOutcome(task: Task, opts: PoolOptions = {}): Promise<Outcome &
   opts.signal?.addEventListener('abort', onAbort, { once: true })
   try {
     return (await p.run(task, { signal: ac.signal })) as Outcome
-  } catch (e) {
+  }
+  catch (e) {
     if (timedOut) throw new EvaluationError(503, '', `the evaluation exceeded its time budget of ${budget} ms`, undefined)
     if (opts.signal?.aborted) throw new EvaluationError(499, '', 'the evaluation was cancelled')
     if (e instanceof Error && /queue is at limit/i.test(e.message)) throw new EvaluationError(503, '', 'the evaluation queue is full; try again shortly')
     console.error('[polewright] evaluation worker failed', e)
     throw new EvaluationError(503, '', 'the evaluation worker stopped unexpectedly; try again')
-  } finally {
+  }
+  finally {
     clearTimeout(timer)
     opts.signal?.removeEventListener('abort', onAbort)
   }
@@ -161,7 +163,8 @@ export async function evaluateManyInPool(
       const o = await runOutcome({ kind: 'evaluateMany', reqs: part }, opts)
       if (!o.ok) throw failureError(o)
       items = (o.value as Outcome[]).map((x) => (x.ok ? { ok: true as const, value: x.value as EvaluateResponse } : toItem(failureError(x))))
-    } catch (e) {
+    }
+    catch (e) {
       const err = e instanceof EvaluationError ? e : new EvaluationError(503, '', String(e))
       items = part.map(() => toItem(err))
     }

@@ -2,7 +2,7 @@
 // valid shifts agree; at n = 4 this is the four-particle test (Benincasa & Cachazo,
 // arXiv:0705.4305; higher spins McGady & Rodina, arXiv:1311.2938 — references from memory):
 // spin 1, 3, 4 without colour give different residue sums under different shifts.
-import { Complex, Fraction, SingularError, complexField, rationalField as Q, type Field } from './field'
+import { type Complex, Fraction, SingularError, complexField, rationalField as Q, type Field } from './field'
 import { ddField } from './double-double'
 import { fromDoubleDouble, rationalPoint, toDoubleDouble } from './kinematics'
 import { det, momentumSum, sandwichOf, type Kin } from './spinors'
@@ -83,7 +83,8 @@ export function crossShift<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], t
     let value: T | null = null
     try {
       value = bcfw(F, p, k, h, [i, j]).value
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof SingularError)) throw e
     }
     rows.push({ shift: [i + 1, j + 1], valid: isValidShift(p, h, i, j), value })

@@ -8,6 +8,7 @@ export class PhysicsError extends Error {
   get data() {
     return { field: this.field }
   }
+
   constructor(
     public readonly field: string,
     reason: string,

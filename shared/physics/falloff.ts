@@ -145,7 +145,8 @@ export function probeFalloff(p: Process, h: number[], i: number, j: number, seed
       const { slope, spread } = fit(xs, ys)
       const exponent = Math.round(slope) || 0 // no −0
       return { exponent, valid: exponent < 0, spread, slope, measured: true }
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof SingularError)) throw e
     }
   }

@@ -48,11 +48,11 @@ function fail(message: string, position: number): never {
   throw new PhysicsError(FIELD, `${message} at position ${position}`)
 }
 
-type Bracket =
-  | { kind: 'ang' | 'sq'; legs: [number, number] }
-  | { kind: 'sand'; i: number; j: number; p: number[] }
-  | { kind: 'mand'; p: number[] }
-  | { kind: 'amp'; p: number[] }
+type Bracket
+  = | { kind: 'ang' | 'sq'; legs: [number, number] }
+    | { kind: 'sand'; i: number; j: number; p: number[] }
+    | { kind: 'mand'; p: number[] }
+    | { kind: 'amp'; p: number[] }
 
 interface Translation {
   text: string
@@ -98,7 +98,8 @@ function translate(src: string, n: number): Translation {
         out.push(checkLeg(Number(digits[d]), start + d))
         legAt.push(start + d)
       }
-    } else {
+    }
+    else {
       out.push(checkLeg(Number(digits), start))
       legAt.push(start)
     }
@@ -125,7 +126,8 @@ function translate(src: string, n: number): Translation {
       if (src[pos] === '+') {
         pos++
         p.push(...legs(false))
-      } else return p
+      }
+      else return p
     }
   }
   /** "(" legs separated by commas ")" after the name s or A (the first may be digits written together). */
@@ -138,7 +140,8 @@ function translate(src: string, n: number): Translation {
       if (src[pos] === ',') {
         pos++
         p.push(...legs(false))
-      } else break
+      }
+      else break
     }
     expectChar(')', `"," or ")" in ${name}(…)`)
     return p
@@ -155,7 +158,8 @@ function translate(src: string, n: number): Translation {
     const at = pos
     if (/\s/.test(c)) {
       emit(' ', pos++)
-    } else if (c === '<' || c === '[') {
+    }
+    else if (c === '<' || c === '[') {
       // <i j>, [i j], <i|P|j] or [j|P|i> (= <i|P|j]).
       pos++
       const first = legs(true)
@@ -171,7 +175,8 @@ function translate(src: string, n: number): Translation {
         expectChar(c === '<' ? ']' : '>', c === '<' ? '"]" (a sandwich reads <i|P|j])' : '">" (a sandwich reads [j|P|i>)')
         const [i, j] = c === '<' ? [first[0]!, last[0]!] : [last[0]!, first[0]!]
         call({ kind: 'sand', i, j, p }, at)
-      } else {
+      }
+      else {
         const pair = [...first]
         if (pair.length === 1) {
           if (src[pos] === ',') pos++
@@ -181,7 +186,8 @@ function translate(src: string, n: number): Translation {
         expectChar(c === '<' ? '>' : ']', c === '<' ? '">" (an angle bracket reads <i j>)' : '"]" (a square bracket reads [i j])')
         call({ kind: c === '<' ? 'ang' : 'sq', legs: [pair[0]!, pair[1]!] }, at)
       }
-    } else if (/[A-Za-z_]/.test(c)) {
+    }
+    else if (/[A-Za-z_]/.test(c)) {
       let e = pos
       while (e < end && /\w/.test(src[e]!)) e++
       const name = src.slice(pos, e)
@@ -199,7 +205,8 @@ function translate(src: string, n: number): Translation {
       if (p.length < 2) fail('s(…) needs at least two legs', at + 1)
       noRepeats(p, 's(…)')
       call({ kind: 'mand', p }, at)
-    } else if (/[\d.]/.test(c)) {
+    }
+    else if (/[\d.]/.test(c)) {
       const m = /^(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?/.exec(src.slice(pos))
       if (!m) fail(`unexpected "${c}"`, pos + 1)
       if (m[1]!.replace('.', '').length > FORMULA_MAX_LITERAL_DIGITS) fail(`the number has more than ${FORMULA_MAX_LITERAL_DIGITS} digits`, pos + 1)
@@ -209,12 +216,15 @@ function translate(src: string, n: number): Translation {
       emit(m[0], pos)
       for (let t = 1; t < m[0].length; t++) map[map.length - m[0].length + t] = pos + t
       pos += m[0].length
-    } else if ('+-*/^'.includes(c)) {
+    }
+    else if ('+-*/^'.includes(c)) {
       ops.push(pos)
       emit(c, pos++)
-    } else if (c === '(' || c === ')') {
+    }
+    else if (c === '(' || c === ')') {
       emit(c, pos++)
-    } else {
+    }
+    else {
       fail(`unexpected character "${c}"`, pos + 1)
     }
   }
@@ -232,7 +242,8 @@ const MESSAGES: Array<[RegExp, (m: RegExpExecArray) => string]> = [
 function parseWithMathjs(tr: Translation, src: string): MathNode {
   try {
     return math.parse(tr.text)
-  } catch (e) {
+  }
+  catch (e) {
     const err = e as SyntaxError & { char?: number }
     const msg = err.message ?? String(e)
     let reason = msg.replace(/\s*\(char \d+\)\s*$/, '')
@@ -428,7 +439,8 @@ function exponentOf(node: MathNode, at: number): number {
     else if (x.type === 'OperatorNode' && (x as OperatorNode).args.length === 1) {
       if ((x as OperatorNode).fn === 'unaryMinus') sign = -sign
       x = (x as OperatorNode).args[0]!
-    } else break
+    }
+    else break
   }
   const v = x.type === 'ConstantNode' ? ((x as ConstantNode).value as unknown as Decimalish) : null
   if (!v || !v.isInteger()) fail('an exponent must be an integer', at + 1)
@@ -489,7 +501,8 @@ export function compileFormula(src: string, n: number): CompiledFormula {
       currentAmplitude = amplitude ?? null
       try {
         return run(F, k)
-      } finally {
+      }
+      finally {
         currentAmplitude = outer
       }
     },

@@ -123,7 +123,8 @@ function drawUntilConditioned<T>(F: Field<T>, n: number, draw: () => Kin<T>, see
     let k: Kin<T>
     try {
       k = solveLastTwo(F, draw())
-    } catch {
+    }
+    catch {
       continue
     }
     if (conditionRatio(F, k) >= CONDITION_THRESHOLD) return k
@@ -250,7 +251,8 @@ function restoreWithWarning(k: Kin<Complex>): BuiltPoint<Complex> {
   let fixed: Kin<Complex>
   try {
     fixed = solveLastTwo(complexField, k)
-  } catch {
+  }
+  catch {
     throw new PhysicsError('kinematics', `legs ${n - 1} and ${n} are collinear (⟨${n - 1} ${n}⟩ = 0), so momentum conservation cannot be restored`)
   }
   let change = 0
@@ -304,7 +306,8 @@ export function pointFromExactSpinors(lambda: string[][], lambdaTilde: string[][
     s.map((x, c) => {
       try {
         return parseRational(x)
-      } catch {
+      }
+      catch {
         throw new PhysicsError(`kinematics.${name}[${i}][${c}]`, `"${x}" is not an integer or p/q`)
       }
     }) as Spinor<Fraction>

@@ -91,7 +91,8 @@ export function byPrimes<S>(k: Kin<Fraction>, compute: (F: LaneField, k: Kin<Lan
     let run: LaneRun<S>
     try {
       run = compute(F, kinLanes(F, k))
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof SingularError)) throw e
       return null
     }
@@ -123,7 +124,8 @@ export function byPrimes<S>(k: Kin<Fraction>, compute: (F: LaneField, k: Kin<Lan
         idx.push(F.indices[t]!)
         rows.push(row)
       }
-    } else unlucky += F.width
+    }
+    else unlucky += F.width
     const values = rows.length >= 3 ? reconstructAll(rows, idx) : null
     if (values) {
       if (opts.key) {

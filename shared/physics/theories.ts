@@ -90,7 +90,7 @@ function firstMinusShift(legs: readonly Leg[]): [number, number] {
 const gravityFalloff = (legs: readonly Leg[], i: number, j: number) => (plusMinus(legs, i, j) ? 6 : -2)
 
 export const THEORIES: Record<TheoryName, TheoryInfo> = {
-  gluon: {
+  'gluon': {
     name: 'gluon',
     amplitudeLatex: 'A',
     particles: 'gluons',
@@ -109,7 +109,7 @@ export const THEORIES: Record<TheoryName, TheoryInfo> = {
     defaultShift: firstMinusShift,
     vanishes: helicityVanishing,
   },
-  graviton: {
+  'graviton': {
     name: 'graviton',
     amplitudeLatex: 'M',
     particles: 'gravitons',
@@ -141,7 +141,7 @@ export const THEORIES: Record<TheoryName, TheoryInfo> = {
     defaultShift: () => [0, 2], // [1,3⟩: non-adjacent for n ≥ 4
     vanishes: () => false,
   },
-  spin: {
+  'spin': {
     name: 'spin',
     amplitudeLatex: 'A',
     particles: 'this spin-s species',
@@ -257,7 +257,8 @@ export function validateProcess(theory: TheoryName, helicities: number[], arithm
     if (spin !== 2 && n !== 4) throw new PhysicsError('helicities', `for spin ${spin} only n = 4 (the four-particle test) is offered, got n = ${n}`)
     if (spin % 2 === 1)
       warnings.push(`spin ${spin}: the three-point block is antisymmetric under exchange of two identical legs; Bose symmetry would force its coupling to vanish without structure constants (evaluated as written)`)
-  } else if (spin !== undefined) {
+  }
+  else if (spin !== undefined) {
     warnings.push(`spin: ignored for theory ${theory}`)
   }
   if (n < info.minLegs) throw new PhysicsError('helicities', `at least ${info.minLegs} legs are needed for on-shell recursion, got ${n}`)

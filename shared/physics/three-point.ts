@@ -44,7 +44,8 @@ export function threePointFormula<T>(F: Field<T>, k: Kin<T>, h: readonly number[
       F.mul(powBracket(F, L[a]!, L[b]!, h3 - h1 - h2, kind, '⟨12⟩'), powBracket(F, L[b]!, L[c]!, h1 - h2 - h3, kind, '⟨23⟩')),
       powBracket(F, L[c]!, L[a]!, h2 - h3 - h1, kind, '⟨31⟩'),
     )
-  } else {
+  }
+  else {
     const L = k.lambdaTilde
     v = F.mul(
       F.mul(powBracket(F, L[a]!, L[b]!, h1 + h2 - h3, kind, '[12]'), powBracket(F, L[b]!, L[c]!, h2 + h3 - h1, kind, '[23]')),

@@ -1,6 +1,5 @@
 // Verdicts of docs/conventions.md "Verdicts", and the deviation measure.
-import type { Field } from './field'
-import type { Arithmetic } from './field'
+import type { Arithmetic, Field } from './field'
 
 export type Verdict = 'singular point' | 'not evaluated' | 'boundary term suspected' | 'agrees' | 'disagrees'
 

@@ -10,7 +10,6 @@ import { minInvariantRatio } from './invariants'
 import type { PointData, WireSpinor } from './types'
 import type { GenerateInput } from './schemas'
 
-
 /**
  * Most legs for `physical` sets. Measured: a well-conditioned RAMBO point (min |s_ij| / max |s_ij| ≥ 1e-3)
  * takes ~0.1 s to draw at n = 14, ~3 s at n = 15, and none is found in 10,000 draws at n = 16.

@@ -2,7 +2,8 @@
 // momentum conservation and masslessness to 1e-8 relative to the point's scale (docs/api.md), and the
 // leg count of the point set. A refused point gets its reason and the relative size of the violation.
 import { PhysicsError } from '../physics/errors'
-import { Complex, complexField } from '../physics/field'
+import type { Complex } from '../physics/field'
+import { complexField } from '../physics/field'
 import { pointFromMomenta, pointFromSpinors, type BuiltPoint } from '../physics/kinematics'
 import { momentumSum } from '../physics/spinors'
 import { kinOf, minInvariantRatio } from './invariants'

@@ -60,7 +60,8 @@ export function pruneDeep(value: unknown, maxDepth = JSON_MAX_DEPTH * 2): { valu
       const out: unknown[] = Array.from({ length: src.length })
       set(out)
       src.forEach((x, i) => stack.push({ src: x, set: (y) => { out[i] = y }, depth: depth + 1, path: `${path}[${i}]` }))
-    } else {
+    }
+    else {
       const out: Record<string, unknown> = {}
       set(out)
       for (const [k, x] of Object.entries(src)) stack.push({ src: x, set: (y) => { out[k] = y }, depth: depth + 1, path: path ? `${path}.${k}` : k })

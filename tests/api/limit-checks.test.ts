@@ -2,7 +2,8 @@
 // collinear (Mangano & Parke, Phys. Rept. 200 (1991) 301) and identity checks (Kleiss & Kuijf,
 // Nucl. Phys. B312 (1989) 616), and the error statuses with the field named.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { Client, newUser } from '../helpers/api'
+import type { Client } from '../helpers/api'
+import { newUser } from '../helpers/api'
 
 let u: Client
 beforeAll(async () => {

@@ -4,7 +4,8 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
-import { Client, baseURL, projectWithRoles } from '../helpers/api'
+import type { Client } from '../helpers/api'
+import { baseURL, projectWithRoles } from '../helpers/api'
 
 const lhe = readFileSync(resolve(import.meta.dirname, '../fixtures/gluons.lhe'), 'utf8')
 

@@ -62,7 +62,7 @@ describe('cross-site writes', () => {
     const res = await fetch(url(), { method: 'POST', headers: { 'cookie': ctx.owner.cookie, 'content-type': 'application/x-www-form-urlencoded' }, body: 'name=evil' })
     expect(res.status).toBe(415)
     expect((await res.json()).data.field).toBe('content-type')
-    const plain = await fetch(`${baseURL()}/api/projects/${pid}/members`, { method: 'POST', headers: { cookie: ctx.owner.cookie, 'content-type': 'text/plain' }, body: JSON.stringify({ email: ctx.outsider.email, role: 'owner' }) })
+    const plain = await fetch(`${baseURL()}/api/projects/${pid}/members`, { method: 'POST', headers: { 'cookie': ctx.owner.cookie, 'content-type': 'text/plain' }, body: JSON.stringify({ email: ctx.outsider.email, role: 'owner' }) })
     expect(plain.status).toBe(415)
   })
   it('V4.2.2 a cookie write with Origin null or a foreign Origin is refused', async () => {

@@ -20,24 +20,24 @@ interface Amp {
   helicities: number[]
 }
 
-export type DrawnPart =
-  | { kind: 'vertex', node: string, legs: DrawnLeg[], helicities: number[], vertexKind: VertexKind, zero: boolean }
-  | { kind: 'block', node: string, legs: DrawnLeg[], helicities: number[], zero: boolean }
-  | {
-    kind: 'term'
-    legs: DrawnLeg[]
-    helicities: number[]
-    /** 0-based positions in `legs`. */
-    shift: [number, number]
-    /** Positions (in `legs`) of A_L's and A_R's external legs, in the engine's order. */
-    L: number[]
-    R: number[]
-    /** The Line of this channel (edge id) and the helicity at its end on A_L's side. */
-    line: string
-    helicity: number
-    left: DrawnPart
-    right: DrawnPart
-  }
+export type DrawnPart
+  = | { kind: 'vertex', node: string, legs: DrawnLeg[], helicities: number[], vertexKind: VertexKind, zero: boolean }
+    | { kind: 'block', node: string, legs: DrawnLeg[], helicities: number[], zero: boolean }
+    | {
+      kind: 'term'
+      legs: DrawnLeg[]
+      helicities: number[]
+      /** 0-based positions in `legs`. */
+      shift: [number, number]
+      /** Positions (in `legs`) of A_L's and A_R's external legs, in the engine's order. */
+      L: number[]
+      R: number[]
+      /** The Line of this channel (edge id) and the helicity at its end on A_L's side. */
+      line: string
+      helicity: number
+      left: DrawnPart
+      right: DrawnPart
+    }
 
 export interface DrawnIssue {
   /** Node or edge id the message belongs on. */

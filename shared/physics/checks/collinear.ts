@@ -84,10 +84,12 @@ export function collinearCheck(p: Process, h: number[], a: number, opts: Colline
       if (t === a) {
         lambda.push(mix(lP, eta, sz, sw))
         lambdaTilde.push(mix(ltP, etaT, sz, sw))
-      } else if (t === b) {
+      }
+      else if (t === b) {
         lambda.push(mix(lP, eta, sw, D.neg(sz)))
         lambdaTilde.push(mix(ltP, etaT, sw, D.neg(sz)))
-      } else {
+      }
+      else {
         lambda.push(hard.lambda[hardIndex(t)]!)
         lambdaTilde.push(hard.lambdaTilde[hardIndex(t)]!)
       }

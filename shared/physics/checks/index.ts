@@ -11,19 +11,19 @@ import { collinearCheck } from './collinear'
 import { identityCheck, type IdentityName } from './identities'
 
 const RELATIONS: Record<IdentityName, string> = {
-  cyclicity: 'A(1, 2, …, n) − A(2, …, n, 1) = 0',
-  reflection: 'A(1, 2, …, n) − (−1)ⁿ A(n, …, 2, 1) = 0',
+  'cyclicity': 'A(1, 2, …, n) − A(2, …, n, 1) = 0',
+  'reflection': 'A(1, 2, …, n) − (−1)ⁿ A(n, …, 2, 1) = 0',
   'u1-decoupling': 'Σ over the positions of leg 1 of A(2, …, 1, …, n) = 0',
   'kleiss-kuijf': 'A(1, α, n, β) − (−1)^|β| Σ_{σ ∈ α ⧢ βᵀ} A(1, σ, n) = 0',
-  bcj: 'Σ_{i=3}^{n} (Σ_{j=3}^{i} s_2j) A(1, 3, …, i, 2, i+1, …, n) = 0',
+  'bcj': 'Σ_{i=3}^{n} (Σ_{j=3}^{i} s_2j) A(1, 3, …, i, 2, i+1, …, n) = 0',
 }
 
 const SOURCES: Record<IdentityName, string> = {
-  cyclicity: 'Kleiss & Kuijf, Nucl. Phys. B312 (1989) 616',
-  reflection: 'Kleiss & Kuijf, Nucl. Phys. B312 (1989) 616',
+  'cyclicity': 'Kleiss & Kuijf, Nucl. Phys. B312 (1989) 616',
+  'reflection': 'Kleiss & Kuijf, Nucl. Phys. B312 (1989) 616',
   'u1-decoupling': 'Kleiss & Kuijf, Nucl. Phys. B312 (1989) 616',
   'kleiss-kuijf': 'Kleiss & Kuijf, Nucl. Phys. B312 (1989) 616',
-  bcj: 'Bern, Carrasco, Johansson, arXiv:0805.3993',
+  'bcj': 'Bern, Carrasco, Johansson, arXiv:0805.3993',
 }
 
 function label(l: number, n: number, field: string): number {

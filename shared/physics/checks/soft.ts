@@ -191,4 +191,3 @@ export function softCheck(p: Process, h: number[], s: number, opts: SoftOptions 
   const expected = subleading ? 2 : 1
   return { rows, ...judge(rows, expected, subleading ? subleadingFloor : 1e-20), expectedRate: expected }
 }
-

@@ -89,7 +89,8 @@ export function polarizations<T>(F: Field<T>, k: Kin<T>, helicities: readonly nu
         const x = small(), y = small()
         candidates.push(() => [F.fromInt(x), F.fromInt(y)])
       }
-    } else {
+    }
+    else {
       const other = helicities[a] === 1 ? firstMinus : firstPlus
       if (other >= 0) candidates.push(() => (helicities[a] === 1 ? k.lambda[other]! : k.lambdaTilde[other]!))
     }
@@ -101,7 +102,8 @@ export function polarizations<T>(F: Field<T>, k: Kin<T>, helicities: readonly nu
         const qk = angOf(F, q, l)
         if (F.isZero(qk) || tooSmall(F, qk, q, l)) continue
         eps.push([F.div(F.mul(q[0], lt[0]), qk), F.div(F.mul(q[0], lt[1]), qk), F.div(F.mul(q[1], lt[0]), qk), F.div(F.mul(q[1], lt[1]), qk)])
-      } else {
+      }
+      else {
         const kq = sqOf(F, lt, q)
         if (F.isZero(kq) || tooSmall(F, kq, q, lt)) continue
         eps.push([F.div(F.mul(l[0], q[0]), kq), F.div(F.mul(l[0], q[1]), kq), F.div(F.mul(l[1], q[0]), kq), F.div(F.mul(l[1], q[1]), kq)])

@@ -30,11 +30,13 @@ export function classifyGluon(helicities: readonly number[]): MhvClass {
       if (minus === 0) m0 = a
       else if (minus === 1) m1 = a
       minus++
-    } else if (h === 1) {
+    }
+    else if (h === 1) {
       if (plus === 0) p0 = a
       else if (plus === 1) p1 = a
       plus++
-    } else {
+    }
+    else {
       throw new PhysicsError(`helicities[${a}]`, `a gluon has helicity ±1`)
     }
   }

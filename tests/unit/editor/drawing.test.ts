@@ -74,7 +74,7 @@ describe('drawn terms from the engine\'s term tree: the drawn sum is the recursi
   it.each(PROCESSES)('$name: every channel term, top level and fully expanded', ({ p }) => {
     const res = evaluate(evaluateRequest(p, { kinematics: { kind: 'random', seed: 7 } }))
     const scale = Math.max(...res.terms.map(t => cabs(t.value)))
-    expect(res.target!.name).toBe(res.terms.length && p.helicities.filter(x => x < 0).length === 2 || p.helicities.filter(x => x > 0).length === 2 ? 'parke-taylor' : 'berends-giele')
+    expect(res.target!.name).toBe((res.terms.length && p.helicities.filter(x => x < 0).length === 2) || p.helicities.filter(x => x > 0).length === 2 ? 'parke-taylor' : 'berends-giele')
     for (const full of [false, true]) {
       if (full && p.helicities.length === 8 && p.helicities.filter(x => x < 0).length === 4) continue // N²MHV at 8: top level only (the full tree is large)
       const g = expandedGraph(p, full)

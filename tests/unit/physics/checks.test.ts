@@ -148,7 +148,8 @@ describe('checkLimit: the engine entry of POST /api/limit-checks', () => {
     const field = (f: () => unknown) => {
       try {
         f()
-      } catch (e) {
+      }
+      catch (e) {
         return (e as PhysicsError).field
       }
       return null

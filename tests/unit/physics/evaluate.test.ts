@@ -161,7 +161,8 @@ describe('bad input: typed errors naming the field', () => {
     try {
       evaluate(req)
       expect.unreachable()
-    } catch (e) {
+    }
+    catch (e) {
       expect(e).toBeInstanceOf(PhysicsError)
       expect((e as PhysicsError).status).toBe(422)
       expect((e as PhysicsError).field).toBe(field)

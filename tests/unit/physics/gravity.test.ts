@@ -70,7 +70,8 @@ describe('Bose symmetry of graviton amplitudes (common practice)', () => {
     const k = n <= 6 ? rationalPoint(n, 5) : null
     if (k) {
       expect(bcfwValue(Q, G, permute(k, perm), perm.map((t) => h[t]!)).equals(bcfwValue(Q, G, k, h))).toBe(true)
-    } else {
+    }
+    else {
       const kc = randomPoint(n, 5)
       expect(relDiff(C, bcfwValue(C, G, permute(kc, perm), perm.map((t) => h[t]!)), bcfwValue(C, G, kc, h))).toBeLessThan(1e-11)
     }

@@ -109,7 +109,8 @@ describe('given momenta', () => {
     try {
       pointFromMomenta(make())
       expect.unreachable()
-    } catch (e) {
+    }
+    catch (e) {
       expect(e).toBeInstanceOf(PhysicsError)
       expect((e as PhysicsError).status).toBe(422)
       expect((e as PhysicsError).field).toBe('kinematics')

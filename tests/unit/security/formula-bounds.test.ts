@@ -11,7 +11,8 @@ function refusal(src: string): PhysicsError {
   let err: unknown
   try {
     compileFormula(src, 4)
-  } catch (e) {
+  }
+  catch (e) {
     err = e
   }
   expect(performance.now() - t0).toBeLessThan(1000)

@@ -44,5 +44,6 @@ export function expectSubleading(dev: (eps: number) => number): void {
   if (d1 > 1e-10) {
     expect(d2 / d1).toBeGreaterThan(0.05)
     expect(d2 / d1).toBeLessThan(0.2)
-  } else expect(d2).toBeLessThan(1e-10)
+  }
+  else expect(d2).toBeLessThan(1e-10)
 }

@@ -103,7 +103,8 @@ describe('errors name target.formula and the 1-based position in the user\'s str
     let err: unknown
     try {
       compileFormula(src, n)
-    } catch (e) {
+    }
+    catch (e) {
       err = e
     }
     expect(err).toBeInstanceOf(PhysicsError)
