@@ -44,6 +44,8 @@ describe('landing and account pages in the browser', () => {
     expect(floatText).toMatch(/agrees/)
     expect(floatText).toMatch(/parke-taylor/)
     expect(floatText).toMatch(/tolerance 1e\u22129/)
+    expect(floatText).toMatch(/\d+ channel terms?\b/)
+    expect(floatText).not.toMatch(/(^|\D)1 channel terms/)
     expect(await page.locator('[data-test=showcase-verdicts] li[data-arithmetic=exact]').textContent()).toMatch(/agrees.*equal/s)
     expect(showcase.checks.map((c: { verdict: string }) => c.verdict)).toEqual(['agrees', 'agrees'])
     await both('landing')
