@@ -16,13 +16,13 @@ async function build() {
   const float = await evaluateInPool(evaluateRequest(PROCESS, { kinematics: { kind: 'random', seed: STRUCTURE_SEED }, target: 'auto', tree: true }))
   const exact = await evaluateInPool(evaluateRequest(PROCESS, { kinematics: { kind: 'rational', seed: 'showcase' }, target: 'auto', arithmetic: 'exact' }))
   const graph = graphFromTree(PROCESS, float, true)
-  const svg = canvasSvg(graph.nodes as EditorNode[], graph.edges as EditorEdge[], { shift: graph.process.shift, padding: 24 })
+  const svg = canvasSvg(graph.nodes as EditorNode[], graph.edges as EditorEdge[], { shift: graph.process?.shift ?? PROCESS.shift, padding: 24 })
   const verdictOf = (r: typeof float, seed: string) => ({
     arithmetic: r.arithmetic, verdict: r.verdict, deviation: r.deviation, target: r.target?.name ?? null,
     tolerance: r.arithmetic === 'float' ? floatTolerance(r.n) : null, seed, terms: r.terms.length, ms: r.ms,
   })
   return {
-    process: { ...PROCESS, shift: graph.process.shift },
+    process: { ...PROCESS, shift: graph.process?.shift ?? PROCESS.shift },
     svg,
     vertices: graph.nodes.filter(n => n.type === 'angle' || n.type === 'square').length,
     checks: [verdictOf(float, STRUCTURE_SEED), verdictOf(exact, 'showcase')],
