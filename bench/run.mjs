@@ -21,7 +21,8 @@ if (existsSync(ts)) {
   dir = mkdtempSync(join(here, '../node_modules/.cache/polewright-bench-'))
   entry = join(dir, `${name}.mjs`)
   await build({ entryPoints: [ts], bundle: true, platform: 'node', format: 'esm', outfile: entry, logLevel: 'warning', external: ['@libsql/*', 'libsql'], alias: { '#shared': join(here, '../shared') } })
-} else if (!existsSync(mjs) || name === 'run') {
+}
+else if (!existsSync(mjs) || name === 'run') {
   console.error(`no benchmark bench/${name}.ts or bench/${name}.mjs`)
   process.exit(2)
 }

@@ -45,18 +45,18 @@ import { checkDrawing } from '#shared/editor/drawing/evaluate'
 import type { Process as GraphProcess } from '#shared/schemas/graph'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
-export type Task =
+export type Task
   /** `json`: the response comes back as its JSON text (a string crosses postMessage far cheaper than the object, and the route sends it as is). */
-  | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[]; json?: boolean }
-  | { kind: 'evaluateMany'; reqs: EvaluateRequestInput[] }
-  | { kind: 'shifts'; req: unknown }
-  | { kind: 'crossShift'; req: unknown }
-  | { kind: 'limitCheck'; req: unknown }
-  | { kind: 'loopCuts'; req: unknown }
-  | { kind: 'catalogue' }
-  | { kind: 'generatePoints'; g: GenerateInput }
+  = | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[]; json?: boolean }
+    | { kind: 'evaluateMany'; reqs: EvaluateRequestInput[] }
+    | { kind: 'shifts'; req: unknown }
+    | { kind: 'crossShift'; req: unknown }
+    | { kind: 'limitCheck'; req: unknown }
+    | { kind: 'loopCuts'; req: unknown }
+    | { kind: 'catalogue' }
+    | { kind: 'generatePoints'; g: GenerateInput }
   /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
-  | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
+    | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
 
 export interface Failure {
   ok: false
@@ -86,7 +86,8 @@ export function runTask(task: Task): Outcome {
     const value = dispatch(task)
     if (task.kind === 'evaluate' && task.json) return { ok: true, value: JSON.stringify(value), thread: threadId, ms: (value as EvaluateResponse).ms }
     return { ok: true, value, thread: threadId }
-  } catch (e) {
+  }
+  catch (e) {
     return failureOf(e)
   }
 }
@@ -240,12 +241,12 @@ function crossShiftTask(input: unknown): CrossShiftResponse {
 // The catalogue: everything a page or script needs to know about what the engine offers.
 
 const KINEMATICS_INFO: Record<Kinematics['kind'], { description: string; arithmetic: ('float' | 'exact')[]; fields: string[] }> = {
-  spinors: { description: 'Per leg a 2-spinor of complex numbers [re, im] for λ and for λ̃; conservation checked to 1e-8, then restored exactly.', arithmetic: ['float'], fields: ['lambda', 'lambdaTilde'] },
+  'spinors': { description: 'Per leg a 2-spinor of complex numbers [re, im] for λ and for λ̃; conservation checked to 1e-8, then restored exactly.', arithmetic: ['float'], fields: ['lambda', 'lambdaTilde'] },
   'exact-spinors': { description: 'Per leg a real 2-spinor of exact rationals ("p/q" strings) for λ and for λ̃ (split signature); conservation must hold exactly.', arithmetic: ['float', 'exact'], fields: ['lambda', 'lambdaTilde'] },
-  momenta: { description: 'Per leg a real momentum [E, px, py, pz], all outgoing; massless and conserving to 1e-8 of the largest energy.', arithmetic: ['float'], fields: ['momenta'] },
-  random: { description: 'A seeded complex point, drawn until well-conditioned (min |s_S| ≥ 1e-3 of max |s_ij|).', arithmetic: ['float'], fields: ['seed'] },
-  rational: { description: 'A seeded exact rational point (real, split signature), drawn until well-conditioned.', arithmetic: ['float', 'exact'], fields: ['seed'] },
-  physical: { description: 'A seeded physical point by RAMBO: legs 1 and 2 incoming along ±z with total energy √s = energy (default 1), crossed to all-outgoing.', arithmetic: ['float'], fields: ['seed', 'energy'] },
+  'momenta': { description: 'Per leg a real momentum [E, px, py, pz], all outgoing; massless and conserving to 1e-8 of the largest energy.', arithmetic: ['float'], fields: ['momenta'] },
+  'random': { description: 'A seeded complex point, drawn until well-conditioned (min |s_S| ≥ 1e-3 of max |s_ij|).', arithmetic: ['float'], fields: ['seed'] },
+  'rational': { description: 'A seeded exact rational point (real, split signature), drawn until well-conditioned.', arithmetic: ['float', 'exact'], fields: ['seed'] },
+  'physical': { description: 'A seeded physical point by RAMBO: legs 1 and 2 incoming along ±z with total energy √s = energy (default 1), crossed to all-outgoing.', arithmetic: ['float'], fields: ['seed', 'energy'] },
 }
 
 const FORMULA_SYNTAX = [

@@ -146,7 +146,6 @@ function computeChannels(n: number, i: number, j: number, colourOrdered: boolean
   return out
 }
 
-
 /** Whether a side of a channel can be non-zero, from its helicities alone (three-point kinds structurally). */
 export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind, pdg?: readonly number[]): boolean {
   return h.length === 3 ? threePointSurvives(p, h, kind, pdg) : !vanishes(p, h, pdg)
@@ -352,7 +351,8 @@ function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], c?: number[]): T
         if (minus === 0) m0 = t
         else if (minus === 1) m1 = t
         minus++
-      } else if (t - minus === 0) p0 = t
+      }
+      else if (t - minus === 0) p0 = t
       else if (t - minus === 1) p1 = t
     }
     if (minus === 2) return parkeTaylorMhv(F, k, m0, m1)
@@ -421,14 +421,16 @@ function cheapestSubsetShift(p: Process, h: number[]): [number, number] {
 function subSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], first: [number, number], c?: number[]): T {
   try {
     return bcfwSum(ctx, k, h, first, undefined, false, false, c).value
-  } catch (e) {
+  }
+  catch (e) {
     if (!(e instanceof SingularError)) throw e
     const n = h.length
     for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
       if (i === j || (i === first[0] && j === first[1]) || !isValidShift(ctx.p, h, i, j, c)) continue
       try {
         return bcfwSum(ctx, k, h, [i, j], undefined, false, false, c).value
-      } catch (e2) {
+      }
+      catch (e2) {
         if (!(e2 instanceof SingularError)) throw e2
       }
     }

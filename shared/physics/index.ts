@@ -1,6 +1,7 @@
 // The one entry to the engine: evaluate(request) → the response of docs/api.md. The route, the worker,
 // the batch runner and the tests all call this.
-import { Complex, Fraction, SingularError, complexField, rationalField, type Field } from './field'
+import type { Fraction } from './field'
+import { Complex, SingularError, complexField, rationalField, type Field } from './field'
 import type { Kin } from './spinors'
 import { det, momentumSum } from './spinors'
 import { PhysicsError } from './errors'
@@ -109,7 +110,7 @@ function computePoleSets(p: Process, n: number): number[][] {
 }
 
 /** Unit roundoff of doubles and of double-double. */
-const UNIT = { double: 2 ** -53, 'double-double': 2 ** -104 } as const
+const UNIT = { 'double': 2 ** -53, 'double-double': 2 ** -104 } as const
 /**
  * Gluons run in doubles unless the point is poorly conditioned: min |s_S| / max |s_ij| below this,
  * or terms cancelling by more than 1/this. Measured: 5 gluons with one leg at 1e-9 of √s lost 4e-8
@@ -206,7 +207,8 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
     else if (condition < POOR_CONDITION) {
       body = run(ddField, toDoubleDouble(kd), 'double-double', condition)
       body.warnings.push(`the point is poorly conditioned (min |s| / max |s_ij| = ${condition.toExponential(1)}), so the recursion ran in double-double`)
-    } else {
+    }
+    else {
       const before = warnings.length
       body = run(complexField, kd, 'double', condition) // doubles measured ≤ 1e-11 off at generic points
       const c = body.precision?.cancellation ?? 1
@@ -272,7 +274,8 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
         const r = bcfw(F, p, k, helicities, shift, { tree: req.tree })
         value = r.value
         terms = r.terms
-      } catch (e) {
+      }
+      catch (e) {
         if (!(e instanceof SingularError)) throw e
         // Not a physical pole (checked above): a zero met by this shift's terms.
         singular = `under the shift [${i + 1}, ${j + 1}⟩ ${e.what}; another valid shift may avoid it`
@@ -282,7 +285,8 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
     if (target.kind !== 'none' && !singular) {
       try {
         targetValue = target.kind === 'named' ? namedTarget(F, k, target.name, value, pdg) : target.formula.evaluate(F, k, amplitudeOf)
-      } catch (e) {
+      }
+      catch (e) {
         if (!(e instanceof SingularError)) throw e
         singular = target.kind === 'named' ? `${e.what} in the target ${target.name}` : e.what.replace(/^the formula/, 'the target formula')
       }
@@ -317,7 +321,8 @@ export function evaluate(input: EvaluateRequestInput): EvaluateResponse {
     if (req.probeFalloff) {
       try {
         falloff = probeFalloff(p, helicities, i, j)
-      } catch (e) {
+      }
+      catch (e) {
         if (!(e instanceof SingularError)) throw e
         warnings.push(`probeFalloff: ${e.what}; the falloff was not measured`)
       }

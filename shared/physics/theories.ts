@@ -159,7 +159,7 @@ export const THEORIES: Record<TheoryName, TheoryInfo> = {
     defaultShift: firstMinusShift,
     vanishes: (legs, s) => s === 2 && helicityVanishing(legs),
   },
-  qcd: {
+  'qcd': {
     name: 'qcd',
     amplitudeLatex: 'A',
     particles: 'gluons and massless quarks',

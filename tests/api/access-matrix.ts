@@ -97,6 +97,8 @@ export const matrix: RouteAccess[] = [
   { file: 'batch-checks/[id]/cancel.post.ts', access: 'editor', scope: 'check' },
   // Job queue: the health route and the queue page's routes.
   { file: 'health.get.ts', access: 'public', scope: 'none', skipAllowed: true },
+  // The landing page's worked example (the same for everyone).
+  { file: 'showcase.get.ts', access: 'public', scope: 'none', skipAllowed: true },
   { file: 'admin/queue/index.get.ts', access: 'admin', scope: 'none' },
   { file: 'admin/queue/retry.post.ts', access: 'admin', scope: 'none', body: {} },
   { file: 'checks/[id]/points.get.ts', access: 'viewer', scope: 'check' },

@@ -2,7 +2,8 @@
 // the N = 4 MHV coefficients of Bern, Dixon, Dunbar, Kosower, hep-ph/9403226, and the error
 // statuses with the field named.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { Client, newUser } from '../helpers/api'
+import type { Client } from '../helpers/api'
+import { newUser } from '../helpers/api'
 
 let u: Client
 beforeAll(async () => {

@@ -46,9 +46,11 @@ export function checkLimit(input: LimitCheckRequestInput): LimitCheckResponse {
     const leading = p.theory === 'gluon'
       ? plus ? '⟨ab⟩ / (⟨as⟩⟨sb⟩)' : '−[ab] / ([as][sb])'
       : plus ? 'Σ_a [as]⟨ax⟩⟨ay⟩ / (⟨sa⟩⟨sx⟩⟨sy⟩)' : 'Σ_a ⟨as⟩[ax][ay] / ([sa][sx][sy])'
-    const factor = !sub ? leading : plus
-      ? `${leading} + ½ Σ_a [as]/⟨sa⟩ (⟨ax⟩/⟨sx⟩ + ⟨ay⟩/⟨sy⟩) λ̃_s·∂/∂λ̃_a`
-      : `${leading} + ½ Σ_a ⟨as⟩/[sa] ([ax]/[sx] + [ay]/[sy]) λ_s·∂/∂λ_a`
+    const factor = !sub
+      ? leading
+      : plus
+        ? `${leading} + ½ Σ_a [as]/⟨sa⟩ (⟨ax⟩/⟨sx⟩ + ⟨ay⟩/⟨sy⟩) λ̃_s·∂/∂λ̃_a`
+        : `${leading} + ½ Σ_a ⟨as⟩/[sa] ([ax]/[sx] + [ay]/[sy]) λ_s·∂/∂λ_a`
     const source = sub ? 'Weinberg, Phys. Rev. 140 (1965) B516; Cachazo & Strominger, arXiv:1404.4091' : 'Weinberg, Phys. Rev. 140 (1965) B516'
     return { check: 'soft', theory: req.theory, n, helicities: req.helicities, legs: [s + 1], order: req.order, ...r, factor, source, ms: ms() }
   }

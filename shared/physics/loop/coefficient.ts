@@ -109,4 +109,3 @@ export function boxCut<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number
   })
   return { solutions, terms, value: F.div(value, F.fromInt(2)) }
 }
-

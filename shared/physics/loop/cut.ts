@@ -5,7 +5,7 @@
 // ℓ = ℓ₀ + τ v with v spanning their null space, and ℓ² = 0 is a quadratic in τ. Its root is a
 // square root: exact only where the discriminant is a rational square (every box with a
 // three-point corner next to … at rational points; four-mass and three-mass generally not).
-import Complex from 'complex.js'
+import type Complex from 'complex.js'
 import Fraction from 'fraction.js'
 import { SingularError, negligible, type Field } from '../field'
 import { PhysicsError } from '../errors'

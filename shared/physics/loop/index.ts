@@ -52,7 +52,8 @@ function run<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], corners: Corner
     let cut
     try {
       cut = boxCut(F, p, k, h, box, { corners })
-    } catch (e) {
+    }
+    catch (e) {
       if (e instanceof SingularError) return { ...base, solutions: [], terms: [], value: null, target: null, targetRule: null, deviation: null, verdict: 'singular point' as const, note: `singular point: ${e.what}` }
       if (e instanceof PhysicsError && e.field === 'arithmetic') return { ...base, solutions: [], terms: [], value: null, target: null, targetRule: null, deviation: null, verdict: 'not evaluated' as const, note: e.message }
       throw e
@@ -77,7 +78,7 @@ function run<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], corners: Corner
     summed++
     return { ...out, target: w(target.value), targetRule: target.rule, deviation, verdict: agrees ? 'agrees' as const : 'disagrees' as const }
   })
-  const counts = { agrees: 0, disagrees: 0, 'not evaluated': 0, 'singular point': 0 }
+  const counts = { 'agrees': 0, 'disagrees': 0, 'not evaluated': 0, 'singular point': 0 }
   for (const b of boxes) counts[b.verdict]++
   const verdict = counts['singular point'] ? 'singular point' : counts.disagrees ? 'disagrees' : counts.agrees ? 'agrees' : 'not evaluated'
   return { tree: w(tree ?? F.zero), boxes, sum: summed ? w(sum) : null, targetSum: summed ? w(targetSum) : null, counts, verdict: verdict as LoopCutResponse['verdict'], tolerance }

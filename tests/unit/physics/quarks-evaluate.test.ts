@@ -53,7 +53,8 @@ describe('evaluate with species', () => {
       try {
         evaluate({ theory: 'qcd', kinematics: { kind: 'random', seed: 1 }, ...body } as never)
         expect.unreachable()
-      } catch (e) {
+      }
+      catch (e) {
         expect(e).toBeInstanceOf(PhysicsError)
         expect((e as PhysicsError).field).toBe(field)
       }

@@ -29,6 +29,6 @@ export default defineEventHandler(async (event) => {
     const current = await db.select({ version: tables.diagrams.version, updatedBy: tables.diagrams.updatedBy }).from(tables.diagrams).where(eq(tables.diagrams.id, id)).get()
     throw fieldError(409, 'version', `the diagram is now at version ${current?.version ?? '?'}, not ${body.version}; someone saved in between, and nothing of theirs or yours was overwritten`, { current: current?.version ?? null })
   }
-  await audit(project.id, user.id, 'diagram.save', 'diagram', diagram.id, { version: saved.version })
+  await audit(project.id, user.id, 'diagram.save', 'diagram', diagram.id, { version: saved.version, title: saved.title })
   return diagramView(saved)
 })

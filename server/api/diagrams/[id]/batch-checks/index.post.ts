@@ -25,7 +25,7 @@ export default defineEventHandler(async (event) => {
     if (!(err.status === 422 && err.field?.startsWith('kinematics'))) throw evaluationHttpError(e, processField)
   }
   const row = await startBatch({ projectId: project.id, diagram, pointSet, plan, userId: user.id })
-  await audit(project.id, user.id, 'check.batch', 'check', row.id, { diagramId: diagram.id, pointSetId: pointSet.id, points: pointSet.count })
+  await audit(project.id, user.id, 'check.batch', 'check', row.id, { diagramId: diagram.id, title: diagram.title, pointSetId: pointSet.id, pointSet: pointSet.name, points: pointSet.count })
   setResponseStatus(event, 202)
   return batchView(row)
 })

@@ -53,7 +53,7 @@ export default defineEventHandler(async (event) => {
     total: 1,
     createdBy: user.id,
   }).returning().get()
-  await audit(project.id, user.id, 'check.run', 'check', row.id, { diagramId: diagram.id, diagramVersion: diagram.version, verdict: result.verdict })
+  await audit(project.id, user.id, 'check.run', 'check', row.id, { diagramId: diagram.id, diagramVersion: diagram.version, title: diagram.title, verdict: result.verdict })
   setResponseStatus(event, 201)
   return checkView(row, user.name)
 })
