@@ -1,7 +1,6 @@
 // The one entry to the engine: evaluate(request) → the response of docs/api.md. The route, the worker,
 // the batch runner and the tests all call this.
-import type { Fraction } from './field'
-import { Complex, SingularError, complexField, rationalField, type Field } from './field'
+import { Complex, SingularError, complexField, rationalField, type Field, type Fraction } from './field'
 import type { Kin } from './spinors'
 import { det, momentumSum } from './spinors'
 import { PhysicsError } from './errors'
