@@ -151,7 +151,7 @@ function newtonStep<T>(F: Field<T>, M: T[][], rhs: T[], L: Bispinor<T>): Bispino
   }
   const d: T[] = [F.zero, F.zero, F.zero, F.zero]
   for (let r = 3; r >= 0; r--) {
-    let acc = A[r]![4]!
+    let acc: T = A[r]![4]!
     for (let j = r + 1; j < 4; j++) acc = F.sub(acc, F.mul(A[r]![j]!, d[j]!))
     d[r] = F.div(acc, A[r]![r]!)
   }
