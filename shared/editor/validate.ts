@@ -137,7 +137,8 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       continue
     }
     const info: SlotInfo[] = []
-    for (const h of handleIds(node)) {
+    const own = handleIds(node)
+    for (const h of own) {
       const list = at(node.id, h) ?? []
       const first = list[0]
       let other: SlotInfo['other'] = null
@@ -150,10 +151,13 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     }
     slots[node.id] = info
     // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
-    const own = handleIds(node)
     for (const h of handlesOf.get(node.id) ?? []) if (!own.includes(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
-    const open = info.filter(x => x.edges.length === 0).length
-    const crowded = info.filter(x => x.edges.length > 1)
+    let open = 0
+    const crowded: SlotInfo[] = []
+    for (const x of info) {
+      if (x.edges.length === 0) open++
+      else if (x.edges.length > 1) crowded.push(x)
+    }
     const total = info.length
     if (open) add(node.id, 'error', `${total - open} of ${total} ${node.type === 'block' ? 'legs' : 'slots'} connected: every slot takes one leg or line`)
     for (const c of crowded) add(node.id, 'error', `slot ${Number(c.handle.slice(1)) + 1} has ${c.edges.length} connections: one leg or line per slot`)
@@ -255,6 +259,6 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     t.valid = t.valid && t.plan !== null && msgs.size === 0
   }
   let errorCount = 0
-  for (const list of [...Object.values(issues), ...Object.values(edgeIssues)]) errorCount += list.filter(i => i.level === 'error').length
+  for (const byId of [issues, edgeIssues]) for (const id in byId) for (const i of byId[id]!) if (i.level === 'error') errorCount++
   return { nodes: issues, edges: edgeIssues, components, slots, errorCount, drawing }
 }
