@@ -20,6 +20,15 @@ describe('POST /api/limit-checks', () => {
     expect(res.body.rows).toHaveLength(8)
     expect(res.body.rows[7].deviation).toBeLessThan(1e-6)
   })
+  it('soft graviton with the subleading factor: the ratio tends to 1 like ε²', async () => {
+    const res = await post({ check: 'soft', theory: 'graviton', helicities: [-2, -2, -2, 2, 2], soft: 1, order: 'subleading' })
+    expect(res.status).toBe(200)
+    expect(res.body).toMatchObject({ check: 'soft', order: 'subleading', holds: true, expectedRate: 2 })
+    expect(Math.abs(res.body.rate - 2)).toBeLessThan(0.15)
+    const gluon = await post({ check: 'soft', theory: 'gluon', helicities: [-1, 1, -1, 1, 1], soft: 2, order: 'subleading' })
+    expect(gluon.status).toBe(422)
+    expect(gluon.body.data.field).toBe('order')
+  })
   it('collinear gluons 6 ∥ 1', async () => {
     const res = await post({ check: 'collinear', theory: 'gluon', helicities: [-1, -1, 1, -1, 1, 1], leg: 6, z: 0.4 })
     expect(res.status).toBe(200)
