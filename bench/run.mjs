@@ -20,7 +20,7 @@ if (existsSync(ts)) {
   mkdirSync(join(here, '../node_modules/.cache'), { recursive: true })
   dir = mkdtempSync(join(here, '../node_modules/.cache/polewright-bench-'))
   entry = join(dir, `${name}.mjs`)
-  await build({ entryPoints: [ts], bundle: true, platform: 'node', format: 'esm', outfile: entry, logLevel: 'warning', external: ['@libsql/*', 'libsql'] })
+  await build({ entryPoints: [ts], bundle: true, platform: 'node', format: 'esm', outfile: entry, logLevel: 'warning', external: ['@libsql/*', 'libsql'], alias: { '#shared': join(here, '../shared') } })
 } else if (!existsSync(mjs) || name === 'run') {
   console.error(`no benchmark bench/${name}.ts or bench/${name}.mjs`)
   process.exit(2)

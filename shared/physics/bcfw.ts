@@ -149,7 +149,18 @@ function computeChannels(n: number, i: number, j: number, colourOrdered: boolean
 
 /** Whether a side of a channel can be non-zero, from its helicities alone (three-point kinds structurally). */
 export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind, pdg?: readonly number[]): boolean {
-  return h.length === 3 ? threePointSurvives(p, h, kind, pdg) : !vanishes(p, h, pdg)
+  if (h.length === 3) return threePointSurvives(p, h, kind, pdg)
+  return pdg ? !quarkRules(p, h, pdg).vanishes : !vanishes(p, h)
+}
+
+const quarkRuleMemo = new Map<string, { vanishes: boolean; shift: [number, number] }>()
+
+/** Speed: the registry's vanishing rule and default shift for legs with species, memoized per helicities and codes. */
+function quarkRules(p: Process, h: readonly number[], c: readonly number[]): { vanishes: boolean; shift: [number, number] } {
+  const key = `${p.theory}:${h.join(',')}|${c.join(',')}`
+  let r = quarkRuleMemo.get(key)
+  if (!r) quarkRuleMemo.set(key, (r = { vanishes: vanishes(p, h, c), shift: defaultShift(p, h, c) }))
+  return r
 }
 
 /** Label list like "1,2,5" for messages. */
@@ -335,12 +346,13 @@ function side<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], kind: VertexKind, legs: Le
 function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], c?: number[]): T {
   const { F, p } = ctx
   if (c && c.some((x) => x !== GLUON_PDG)) {
-    if (vanishes(p, h, c)) return F.zero
+    const rules = quarkRules(p, h, c)
+    if (rules.vanishes) return F.zero
     if (ctx.closedForms) {
       const v = quarkMhvValue(F, k, h, c)
       if (v !== null) return v
     }
-    return subSum(ctx, k, h, defaultShift(p, h, c), c)
+    return subSum(ctx, k, h, rules.shift, c)
   }
   if (ctx.closedForms && (p.theory === 'gluon' || p.theory === 'qcd')) {
     // one pass: the two minus (MHV) or two plus (anti-MHV) legs, or a vanishing class
