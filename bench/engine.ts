@@ -6,6 +6,7 @@ import { randomPoint, rationalPoint } from '#shared/physics/kinematics'
 import { bcfw } from '#shared/physics/bcfw'
 import { defaultShift, processOf, THEORIES } from '#shared/physics/theories'
 import { berendsGiele } from '#shared/physics/targets/berends-giele'
+import { quarkLineBerendsGiele } from '#shared/physics/targets/quark-line'
 import { evaluate } from '#shared/physics/index'
 import { bcfwByPrimes } from '#shared/physics/modular'
 import type { EvaluateRequestInput } from '#shared/schemas/evaluate'
@@ -78,6 +79,30 @@ for (let n = 4; n <= (exactOnly ? 0 : 12); n++) {
 }
 console.log(rows.join('\n'))
 
+// Quarks: q̄q + 6 gluons against 8 gluons, NMHV, float, seed-1 point (goal: within 2× of 8 gluons).
+const qRows = ['| process | class | BCFW float ms, median (best) | Berends–Giele float ms, median (best) | BCFW / 8-gluon BCFW (best) | rel. agreement |', '|---|---|---|---|---|---|']
+{
+  const qcd = processOf('qcd')
+  const kin = randomPoint(8, 1)
+  const hg = [-1, 1, 1, -1, 1, 1, -1, 1]
+  const tg = time(() => bcfw(C, g, kin, hg, defaultShift(g, hg)), budget)
+  for (const [name, h, pdg] of [
+    ['q̄q + 6 gluons (line adjacent)', [-0.5, 0.5, 1, -1, 1, 1, -1, 1], [-1, 1, 21, 21, 21, 21, 21, 21]],
+    ['q̄q + 6 gluons (line split 3 | 3)', [-0.5, 1, 1, -1, 0.5, 1, -1, 1], [-1, 21, 21, 21, 1, 21, 21, 21]],
+  ] as [string, number[], number[]][]) {
+    const shift = defaultShift(qcd, h, pdg)
+    bcfw(C, qcd, kin, h, shift, { pdg }) // warm: the memoized shift choice of the sub-blocks
+    let vb = C.zero
+    const tb = time(() => (vb = bcfw(C, qcd, kin, h, shift, { pdg }).value), budget)
+    let vq = C.zero
+    const tq = time(() => (vq = quarkLineBerendsGiele(C, kin, h, pdg)), budget)
+    qRows.push(`| ${name} | NMHV | ${fmt(tb.ms)} (${fmt(tb.best)}) | ${fmt(tq.ms)} (${fmt(tq.best)}) | ${(tb.best / tg.best).toFixed(2)} | ${(vb.sub(vq).abs() / vq.abs()).toExponential(1)} |`)
+    console.error(qRows[qRows.length - 1])
+  }
+  qRows.push(`| 8 gluons (reference) | NMHV | ${fmt(tg.ms)} (${fmt(tg.best)}) | — | 1.00 | — |`)
+}
+console.log('\n' + qRows.join('\n'))
+
 // The two exact backends side by side: big rationals (the reference) against primes + reconstruction
 // (shared/physics/modular.ts), at the seed-1 rational point, value and top-level terms, warm.
 const exRows = [
@@ -116,6 +141,7 @@ const ev: [string, EvaluateRequestInput][] = [
   ['6 gravitons NMHV, exact vs KLT, big rationals', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', exact: { backend: 'rational' } }],
   ['7 gravitons NMHV, float (double-double)', { theory: 'graviton', helicities: [-2, 2, -2, 2, -2, 2, 2], kinematics: { kind: 'random', seed: 1 }, target: 'none' }],
   ['7 gravitons MHV, float vs Hodges', { theory: 'graviton', helicities: [-2, 2, -2, 2, 2, 2, 2], kinematics: { kind: 'random', seed: 1 } }],
+  ['q̄q + 6 gluons NMHV, float vs Berends–Giele with a quark line', { theory: 'qcd', species: ['qbar1', 'q1', 'g', 'g', 'g', 'g', 'g', 'g'], helicities: [-0.5, 0.5, 1, -1, 1, 1, -1, 1], kinematics: { kind: 'random', seed: 1 } }],
   ['8-gluon NMHV with the term tree', { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1, 1, 1], kinematics: { kind: 'random', seed: 1 }, tree: true }],
   ['9-gluon N²MHV exact + falloff probe', { theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1, -1, 1, 1], kinematics: { kind: 'rational', seed: 1 }, arithmetic: 'exact', probeFalloff: true }],
   ['12-gluon N²MHV float + falloff probe', { theory: 'gluon', helicities: [-1, 1, 1, -1, 1, 1, -1, 1, 1, -1, 1, 1], kinematics: { kind: 'random', seed: 1 }, probeFalloff: true }],

@@ -10,6 +10,7 @@ import type { Process } from '#shared/schemas/graph'
 import { VERDICTS, type BatchProgressView, type PointData, type Verdict } from '#shared/pointsets'
 import { checkOrder, effectiveOrder, inOrder, shiftInOrder } from '#shared/physics/colour-order'
 import { isColourOrdered, pdgOf } from '#shared/physics/theories'
+import { speciesCodeMismatch } from '#shared/pointsets/species'
 
 type CheckRow = typeof tables.checks.$inferSelect
 
@@ -55,6 +56,7 @@ export function requestFor(plan: BatchPlan, data: PointData): EvaluateRequestInp
     theory: p.theory,
     ...(p.spin !== undefined ? { spin: p.spin } : {}),
     helicities: pick(p.helicities),
+    ...(p.species ? { species: pick(p.species) } : {}),
     kinematics: data.momenta
       ? { kind: 'momenta', momenta: pick(data.momenta) }
       : { kind: 'spinors', lambda: pick(data.lambda!), lambdaTilde: pick(data.lambdaTilde!) },
@@ -65,7 +67,8 @@ export function requestFor(plan: BatchPlan, data: PointData): EvaluateRequestInp
 }
 
 /** Why a point's particles do not fit the process, or null. */
-export function codeMismatch(theory: Process['theory'], codes: number[] | undefined): string | null {
+export function codeMismatch(theory: Process['theory'], codes: number[] | undefined, species?: string[]): string | null {
+  if (codes && species) return speciesCodeMismatch(species, codes)
   const want = pdgOf(theory)
   if (!codes || want === null) return null
   const k = codes.findIndex(c => c !== want)
@@ -85,8 +88,8 @@ export function checkPlan(plan: BatchPlan, set: typeof tables.pointSets.$inferSe
     }
   }
   const sets = ((set.meta ?? {}) as { codeSets?: { codes: number[] }[] }).codeSets
-  if (sets && sets.length && sets.every(s => codeMismatch(plan.process.theory, s.codes))) {
-    throw fieldError(422, 'pointSetId', `no point of "${set.name}" fits a ${plan.process.theory} process: ${codeMismatch(plan.process.theory, sets[0]!.codes)}`)
+  if (sets && sets.length && sets.every(s => codeMismatch(plan.process.theory, s.codes, plan.process.species))) {
+    throw fieldError(422, 'pointSetId', `no point of "${set.name}" fits a ${plan.process.theory} process: ${codeMismatch(plan.process.theory, sets[0]!.codes, plan.process.species)}`)
   }
 }
 
@@ -341,7 +344,7 @@ async function runBatch(checkId: number, pointSetId: number, total: number, plan
     // Loads and evaluates one chunk; points whose particles do not fit are not sent to the pool.
     const evalChunk = async (from: number) => {
       const pts = await pointsInRange(pointSetId, from, from + BATCH_CHUNK)
-      const mismatch = pts.map(p => codeMismatch(plan.process.theory, p.data.codes))
+      const mismatch = pts.map(p => codeMismatch(plan.process.theory, p.data.codes, plan.process.species))
       const todo = pts.filter((_, k) => !mismatch[k])
       const items = todo.length ? await evaluateManyInPool(todo.map(p => requestFor(plan, p.data)), { signal }) : []
       let t = 0

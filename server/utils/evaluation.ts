@@ -13,9 +13,9 @@ import type { DrawingResult } from '#shared/editor/drawing/evaluate'
  * over-limit request is refused at once even while the pool is busy. `prefix` re-roots field
  * paths (a check names `graph.process.helicities`, not `helicities`).
  */
-export function precheckProcess(p: { theory: TheoryName, spin?: number, helicities: number[], shift?: number[], arithmetic?: 'float' | 'exact' }, prefix = '') {
+export function precheckProcess(p: { theory: TheoryName, spin?: number, helicities: number[], species?: string[], shift?: number[], arithmetic?: 'float' | 'exact' }, prefix = '') {
   try {
-    validateProcess(p.theory, p.helicities, p.arithmetic ?? 'float', p.spin)
+    validateProcess(p.theory, p.helicities, p.arithmetic ?? 'float', p.spin, p.species)
     if (p.shift) checkShift(p.shift as [number, number], p.helicities.length)
   }
   catch (e) {

@@ -166,6 +166,7 @@ export function evaluateInOrder(input: EvaluateRequestInput, order: number[]): E
   const res = evaluate({
     ...req,
     helicities: inOrder(req.helicities, order),
+    ...(req.species ? { species: inOrder(req.species, order) } : {}),
     kinematics: kin,
     shift: req.shift ? shiftInOrder(req.shift as [number, number], order) : undefined,
   })

@@ -158,6 +158,9 @@ export const API_SECTIONS: ApiSection[] = [
             theory: 'gluon', helicities: [-1, -1, 1, 1], kinematics: { kind: 'momenta', momenta: [[-1, 0, 0, -1], [-1, 0, 0, 1], [1, 1, 0, 0], [1, -1, 0, 0]] },
           }),
           example(EvaluateRequestSchema, 'gravitons, KLT, with the term tree', { theory: 'graviton', helicities: [-2, -2, 2, 2, 2], kinematics: { kind: 'random', seed: 2 }, target: 'klt', tree: true }),
+          example(EvaluateRequestSchema, 'a quark line and four gluons (species per leg)', {
+            theory: 'qcd', species: ['qbar1', 'q1', 'g', 'g', 'g', 'g'], helicities: [-0.5, 0.5, -1, 1, -1, 1], kinematics: { kind: 'random', seed: 5 },
+          }),
         ],
         response: '`{ n, theory, shift, arithmetic, value, terms[], target, deviation, verdict, falloff, warnings, kinematics, engine, ms }`: the residue sum, one term per channel and internal helicity, the target\'s value, the verdict, and the point actually used.',
         statuses: [[200, 'evaluated (a singular point is a 200 with verdict "singular point")'], [400, 'the body fails the schema'], [422, 'physically invalid input, or a limit exceeded'], [503, 'the evaluation exceeded its time budget'], ...commonErrors],

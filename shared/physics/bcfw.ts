@@ -8,7 +8,7 @@ import { threePoint, threePointSurvives, type VertexKind } from './three-point'
 import { PhysicsError } from './errors'
 import { parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/parke-taylor'
 import { GLUON_PDG } from './quarks'
-import { quarkMhvValue } from './targets/quark-mhv'
+import { classifyQuarkMhv, quarkMhvValue } from './targets/quark-mhv'
 
 /** A leg of a (sub-)amplitude: an external label (1-based) or an internal line L1, L2, … */
 export type LegRef = { label: number } | { line: string }
@@ -148,7 +148,50 @@ function computeChannels(n: number, i: number, j: number, colourOrdered: boolean
 
 /** Whether a side of a channel can be non-zero, from its helicities alone (three-point kinds structurally). */
 export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind, pdg?: readonly number[]): boolean {
-  return h.length === 3 ? threePointSurvives(p, h, kind, pdg) : !vanishes(p, h, pdg)
+  if (h.length === 3) return threePointSurvives(p, h, kind, pdg)
+  return pdg ? !quarkRules(p, h, pdg).vanishes : !vanishes(p, h)
+}
+
+const quarkRuleMemo = new Map<string, { vanishes: boolean; shift: [number, number]; cost: number }>()
+
+/**
+ * Speed: the registry's vanishing rule and, of the valid shifts, the one with the fewest
+ * closed-form evaluations below it (as cheapestShift does for gluons), for legs with species;
+ * memoized per helicities and codes. Only valid shifts are candidates, so the rule stays valid.
+ */
+function quarkRules(p: Process, h: readonly number[], c: readonly number[]): { vanishes: boolean; shift: [number, number]; cost: number } {
+  const key = `${p.theory}:${h.join(',')}|${c.join(',')}`
+  let r = quarkRuleMemo.get(key)
+  if (r) return r
+  const n = h.length
+  const v = vanishes(p, h, c)
+  r = { vanishes: v, shift: defaultShift(p, h, c), cost: v ? 0 : 1 }
+  const gluons = c.every((x) => x === GLUON_PDG)
+  if (!v && gluons) r.cost = cheapestShift(h).cost
+  else if (!v && n > 3 && classifyQuarkMhv(h, c).kind === 'other') {
+    let best = Infinity
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+      if (i === j || !isValidShift(p, h, i, j, c)) continue
+      let cost = 0
+      for (const { L, R } of channels(n, i, j, true)) {
+        const x = internalSpecies(c, L)
+        if (x === null) continue
+        const cL = [...L.map((t) => c[t]!), x]
+        const cR = [...R.map((t) => c[t]!), x === GLUON_PDG ? x : -x]
+        for (const y of x === GLUON_PDG ? GLUON_HEL : QUARK_HEL) {
+          const hL = [...L.map((t) => h[t]!), y]
+          const hR = [...R.map((t) => h[t]!), -y]
+          if (!sideSurvives(p, hL, 'angle', cL) || !sideSurvives(p, hR, 'square', cR)) continue
+          cost += 1 + (hL.length === 3 ? 0 : quarkRules(p, hL, cL).cost) + (hR.length === 3 ? 0 : quarkRules(p, hR, cR).cost)
+        }
+        if (cost >= best) break
+      }
+      if (cost < best) [best, r.shift] = [cost, [i, j]]
+    }
+    if (best < Infinity) r.cost = best
+  }
+  quarkRuleMemo.set(key, r)
+  return r
 }
 
 /** Label list like "1,2,5" for messages. */
@@ -334,12 +377,13 @@ function side<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], kind: VertexKind, legs: Le
 function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], c?: number[]): T {
   const { F, p } = ctx
   if (c && c.some((x) => x !== GLUON_PDG)) {
-    if (vanishes(p, h, c)) return F.zero
+    const rules = quarkRules(p, h, c)
+    if (rules.vanishes) return F.zero
     if (ctx.closedForms) {
       const v = quarkMhvValue(F, k, h, c)
       if (v !== null) return v
     }
-    return subSum(ctx, k, h, defaultShift(p, h, c), c)
+    return subSum(ctx, k, h, rules.shift, c)
   }
   if (ctx.closedForms && (p.theory === 'gluon' || p.theory === 'qcd')) {
     // one pass: the two minus (MHV) or two plus (anti-MHV) legs, or a vanishing class

@@ -17,6 +17,8 @@ export const ProcessSchema = z.object({
   theory: TheorySchema,
   spin: z.number().optional(),
   helicities: z.array(finite).min(3, { error: 'needs at least 3 legs' }).max(16, { error: 'at most 16 legs' }),
+  /** Species per leg for theory qcd ("g", "q1".."q6", "qbar1".."qbar6"); omitted: all the theory's first species. */
+  species: z.array(z.string().max(16)).max(16).optional(),
   /** Colour order as leg labels (1..n); defaults to 1..n. */
   order: z.array(z.number().int().positive()).optional(),
   shift: z.tuple([z.number().int().positive(), z.number().int().positive()]).optional(),

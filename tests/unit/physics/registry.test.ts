@@ -11,7 +11,7 @@ describe('theory registry', () => {
   it('is the source of both theory enums', () => {
     expect(TheoryEnum.options).toEqual([...THEORY_NAMES])
     expect(TheorySchema.options).toEqual([...THEORY_NAMES])
-    expect(TheorySchema.safeParse('photon').error?.issues[0]?.message).toBe('must be gluon, graviton, scalar-cubic or spin')
+    expect(TheorySchema.safeParse('photon').error?.issues[0]?.message).toBe('must be gluon, graviton, scalar-cubic, spin or qcd')
   })
   it('gives particle codes by the PDG numbering scheme (gluon 21, graviton 39; Particle Data Group, "Monte Carlo particle numbering scheme")', () => {
     expect(pdgOf('gluon')).toBe(21)
@@ -20,9 +20,9 @@ describe('theory registry', () => {
   })
   it('maps spins to theories and back', () => {
     expect([0, 1, 2, 3].map(theoryOfSpin)).toEqual(['scalar-cubic', 'gluon', 'graviton', 'spin'])
-    expect(THEORY_NAMES.filter(t => !THEORIES[t].needsSpin).map(t => spinOf(t))).toEqual([1, 2, 0])
+    expect(THEORY_NAMES.filter(t => !THEORIES[t].needsSpin).map(t => spinOf(t))).toEqual([1, 2, 0, 1])
     expect(spinOf('spin', 3)).toBe(3)
-    expect(THEORY_NAMES.filter(isColourOrdered)).toEqual(['gluon', 'scalar-cubic'])
+    expect(THEORY_NAMES.filter(isColourOrdered)).toEqual(['gluon', 'scalar-cubic', 'qcd'])
   })
   it('gives every leg a species and a helicity', () => {
     expect(legsOf('gluon', [-1, 1])).toEqual([{ species: 'gluon', h: -1 }, { species: 'gluon', h: 1 }])

@@ -17,6 +17,7 @@ export default defineEventHandler(async (event) => {
     theory: process.theory,
     ...(process.spin !== undefined ? { spin: process.spin } : {}),
     helicities: process.helicities,
+    ...(process.species ? { species: process.species } : {}),
     ...(process.shift ? { shift: process.shift } : {}),
   }
   precheckProcess(req, 'graph.process.')
