@@ -53,7 +53,8 @@ describe('evaluateTarget', () => {
     let err: unknown
     try {
       evaluateTarget(name, C, k, h)
-    } catch (e) {
+    }
+    catch (e) {
       err = e
     }
     expect(err).toBeInstanceOf(PhysicsError)
@@ -70,16 +71,16 @@ describe('catalogue entries', () => {
       'berends-giele-quark': ['Berends–Giele with a quark line', ['qcd']],
       'parke-taylor': ['Parke–Taylor', ['gluon', 'qcd']],
       'berends-giele': ['Berends–Giele', ['gluon', 'qcd']],
-      hodges: ['Hodges determinant', ['graviton', 'spin']],
-      klt: ['KLT relations', ['graviton', 'spin']],
-      feynman: ['Feynman diagrams', ['scalar-cubic']],
+      'hodges': ['Hodges determinant', ['graviton', 'spin']],
+      'klt': ['KLT relations', ['graviton', 'spin']],
+      'feynman': ['Feynman diagrams', ['scalar-cubic']],
     })
     // Each source is a citation: a journal with volume and year, an arXiv number, or says it is common practice.
     for (const t of TARGETS) expect(t.source).toMatch(/\b[A-Z][\w. ]+ [A-Z]?\d+ \(\d{4}\) \d+|arXiv:\d{4}\.\d{4,5}|common practice/)
     // Every theory a target names offers it in the catalogue's sense: it applies to some process of that theory.
     const sample: Record<string, [number[], number?, number[]?][]> = {
-      gluon: [[[-1, -1, 1, 1]]], graviton: [[[-2, -2, 2, 2]]], spin: [[[-2, -2, 2, 2], 2]], 'scalar-cubic': [[[0, 0, 0, 0]]],
-      qcd: [[[-1, -1, 1, 1]], [[-0.5, 0.5, -1, 1], undefined, [-1, 1, 21, 21]]],
+      'gluon': [[[-1, -1, 1, 1]]], 'graviton': [[[-2, -2, 2, 2]]], 'spin': [[[-2, -2, 2, 2], 2]], 'scalar-cubic': [[[0, 0, 0, 0]]],
+      'qcd': [[[-1, -1, 1, 1]], [[-0.5, 0.5, -1, 1], undefined, [-1, 1, 21, 21]]],
     }
     for (const t of TARGETS) for (const th of t.theories) expect(sample[th]!.some(([h, s, pdg]) => t.applies(th, h, s, pdg))).toBe(true)
   })
