@@ -347,7 +347,7 @@ describe('shifts, cross-shift and the catalogue', () => {
     const res = await u.get('/api/catalogue')
     expect(res.status).toBe(200)
     const c = res.body
-    expect(c.theories.map((t: { name: string }) => t.name)).toEqual(['gluon', 'graviton', 'scalar-cubic', 'spin'])
+    expect(c.theories.map((t: { name: string }) => t.name)).toEqual(['gluon', 'graviton', 'scalar-cubic', 'spin', 'qcd'])
     expect(c.theories[0]).toMatchObject({ helicities: [-1, 1], limits: { float: 12, exact: 9 } })
     expect(c.theories[0].targets).toContain('parke-taylor')
     expect(c.targets.map((t: { name: string }) => t.name)).toEqual(expect.arrayContaining(['auto', 'parke-taylor', 'berends-giele', 'hodges', 'klt', 'feynman', 'formula', 'none']))
