@@ -5,7 +5,7 @@
 // Page errors and console errors fail every test (an error toast logs one too).
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { openBrowser, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
+import { nodesOutside, openBrowser, openEditor, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 
 async function demoProject(): Promise<{ id: number, diagrams: { id: number, title: string }[] }> {
@@ -13,11 +13,6 @@ async function demoProject(): Promise<{ id: number, diagrams: { id: number, titl
   const projects = (await c.get('/api/projects')).body as { id: number, name: string }[]
   const p = projects.find(x => x.name.startsWith('Brackenridge'))!
   return { id: p.id, diagrams: (await c.get(`/api/projects/${p.id}/diagrams`)).body }
-}
-async function openEditor(page: Page, projectId: number, diagramId: number) {
-  await page.goto(`/projects/${projectId}/diagrams/${diagramId}`)
-  await page.waitForLoadState('networkidle')
-  await page.waitForSelector('.vue-flow__pane')
 }
 async function newDiagram(page: Page, projectId: number, title: string) {
   await page.goto(`/projects/${projectId}`)
@@ -45,19 +40,6 @@ async function runCheck(page: Page) {
 const verdict = (page: Page) => page.locator('[data-test=results] [data-test=verdict]').first().textContent()
 const chips = (page: Page) => page.locator('[data-test=helicity-chips] button').allTextContents()
 const blur = (page: Page) => page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur())
-
-/** Every real node's box inside the canvas's box. */
-async function nodesOutside(page: Page): Promise<string[]> {
-  return page.evaluate(() => {
-    const c = document.querySelector('[data-test=canvas]')!.getBoundingClientRect()
-    const out: string[] = []
-    for (const n of document.querySelectorAll('.vue-flow__node:not(.vue-flow__node-termframe)')) {
-      const b = n.getBoundingClientRect()
-      if (b.left < c.left - 1 || b.top < c.top - 1 || b.right > c.right + 1 || b.bottom > c.bottom + 1) out.push(n.getAttribute('data-id') ?? '?')
-    }
-    return out
-  })
-}
 
 describe('the canvas is the computation', () => {
   let a: BrowserSession

@@ -6,32 +6,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { READABLE_NODES } from '#shared/editor/collapse'
-import { openBrowser, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
+import { nodesOutside, openBrowser, openEditor, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
 import { projectWithRoles } from '../helpers/api'
 
 const PASSWORD = 'correct-horse-1'
 const NMHV8 = { theory: 'gluon', helicities: [-1, -1, -1, 1, 1, 1, 1, 1] }
 
-async function openEditor(page: Page, projectId: number, diagramId: number) {
-  await page.goto(`/projects/${projectId}/diagrams/${diagramId}`)
-  await page.waitForLoadState('networkidle')
-  await page.waitForSelector('.vue-flow__pane')
-}
 /** Vertices and Blocks on the canvas (legs and term frames not counted). */
 const shownNodes = (page: Page) => page.locator('.vue-flow__node-angle, .vue-flow__node-square, .vue-flow__node-block').count()
 const blockIds = (page: Page) => page.locator('.vue-flow__node-block').evaluateAll(ns => ns.map(n => n.getAttribute('data-id')!))
-
-async function nodesOutside(page: Page): Promise<string[]> {
-  return page.evaluate(() => {
-    const c = document.querySelector('[data-test=canvas]')!.getBoundingClientRect()
-    const out: string[] = []
-    for (const n of document.querySelectorAll('.vue-flow__node:not(.vue-flow__node-termframe)')) {
-      const b = n.getBoundingClientRect()
-      if (b.left < c.left - 1 || b.top < c.top - 1 || b.right > c.right + 1 || b.bottom > c.bottom + 1) out.push(n.getAttribute('data-id') ?? '?')
-    }
-    return out
-  })
-}
 
 /** Clicks "expand" on the first Block that has one; returns its id. */
 async function openFirstBlock(page: Page): Promise<string> {

@@ -3,10 +3,10 @@
 // exported SVG and PNG carry the process and the shift; at 1280×720 with 10 legs the header rows
 // stay single rows, the canvas keeps half the width, and the compact helicity string changes the
 // process, which is saved. Page errors and console errors fail every test.
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import type { Page } from 'playwright-core'
-import { openBrowser, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
+import { shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 import { FORMULA_SYNTAX } from '#shared/physics/formula-syntax'
 import { exportCaption } from '#shared/editor/exports'
@@ -49,18 +49,10 @@ async function rowsOf(page: Page, selector: string): Promise<number> {
 }
 
 describe('editor extras', () => {
-  let a: BrowserSession
+  const a = signedInBrowser(demo.owner, demo.password)
   let project: number
   beforeAll(async () => {
     project = await projectId()
-    a = await openBrowser()
-    await signInBrowser(a.page, demo.owner, demo.password)
-  })
-  afterAll(async () => {
-    await a?.close()
-  })
-  beforeEach(() => {
-    a.errors.length = 0
   })
 
   it('the syntax reference beside the formula field and on the help page; a formula typed with ⟨12⟩ agrees', async () => {

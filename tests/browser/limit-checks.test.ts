@@ -2,9 +2,9 @@
 // z, the arithmetic and each identity) on a six-gluon and a five-graviton diagram, asserting what the
 // panel shows — the verdict, its numbers and thresholds, the plot and the path table. Nothing is saved
 // by these checks. Page and console errors fail the test (the one expected 422 aside).
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { openBrowser, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
+import { shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 
 async function openLimits(page: Page, projectId: number, diagramId: number) {
@@ -24,7 +24,7 @@ async function runAndWait(page: Page, button: string, title: string) {
 const text = (page: Page, sel: string) => page.locator(`[data-test=${sel}]`).innerText()
 
 describe('Limits tab', () => {
-  let a: BrowserSession
+  const a = signedInBrowser(demo.owner, demo.password)
   let projectId: number
   let gluons: number
   let gravitons: number
@@ -38,14 +38,6 @@ describe('Limits tab', () => {
     gluons = g.id
     version = g.version
     gravitons = (await make('Five gravitons, three minus', { theory: 'graviton', helicities: [-2, -2, -2, 2, 2] })).id
-    a = await openBrowser()
-    await signInBrowser(a.page, demo.owner, demo.password)
-  })
-  afterAll(async () => {
-    await a?.close()
-  })
-  beforeEach(() => {
-    a.errors.length = 0
   })
 
   it('gluons: a soft leg and a collinear pair with z, each with its plot, table and verdict', async () => {

@@ -1,4 +1,5 @@
 // Debian's chromium driven by playwright-core (no browser download). Screenshots go to tests/screenshots.
+import { afterAll, beforeAll, beforeEach } from 'vitest'
 import { chromium, type BrowserContext, type Page } from 'playwright-core'
 import { mkdirSync, mkdtempSync } from 'node:fs'
 import { tmpdir } from 'node:os'
@@ -41,4 +42,42 @@ export async function signInBrowser(page: Page, email: string, password: string)
   await page.fill('input[name=email]', email)
   await page.fill('input[name=password]', password)
   await Promise.all([page.waitForURL(/\/projects/), page.click('button[type=submit]')])
+}
+
+/**
+ * One signed-in browser for the enclosing describe block: opened before its tests, closed after,
+ * collected errors cleared before each test. The returned object is filled in by the hook.
+ */
+export function signedInBrowser(email: string, password: string): BrowserSession {
+  const session = {} as BrowserSession
+  beforeAll(async () => {
+    Object.assign(session, await openBrowser())
+    await signInBrowser(session.page, email, password)
+  })
+  afterAll(async () => {
+    await session.close?.()
+  })
+  beforeEach(() => {
+    if (session.errors) session.errors.length = 0
+  })
+  return session
+}
+
+export async function openEditor(page: Page, projectId: number, diagramId: number) {
+  await page.goto(`/projects/${projectId}/diagrams/${diagramId}`)
+  await page.waitForLoadState('networkidle')
+  await page.waitForSelector('.vue-flow__pane')
+}
+
+/** Every real node's box inside the canvas's box: the ids of those that are not. */
+export async function nodesOutside(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const c = document.querySelector('[data-test=canvas]')!.getBoundingClientRect()
+    const out: string[] = []
+    for (const n of document.querySelectorAll('.vue-flow__node:not(.vue-flow__node-termframe)')) {
+      const b = n.getBoundingClientRect()
+      if (b.left < c.left - 1 || b.top < c.top - 1 || b.right > c.right + 1 || b.bottom > c.bottom + 1) out.push(n.getAttribute('data-id') ?? '?')
+    }
+    return out
+  })
 }
