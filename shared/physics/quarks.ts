@@ -60,6 +60,25 @@ export function checkQcdSpecies(legs: readonly Leg[]): string[] {
 const codeOf = (l: Leg) => pdgOfSpecies(l.species)
 
 /**
+ * The two quarks' flavours swapped (antiquarks kept): with two lines of one flavour the amplitude
+ * is A(pdg) − A(exchangedFlavours(pdg)), each term an amplitude of two different flavours
+ * (docs/conventions.md "Two quark lines").
+ */
+export function exchangedFlavours(pdg: readonly number[]): number[] {
+  const qs = pdg.flatMap((c, t) => (isQuarkCode(c) && c > 0 ? [t] : []))
+  if (qs.length !== 2) throw new PhysicsError('species', 'exchanging flavours needs exactly two quarks')
+  const out = pdg.slice()
+  out[qs[0]!] = pdg[qs[1]!]!
+  out[qs[1]!] = pdg[qs[0]!]!
+  return out
+}
+
+/** The same-flavour amplitude from the two different-flavour ones (`amplitude` of a leg list's codes). */
+export function sameFlavourValue<T>(sub: (a: T, b: T) => T, amplitude: (pdg: number[]) => T, pdg: readonly number[]): T {
+  return sub(amplitude(pdg.slice()), amplitude(exchangedFlavours(pdg)))
+}
+
+/**
  * Zero at tree level: a quark line with equal helicities at its two (outgoing) ends, or n ≥ 4
  * with fewer than two negative or two positive helicities (supersymmetric Ward identities,
  * common practice).

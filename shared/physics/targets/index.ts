@@ -11,6 +11,7 @@ import { KLT_MAX_N, klt } from './klt'
 import { cubicScalarFeynman } from './cubic-scalar'
 import { quarkLine, quarkLineBerendsGiele } from './quark-line'
 import { classifyQuarkMhv, quarkMhv } from './quark-mhv'
+import { quarkLines, quarkLinesBerendsGiele } from './quark-lines'
 import { GLUON_PDG } from '../quarks'
 
 import { THEORY_NAMES, type TheoryName } from '../theories'
@@ -53,7 +54,8 @@ function gravityLike(theory: TargetTheory, spin?: number): boolean {
 
 /**
  * The registry, preferred target first: `auto` picks the first entry that applies (quark MHV →
- * quark-mhv, other one-line quark processes → berends-giele-quark, gluon MHV/anti-MHV → parke-taylor, other gluons → berends-giele, graviton MHV → hodges, other
+ * quark-mhv, other one-line quark processes → berends-giele-quark, two lines →
+ * berends-giele-quark-lines, gluon MHV/anti-MHV → parke-taylor, other gluons → berends-giele, graviton MHV → hodges, other
  * gravitons at n ≤ 6 → klt, cubic scalar → feynman).
  */
 export const TARGETS = defineTargets([
@@ -78,6 +80,17 @@ export const TARGETS = defineTargets([
     quarks: true,
     applies: (theory, _h, _s, pdg) => theory === 'qcd' && !!pdg && quarkLine(pdg) !== null,
     evaluate: (F, k, h, pdg) => quarkLineBerendsGiele(F, k, h, pdg!),
+  },
+  {
+    name: 'berends-giele-quark-lines',
+    label: 'Berends–Giele with two quark lines',
+    theories: ['qcd'],
+    description: 'Off-shell recursion of colour-ordered Feynman rules with two massless quark lines of different flavours and gluons: quark and gluon currents over intervals of the colour order, a gluon current from each quark pair; every helicity configuration.',
+    source: 'F. A. Berends, W. T. Giele, Nucl. Phys. B306 (1988) 759',
+    spin: 1,
+    quarks: true,
+    applies: (theory, _h, _s, pdg) => theory === 'qcd' && !!pdg && quarkLines(pdg)?.length === 2,
+    evaluate: (F, k, h, pdg) => quarkLinesBerendsGiele(F, k, h, pdg!),
   },
   {
     name: 'parke-taylor',
@@ -181,4 +194,4 @@ export function evaluateTarget<T>(name: TargetName, F: Field<T>, k: Kin<T>, heli
   return t.evaluate(F, k, helicities, pdg)
 }
 
-export { parkeTaylor, berendsGiele, hodges, klt, cubicScalarFeynman, quarkMhv, quarkLineBerendsGiele }
+export { parkeTaylor, berendsGiele, hodges, klt, cubicScalarFeynman, quarkMhv, quarkLineBerendsGiele, quarkLinesBerendsGiele }

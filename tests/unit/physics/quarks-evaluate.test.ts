@@ -66,10 +66,25 @@ describe('evaluate with species', () => {
 })
 
 describe('two quark lines of different flavours', () => {
+  for (const arithmetic of ['float', 'exact'] as const) {
+    it(`${arithmetic}: the auto target is the quark-lines current and agrees (n = 4..7)`, () => {
+      for (const [h, species] of [
+        [[-0.5, 0.5, 0.5, -0.5], ['qbar1', 'q1', 'qbar2', 'q2']],
+        [[-0.5, 0.5, -1, 0.5, -0.5], ['qbar1', 'q1', 'g', 'qbar2', 'q2']],
+        [[0.5, -1, -0.5, 0.5, 1, -0.5], ['qbar3', 'g', 'q3', 'qbar1', 'g', 'q1']],
+        [[-0.5, 1, -1, 0.5, 0.5, -1, -0.5], ['qbar2', 'g', 'g', 'q2', 'qbar5', 'g', 'q5']],
+      ] as [number[], string[]][]) {
+        const r = evaluate({ theory: 'qcd', helicities: h, species, kinematics: { kind: arithmetic === 'exact' ? 'rational' : 'random', seed: 4 }, arithmetic })
+        expect(r.target!.name).toBe('berends-giele-quark-lines')
+        expect(r.verdict, `${species} ${r.warnings.join('; ')}`).toBe('agrees')
+      }
+    })
+  }
+
   // One gluon exchanged between the lines (colour-ordered Feynman rules, vertices γ^μ/√2 and the
   // Fierz identity ⟨a|γ^μ|b]⟨c|γ_μ|d] = 2⟨ac⟩[db], common practice): |A₄| = |⟨m₁m₂⟩[p₁p₂] / s_line|
-  // with m the negative and p the positive end of each line. Magnitude only: the relative sign of
-  // two lines is a convention we state, not a check.
+  // with m the negative and p the positive end of each line. The sign, a convention, is pinned in
+  // physics/quarks-two-lines.test.ts.
   it('n = 4: the magnitude of single-gluon exchange, every order and helicity', () => {
     const k = rationalPoint(4, 'two-lines')
     let checked = 0
@@ -90,7 +105,7 @@ describe('two quark lines of different flavours', () => {
     }
     expect(checked).toBe(16)
   })
-  // No independent target beyond n = 4: a missed boundary term would make valid shifts disagree.
+  // A missed boundary term would make valid shifts disagree.
   for (const [h, pdg] of [
     [[-0.5, 0.5, -1, 0.5, -0.5], [-1, 1, 21, -2, 2]],
     [[-0.5, 0.5, -1, 0.5, -0.5, 1], [-1, 1, 21, -2, 2, 21]],

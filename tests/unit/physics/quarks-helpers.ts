@@ -34,3 +34,24 @@ export function sample<T>(xs: T[], count: number): T[] {
   const step = Math.max(1, Math.floor(xs.length / count))
   return xs.filter((_, t) => t % step === 0)
 }
+
+/**
+ * Two quark lines of flavours 1 and 2 (q̄₁ at a1, q₁ at b1, q̄₂ at a2, q₂ at b2) and n − 4 gluons:
+ * every position and helicity assignment with opposite helicities at the ends of each line.
+ */
+export function twoLineCases(n: number, opts: { nonVanishing?: boolean } = {}): QuarkCase[] {
+  const out: QuarkCase[] = []
+  const legs = Array.from({ length: n }, (_, t) => t)
+  for (const a1 of legs) for (const b1 of legs) for (const a2 of legs) for (const b2 of legs) {
+    if (new Set([a1, b1, a2, b2]).size < 4) continue
+    const pdg = legs.map((t) => (t === a1 ? -1 : t === b1 ? 1 : t === a2 ? -2 : t === b2 ? 2 : 21))
+    for (let m = 0; m < 1 << n; m++) {
+      const h = legs.map((t) => ((m >> t) & 1 ? 1 : -1) * (pdg[t] === 21 ? 1 : 0.5))
+      if (h[a1] === h[b1] || h[a2] === h[b2]) continue
+      const minus = h.filter((x) => x < 0).length
+      if (opts.nonVanishing && (minus < 2 || n - minus < 2)) continue
+      out.push({ h, pdg })
+    }
+  }
+  return out
+}

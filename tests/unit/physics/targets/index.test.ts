@@ -65,10 +65,11 @@ describe('evaluateTarget', () => {
 
 describe('catalogue entries', () => {
   it('one entry per target, each with a label, theories, a description and a source', () => {
-    expect(TARGETS.map((t) => t.name).sort()).toEqual(['berends-giele', 'berends-giele-quark', 'feynman', 'hodges', 'klt', 'parke-taylor', 'quark-mhv'])
+    expect(TARGETS.map((t) => t.name).sort()).toEqual(['berends-giele', 'berends-giele-quark', 'berends-giele-quark-lines', 'feynman', 'hodges', 'klt', 'parke-taylor', 'quark-mhv'])
     expect(Object.fromEntries(TARGETS.map((t) => [t.name, [t.label, t.theories]]))).toEqual({
       'quark-mhv': ['Quark MHV (Mangano–Parke)', ['qcd']],
       'berends-giele-quark': ['Berends–Giele with a quark line', ['qcd']],
+      'berends-giele-quark-lines': ['Berends–Giele with two quark lines', ['qcd']],
       'parke-taylor': ['Parke–Taylor', ['gluon', 'qcd']],
       'berends-giele': ['Berends–Giele', ['gluon', 'qcd']],
       'hodges': ['Hodges determinant', ['graviton', 'spin']],
@@ -80,7 +81,7 @@ describe('catalogue entries', () => {
     // Every theory a target names offers it in the catalogue's sense: it applies to some process of that theory.
     const sample: Record<string, [number[], number?, number[]?][]> = {
       'gluon': [[[-1, -1, 1, 1]]], 'graviton': [[[-2, -2, 2, 2]]], 'spin': [[[-2, -2, 2, 2], 2]], 'scalar-cubic': [[[0, 0, 0, 0]]],
-      'qcd': [[[-1, -1, 1, 1]], [[-0.5, 0.5, -1, 1], undefined, [-1, 1, 21, 21]]],
+      'qcd': [[[-1, -1, 1, 1]], [[-0.5, 0.5, -1, 1], undefined, [-1, 1, 21, 21]], [[-0.5, 0.5, 0.5, -0.5], undefined, [-1, 1, -2, 2]]],
     }
     for (const t of TARGETS) for (const th of t.theories) expect(sample[th]!.some(([h, s, pdg]) => t.applies(th, h, s, pdg))).toBe(true)
   })
