@@ -42,10 +42,14 @@ function writeResults(name, args, text) {
   const file = join(here, 'RESULTS.md')
   const head = '# Benchmark results\n\nWritten by `node bench/run.mjs <name>` (`npm run bench*`); each section is replaced by the next run of its benchmark. Figures depend on the machine and its load: compare runs of one machine only.\n'
   const old = existsSync(file) ? readFileSync(file, 'utf8') : head
-  const open = `<!-- bench:${name} -->`
-  const close = `<!-- /bench:${name} -->`
+  // `engine --quarks` rewrites only its block inside the engine section
+  const block = name === 'engine' && args.includes('--quarks')
+  const key = block ? 'engine:quarks' : name
+  const open = `<!-- bench:${key} -->`
+  const close = `<!-- /bench:${key} -->`
   const when = new Date().toISOString().slice(0, 16).replace('T', ' ')
-  const body = `${open}\n## ${name}\n\n\`node bench/run.mjs ${[name, ...args].join(' ')}\` — ${when} UTC, load average ${loadavg()[0].toFixed(1)} at the end\n\n${text.trim()}\n${close}`
+  const line = `\`node bench/run.mjs ${[name, ...args].join(' ')}\` — ${when} UTC, load average ${loadavg()[0].toFixed(1)} at the end`
+  const body = block ? `${open}\n${line}\n\n${text.trim()}\n${close}` : `${open}\n## ${name}\n\n${line}\n\n${text.trim()}\n${close}`
   const a = old.indexOf(open)
   const b = old.indexOf(close)
   const next = a >= 0 && b > a ? old.slice(0, a) + body + old.slice(b + close.length) : `${old.trimEnd()}\n\n${body}\n`

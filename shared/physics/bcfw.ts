@@ -149,10 +149,38 @@ function computeChannels(n: number, i: number, j: number, colourOrdered: boolean
 /** Whether a side of a channel can be non-zero, from its helicities alone (three-point kinds structurally). */
 export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind, pdg?: readonly number[]): boolean {
   if (h.length === 3) return threePointSurvives(p, h, kind, pdg)
-  return pdg ? !quarkRules(p, h, pdg).vanishes : !vanishes(p, h)
+  return pdg ? !codesVanish(h, pdg) : !vanishes(p, h)
 }
 
-const quarkRuleMemo = new Map<string, { vanishes: boolean; shift: [number, number]; cost: number }>()
+/**
+ * The qcd vanishing rule (quarks.ts `qcdVanishes`) on helicities and codes directly: a line with
+ * equal end helicities, or n ≥ 4 with fewer than two minus or two plus legs. Speed: it runs for
+ * both sides of every channel.
+ */
+function codesVanish(h: readonly number[], c: readonly number[]): boolean {
+  const n = h.length
+  let minus = 0
+  for (let t = 0; t < n; t++) {
+    if (h[t]! < 0) minus++
+    const x = c[t]!
+    if (x === GLUON_PDG || x < 0) continue
+    for (let u = 0; u < n; u++) if (c[u] === -x && h[u] === h[t]) return true
+  }
+  return n >= 4 && (minus < 2 || n - minus < 2)
+}
+
+/** A number per helicities and codes (5 bits a leg up to n = 10), the memo key of quarkRules. */
+function rulesKey(h: readonly number[], c: readonly number[]): number | string {
+  if (h.length > 10) return `${h.join(',')}|${c.join(',')}`
+  let key = 1
+  for (let t = 0; t < h.length; t++) {
+    const x = c[t]!
+    key = key * 32 + (x === GLUON_PDG ? 0 : 2 + 2 * (x + 6)) + (h[t]! > 0 ? 1 : 0)
+  }
+  return key
+}
+
+const quarkRuleMemo = new Map<number | string, { vanishes: boolean; shift: [number, number]; cost: number }>()
 
 /**
  * Speed: the registry's vanishing rule and, of the valid shifts, the one with the fewest
@@ -160,7 +188,7 @@ const quarkRuleMemo = new Map<string, { vanishes: boolean; shift: [number, numbe
  * memoized per helicities and codes. Only valid shifts are candidates, so the rule stays valid.
  */
 function quarkRules(p: Process, h: readonly number[], c: readonly number[]): { vanishes: boolean; shift: [number, number]; cost: number } {
-  const key = `${p.theory}:${h.join(',')}|${c.join(',')}`
+  const key = rulesKey(h, c) // only qcd carries codes
   let r = quarkRuleMemo.get(key)
   if (r) return r
   const n = h.length

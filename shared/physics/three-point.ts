@@ -86,12 +86,14 @@ export function threePoint<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly nu
  * opposite helicities on the quark line (a vector coupling conserves helicity); null when none.
  */
 export function quarkVertex(pdg: readonly number[], h: readonly number[]): 'gluon' | 'quark' | null {
-  const g = pdg.filter((c) => c === GLUON_PDG).length
+  const g = (pdg[0] === GLUON_PDG ? 1 : 0) + (pdg[1] === GLUON_PDG ? 1 : 0) + (pdg[2] === GLUON_PDG ? 1 : 0)
   if (g === 3) return 'gluon'
   if (g !== 1) return null
-  const q = [0, 1, 2].filter((t) => pdg[t] !== GLUON_PDG)
-  if (pdg[q[0]!]! !== -pdg[q[1]!]!) return null
-  return h[q[0]!] === -h[q[1]!]! ? 'quark' : null
+  // the two quark legs (no arrays: this runs for every three-point side)
+  const a = pdg[0] === GLUON_PDG ? 1 : 0
+  const b = pdg[2] === GLUON_PDG ? 1 : 2
+  if (pdg[a]! !== -pdg[b]!) return null
+  return h[a] === -h[b]! ? 'quark' : null
 }
 
 /**

@@ -31,12 +31,17 @@ export const QUARK_PROPAGATOR_SIGN = 1
 
 /** The one quark line of a leg list (PDG codes), as positions [q̄, q]; null when none or more. */
 export function quarkLine(pdg: readonly number[]): [number, number] | null {
-  const qs = pdg.map((c, t) => [c, t] as const).filter(([c]) => c !== GLUON_PDG)
-  if (qs.length !== 2) return null
-  const bar = qs.find(([c]) => c < 0)
-  const q = qs.find(([c]) => c > 0)
-  if (!bar || !q || bar[0] !== -q[0]) return null
-  return [bar[1], q[1]]
+  // a loop, no arrays: the engine asks this of every quark sub-amplitude
+  let bar = -1
+  let q = -1
+  for (let t = 0; t < pdg.length; t++) {
+    const c = pdg[t]!
+    if (c === GLUON_PDG) continue
+    if (c < 0 && bar < 0) bar = t
+    else if (c > 0 && q < 0) q = t
+    else return null
+  }
+  return bar >= 0 && q >= 0 && pdg[bar] === -pdg[q]! ? [bar, q] : null
 }
 
 /**
