@@ -46,7 +46,7 @@ export function checkQcdSpecies(legs: readonly Leg[]): string[] {
     if (!s || l.species === 'gluon') throw new PhysicsError(`species[${t}]`, `unknown species ${l.species} (g, q1..q6, qbar1..qbar6)`)
     if (Math.abs(l.h) !== s.spin) throw new PhysicsError(`helicities[${t}]`, `a ${s.spin === 1 ? 'gluon' : 'quark'} has helicity ${s.spin === 1 ? '±1' : '±1/2'}, got ${l.h}`)
     if (s.pdg !== GLUON_PDG) {
-      if (seen.has(s.pdg!)) throw new PhysicsError(`species[${t}]`, `${l.species} appears twice; each flavour forms at most one quark line`)
+      if (seen.has(s.pdg!)) throw new PhysicsError(`species[${t}]`, `${l.species} appears twice; each flavour forms at most one quark line (two lines of one flavour: the difference of two requests with the quarks' flavours swapped)`)
       seen.set(s.pdg!, t)
     }
   })

@@ -14,7 +14,7 @@ import { bcfw } from '#shared/physics/bcfw'
 import { defaultShift, vanishes } from '#shared/physics/theories'
 import { quarkLineBerendsGiele } from '#shared/physics/targets/quark-line'
 import { quarkLinesBerendsGiele } from '#shared/physics/targets/quark-lines'
-import { exchangedFlavours } from '#shared/physics/quarks'
+import { exchangedFlavours, sameFlavourValue } from '#shared/physics/quarks'
 import { relDiff } from './helpers'
 import { QCD, oneLineCases, sample, twoLineCases, type QuarkCase } from './quarks-helpers'
 
@@ -77,6 +77,11 @@ describe('n = 4: single-gluon exchange', () => {
       checked++
     }
     expect(checked).toBe(64)
+  })
+  it('the example of docs/conventions.md: A(q̄₁⁺ q₁⁻ q̄₂⁻ q₂⁺) = ⟨23⟩[14]/s₁₂', () => {
+    const k = rationalPoint(4, 'two-lines-fierz')
+    const want = Q.div(Q.mul(angle(Q, k, 1, 2), square(Q, k, 0, 3)), Q.mul(angle(Q, k, 0, 1), square(Q, k, 1, 0)))
+    expect(Q.equals(quarkLinesBerendsGiele(Q, k, [0.5, -0.5, -0.5, 0.5], [-1, 1, -2, 2]), want)).toBe(true)
   })
 })
 
@@ -149,8 +154,8 @@ describe('MHV with two quark lines (the N = 1 four-gluino form)', () => {
           single++
         }
         else if ((pattern === '-+-+' || pattern === '+-+-') && c.pdg.filter((x) => x !== 21).every((x, t, a) => Math.sign(x) !== Math.sign(a[(t + 1) % 4]!))) {
-          const other = quarkLinesBerendsGiele(Q, k, c.h, exchangedFlavours(c.pdg))
-          expect(Q.equals(Q.sub(v, other), want), `same flavour ${c.h} ${c.pdg}`).toBe(true)
+          const same = sameFlavourValue((x, y) => Q.sub(x, y), (pdg) => quarkLinesBerendsGiele(Q, k, c.h, pdg), c.pdg)
+          expect(Q.equals(same, want), `same flavour ${c.h} ${c.pdg}`).toBe(true)
           pairs++
         }
       }
