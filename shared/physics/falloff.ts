@@ -12,6 +12,7 @@ import { berendsGiele } from './targets/berends-giele'
 import { cubicScalarAllChannels, cubicScalarFeynman } from './targets/cubic-scalar'
 import { PhysicsError } from './errors'
 import { quarkLine, quarkLineBerendsGiele } from './targets/quark-line'
+import { quarkLines, quarkLinesBerendsGiele } from './targets/quark-lines'
 import { GLUON_PDG } from './quarks'
 import { defaultShift, isValidShift, processOf, tableExponent, vanishes, type Process, type TheoryName } from './theories'
 
@@ -76,8 +77,9 @@ export function alternativeShift(p: Process, h: readonly number[], i: number, j:
  * species; else BCFW under another valid shift.
  */
 function amplitudeIn<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], alt: [number, number] | null): T {
-  // one quark line: its Berends–Giele current, independent of any shift
+  // quark lines: their Berends–Giele current, independent of any shift
   if (p.pdg && quarkLine(p.pdg)) return quarkLineBerendsGiele(F, k, h, p.pdg)
+  if (p.pdg && quarkLines(p.pdg)?.length) return quarkLinesBerendsGiele(F, k, h, p.pdg)
   if (p.theory === 'gluon' || (p.theory === 'qcd' && p.pdg?.every((c) => c === GLUON_PDG) !== false)) {
     const c = classifyGluon(h)
     if (c.kind === 'mhv') return parkeTaylorMhv(F, k, c.i, c.j)

@@ -108,7 +108,7 @@ function adjacent(n: number, i: number, j: number): boolean {
  * leg i (λ̃ shifted) and leg j (λ shifted): g± a gluon, f± a quark or antiquark (the same for both).
  * Measured by the exact probe with the quark-line Berends–Giele current as A(z) at n = 5, 6, for
  * every position of the line (docs/conventions.md "Falloff"). Two quarks of different lines:
- * see TWO_LINE_EXPONENT.
+ * TWO_LINE_EXPONENT.
  */
 export const QCD_FALLOFF_RISE: Record<string, number> = {
   'g-g-': 0, 'g-g+': 0, 'g-f-': 0, 'g-f+': 0,
@@ -118,11 +118,12 @@ export const QCD_FALLOFF_RISE: Record<string, number> = {
 }
 
 /**
- * Shifts of two quarks of different lines with equal helicity signs: −1 adjacent or not, measured
- * at n = 4 on single-gluon exchange only; other pairs of different lines get the one-line entry,
- * which is never lower than measured there (0 and 2 above the base for [f−,f+⟩ and [f+,f−⟩).
+ * Shifts of two quarks of different lines: +1 for [f+, f−⟩ and −1 for the other three types,
+ * adjacent or not. Measured by the exact probe with A(z) from the quark-lines Berends–Giele
+ * current at n = 4, 5, 6: the largest exponent seen per type (some positions fall off faster,
+ * so for two lines the entry is a bound; validity, its sign, is exact).
  */
-export const TWO_LINE_EXPONENT = -1
+export const TWO_LINE_EXPONENT: Record<'f+f-' | 'other', number> = { 'f+f-': 1, 'other': -1 }
 
 const typeOf = (l: Leg) => `${isQuarkCode(codeOf(l)) ? 'f' : 'g'}${l.h > 0 ? '+' : '-'}`
 
@@ -136,7 +137,7 @@ function otherLines(legs: readonly Leg[], i: number, j: number): boolean {
 /** Large-z exponent of A(z) under [i,j⟩ (0-based) by the measured table; null where it has none. */
 export function qcdFalloff(legs: readonly Leg[], i: number, j: number): number | null {
   const key = typeOf(legs[i]!) + typeOf(legs[j]!)
-  if ((key === 'f+f+' || key === 'f-f-') && otherLines(legs, i, j)) return TWO_LINE_EXPONENT
+  if (otherLines(legs, i, j)) return key === 'f+f-' ? TWO_LINE_EXPONENT['f+f-'] : TWO_LINE_EXPONENT.other
   const rise = QCD_FALLOFF_RISE[key]
   if (rise === undefined) return null
   return (adjacent(legs.length, i, j) ? -1 : -2) + rise
@@ -144,7 +145,8 @@ export function qcdFalloff(legs: readonly Leg[], i: number, j: number): number |
 
 /**
  * [i, i+1⟩ from the first negative leg when valid, else the first valid adjacent, else any valid
- * pair; pairs of two lines (entries measured at n = 4 only) come last.
+ * pair; pairs of quarks of two lines come last (kept from when their entries were measured at
+ * n = 4 only: the default shifts stay what they were).
  */
 export function qcdDefaultShift(legs: readonly Leg[]): [number, number] {
   const n = legs.length

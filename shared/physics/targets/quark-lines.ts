@@ -45,10 +45,10 @@ export function quarkLines(pdg: readonly number[]): [number, number][] | null {
   return out
 }
 
-type Cur<T> =
-  | { g: true; J: Quad<T>; pj: T }
-  /** A fermion current grown from the end `end` (rotated position): an angle bra (left) or square ket. */
-  | { g: false; end: number; left: boolean; s: Spinor<T> }
+interface GluonCur<T> { g: true; J: Quad<T>; pj: T }
+/** A fermion current grown from the line end `end` (rotated position): an angle bra (left) or a square ket. */
+interface FermionCur<T> { g: false; end: number; left: boolean; s: Spinor<T> }
+type Cur<T> = GluonCur<T> | FermionCur<T>
 
 /**
  * The colour-ordered amplitude with quark lines of different flavours (each flavour once as q
@@ -136,8 +136,8 @@ function linesRecursion<T>(F: Field<T>, k: Kin<T>, helicities: number[], pdg: re
           const L = cur[a * m + c]
           const R = cur[(c + 1) * m + b]
           if (!L || !R || L.g === R.g) continue
-          const f = (L.g ? R : L) as Extract<Cur<T>, { g: false }>
-          const g = (L.g ? L : R) as Extract<Cur<T>, { g: true }>
+          const f = (L.g ? R : L) as FermionCur<T>
+          const g = (L.g ? L : R) as GluonCur<T>
           if (f.end !== e) continue
           // +1 for a gluon between q̄ and q in the cyclic order at the vertex
           const sign = (R.g ? 1 : -1) * (fromBar ? 1 : -1)

@@ -1,10 +1,11 @@
 // The qcd falloff table (docs/conventions.md "Falloff") confirmed by the exact probe, whose A(z)
-// comes from the quark-line Berends–Giele current (Berends & Giele, Nucl. Phys. B306 (1988) 759).
+// comes from the Berends–Giele current with one or two quark lines (Berends & Giele, Nucl. Phys.
+// B306 (1988) 759).
 import { describe, expect, it } from 'vitest'
 import { probeFalloff } from '#shared/physics/falloff'
 import { processOf, tableExponent, isValidShift } from '#shared/physics/theories'
 import { QCD_FALLOFF_RISE, isQuarkCode } from '#shared/physics/quarks'
-import { oneLineCases, speciesNames } from './quarks-helpers'
+import { oneLineCases, sample, speciesNames, twoLineCases } from './quarks-helpers'
 
 const typeOf = (c: number, h: number) => `${isQuarkCode(c) ? 'f' : 'g'}${h > 0 ? '+' : '-'}`
 
@@ -28,6 +29,32 @@ describe('qcd falloff table = measured exponent', () => {
       }
       // every entry of the table was met, both adjacent and not
       expect(seen.size).toBe(2 * Object.keys(QCD_FALLOFF_RISE).length)
+    })
+  }
+})
+
+/** The two lines cross in the colour order (q̄₁ q̄₂ q₁ q₂ cyclically): the amplitude is 0. */
+function linesCross(pdg: readonly number[]): boolean {
+  const q = pdg.filter((c) => c !== 21)
+  return Math.abs(q[0]!) === Math.abs(q[2]!)
+}
+
+describe('two quark lines: the table bounds the measured exponent and its validity is exact', () => {
+  for (const [n, count] of [[4, 200], [5, 60], [6, 20]] as [number, number][]) {
+    it(`n = ${n}: every shift of ${n === 4 ? 'every' : 'sampled'} assignment${n === 4 ? '' : 's'}`, () => {
+      let lines = 0
+      for (const { h, pdg } of sample(twoLineCases(n, { nonVanishing: true }).filter(({ pdg }) => !linesCross(pdg)), count)) {
+        const p = processOf('qcd', undefined, h, speciesNames(pdg))
+        for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+          if (i === j) continue
+          const f = probeFalloff(p, h, i, j)
+          const t = tableExponent(p, h, i, j)!
+          expect(f.exponent, `${h} ${pdg} [${i + 1},${j + 1}⟩`).toBeLessThanOrEqual(t)
+          expect(isValidShift(p, h, i, j), `${h} ${pdg} [${i + 1},${j + 1}⟩`).toBe(f.exponent < 0)
+          if (isQuarkCode(pdg[i]!) && isQuarkCode(pdg[j]!) && Math.abs(pdg[i]!) !== Math.abs(pdg[j]!)) lines++
+        }
+      }
+      expect(lines).toBeGreaterThan(0)
     })
   }
 })

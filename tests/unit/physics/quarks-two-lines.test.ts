@@ -11,7 +11,7 @@ import { randomPoint, rationalPoint } from '#shared/physics/kinematics'
 import type { Kin } from '#shared/physics/spinors'
 import { angle, square } from '#shared/physics/spinors'
 import { bcfw } from '#shared/physics/bcfw'
-import { defaultShift, vanishes } from '#shared/physics/theories'
+import { defaultShift, isValidShift, vanishes } from '#shared/physics/theories'
 import { quarkLineBerendsGiele } from '#shared/physics/targets/quark-line'
 import { quarkLinesBerendsGiele } from '#shared/physics/targets/quark-lines'
 import { exchangedFlavours, sameFlavourValue } from '#shared/physics/quarks'
@@ -112,6 +112,24 @@ describe('BCFW = the quark-lines current', () => {
   }
 })
 
+describe('every valid shift gives the target', () => {
+  for (const n of [5, 6]) {
+    it(`n = ${n}, exact, sampled assignments`, () => {
+      const k = rationalPoint(n, `two-lines-shifts-${n}`)
+      let shifts = 0
+      for (const c of sample(twoLineCases(n, { nonVanishing: true }), n === 5 ? 40 : 12)) {
+        const t = quarkLinesBerendsGiele(Q, k, c.h, c.pdg)
+        for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+          if (i === j || !isValidShift(QCD, c.h, i, j, c.pdg)) continue
+          expect(Q.equals(bcfw(Q, QCD, k, c.h, [i, j], { pdg: c.pdg }).value, t), `${c.h} ${c.pdg} [${i + 1},${j + 1}⟩`).toBe(true)
+          shifts++
+        }
+      }
+      expect(shifts).toBeGreaterThan(50)
+    })
+  }
+})
+
 describe('MHV with two quark lines (the N = 1 four-gluino form)', () => {
   // All gluons +: only the quarks carry −. Where the two + ends are neighbours among the quark legs,
   // the other fermion pairing of N = 1 crosses and vanishes, so one QCD amplitude is the whole form;
@@ -154,7 +172,7 @@ describe('MHV with two quark lines (the N = 1 four-gluino form)', () => {
           single++
         }
         else if ((pattern === '-+-+' || pattern === '+-+-') && c.pdg.filter((x) => x !== 21).every((x, t, a) => Math.sign(x) !== Math.sign(a[(t + 1) % 4]!))) {
-          const same = sameFlavourValue((x, y) => Q.sub(x, y), (pdg) => quarkLinesBerendsGiele(Q, k, c.h, pdg), c.pdg)
+          const same = sameFlavourValue<Fraction>((x, y) => Q.sub(x, y), (pdg) => quarkLinesBerendsGiele(Q, k, c.h, pdg), c.pdg)
           expect(Q.equals(same, want), `same flavour ${c.h} ${c.pdg}`).toBe(true)
           pairs++
         }
