@@ -7,7 +7,7 @@ import { defaultShift, isValidShift, vanishes, type Process } from './theories'
 import { threePoint, threePointSurvives, type VertexKind } from './three-point'
 import { PhysicsError } from './errors'
 import { parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/parke-taylor'
-import { GLUON_PDG } from './quarks'
+import { GLUON_PDG, linesCross } from './quarks'
 import { classifyQuarkMhv, quarkMhvValue } from './targets/quark-mhv'
 
 /** A leg of a (sub-)amplitude: an external label (1-based) or an internal line L1, L2, … */
@@ -76,10 +76,12 @@ const QUARK_HEL = [0.5, -0.5]
 export function internalSpecies(c: readonly number[], L: readonly number[]): number | null {
   let open = 0
   let missing = GLUON_PDG
-  for (const t of L) {
-    const x = c[t]!
+  for (let a = 0; a < L.length; a++) {
+    const x = c[L[a]!]!
     if (x === GLUON_PDG) continue
-    if (L.some((u) => c[u] === -x)) continue
+    let paired = false
+    for (let b = 0; b < L.length && !paired; b++) paired = c[L[b]!] === -x
+    if (paired) continue
     open++
     missing = -x
   }
@@ -154,7 +156,7 @@ export function sideSurvives(p: Process, h: readonly number[], kind: VertexKind,
 
 /**
  * The qcd vanishing rule (quarks.ts `qcdVanishes`) on helicities and codes directly: a line with
- * equal end helicities, or n ≥ 4 with fewer than two minus or two plus legs. Speed: it runs for
+ * equal end helicities, n ≥ 4 with fewer than two minus or two plus legs, or crossing lines. Speed: it runs for
  * both sides of every channel.
  */
 function codesVanish(h: readonly number[], c: readonly number[]): boolean {
@@ -166,7 +168,7 @@ function codesVanish(h: readonly number[], c: readonly number[]): boolean {
     if (x === GLUON_PDG || x < 0) continue
     for (let u = 0; u < n; u++) if (c[u] === -x && h[u] === h[t]) return true
   }
-  return n >= 4 && (minus < 2 || n - minus < 2)
+  return n >= 4 && (minus < 2 || n - minus < 2 || linesCross(c))
 }
 
 /** A number per helicities and codes (5 bits a leg up to n = 10), the memo key of quarkRules. */
@@ -326,8 +328,12 @@ function bcfwSum<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], shift: [number, number]
       const x = internalSpecies(c, L)
       if (x === null) continue
       cInt = x
-      cL = [...L.map((t) => c[t]!), x]
-      cR = [...R.map((t) => c[t]!), x === GLUON_PDG ? x : -x]
+      cL = new Array<number>(nL + 1)
+      cR = new Array<number>(nR + 1)
+      for (let t = 0; t < nL; t++) cL[t] = c[L[t]!]!
+      for (let t = 0; t < nR; t++) cR[t] = c[R[t]!]!
+      cL[nL] = x
+      cR[nR] = x === GLUON_PDG ? x : -x
     }
     const hs = cInt === GLUON_PDG ? hsBoson : QUARK_HEL
     const hL: number[] = new Array(nL + 1)

@@ -54,10 +54,24 @@ export function checkQcdSpecies(legs: readonly Leg[]): string[] {
   if (seen.size > 2 * MAX_QUARK_LINES) throw new PhysicsError('species', `at most ${MAX_QUARK_LINES} quark lines are offered, got ${seen.size / 2}`)
   const warnings: string[] = []
   for (const [c, t] of seen) if (c > 0 && legs[seen.get(-c)!]!.h === legs[t]!.h) warnings.push(`the quark line of flavour ${c} has equal helicities at both ends, so the amplitude vanishes (helicity is conserved along a massless quark line)`)
+  if (linesCross(legs.map(codeOf))) warnings.push('the two quark lines cross in the colour order (their ends alternate: flavours a, b, a, b around the cycle), so the colour-ordered amplitude vanishes: no planar diagram has them')
   return warnings
 }
 
 const codeOf = (l: Leg) => pdgOfSpecies(l.species)
+
+/** Two quark lines whose ends interleave in the cyclic order (1, 2, 1, 2): no planar diagram. */
+export function linesCross(pdg: readonly number[]): boolean {
+  let a = 0, b = 0, c = 0, count = 0
+  for (const x of pdg) {
+    if (!isQuarkCode(x)) continue
+    if (count === 0) a = Math.abs(x)
+    else if (count === 2) c = Math.abs(x)
+    else if (count === 1) b = Math.abs(x)
+    count++
+  }
+  return count === 4 && a === c && a !== b
+}
 
 /**
  * The two quarks' flavours swapped (antiquarks kept): with two lines of one flavour the amplitude
@@ -79,9 +93,9 @@ export function sameFlavourValue<T>(sub: (a: T, b: T) => T, amplitude: (pdg: num
 }
 
 /**
- * Zero at tree level: a quark line with equal helicities at its two (outgoing) ends, or n ≥ 4
- * with fewer than two negative or two positive helicities (supersymmetric Ward identities,
- * common practice).
+ * Zero at tree level: a quark line with equal helicities at its two (outgoing) ends, n ≥ 4 with
+ * fewer than two negative or two positive helicities (supersymmetric Ward identities, common
+ * practice), or two quark lines crossing in the colour order.
  */
 export function qcdVanishes(legs: readonly Leg[]): boolean {
   const n = legs.length
@@ -96,7 +110,7 @@ export function qcdVanishes(legs: readonly Leg[]): boolean {
     }
     if (l.h < 0) minus++
   }
-  return n >= 4 && (minus < 2 || n - minus < 2)
+  return (n >= 4 && (minus < 2 || n - minus < 2)) || linesCross(legs.map(codeOf))
 }
 
 function adjacent(n: number, i: number, j: number): boolean {

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest'
 import { probeFalloff } from '#shared/physics/falloff'
 import { processOf, tableExponent, isValidShift } from '#shared/physics/theories'
-import { QCD_FALLOFF_RISE, isQuarkCode } from '#shared/physics/quarks'
+import { QCD_FALLOFF_RISE, isQuarkCode, linesCross } from '#shared/physics/quarks'
 import { oneLineCases, sample, speciesNames, twoLineCases } from './quarks-helpers'
 
 const typeOf = (c: number, h: number) => `${isQuarkCode(c) ? 'f' : 'g'}${h > 0 ? '+' : '-'}`
@@ -32,12 +32,6 @@ describe('qcd falloff table = measured exponent', () => {
     })
   }
 })
-
-/** The two lines cross in the colour order (q̄₁ q̄₂ q₁ q₂ cyclically): the amplitude is 0. */
-function linesCross(pdg: readonly number[]): boolean {
-  const q = pdg.filter((c) => c !== 21)
-  return Math.abs(q[0]!) === Math.abs(q[2]!)
-}
 
 describe('two quark lines: the table bounds the measured exponent and its validity is exact', () => {
   for (const [n, count] of [[4, 200], [5, 60], [6, 20]] as [number, number][]) {

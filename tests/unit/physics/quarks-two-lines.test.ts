@@ -14,7 +14,8 @@ import { bcfw } from '#shared/physics/bcfw'
 import { defaultShift, isValidShift, vanishes } from '#shared/physics/theories'
 import { quarkLineBerendsGiele } from '#shared/physics/targets/quark-line'
 import { quarkLinesBerendsGiele } from '#shared/physics/targets/quark-lines'
-import { exchangedFlavours, sameFlavourValue } from '#shared/physics/quarks'
+import { exchangedFlavours, linesCross, sameFlavourValue } from '#shared/physics/quarks'
+import { evaluate } from '#shared/physics/index'
 import { relDiff } from './helpers'
 import { QCD, oneLineCases, sample, twoLineCases, type QuarkCase } from './quarks-helpers'
 
@@ -181,6 +182,24 @@ describe('MHV with two quark lines (the N = 1 four-gluino form)', () => {
       expect(pairs).toBeGreaterThan(0)
     })
   }
+})
+
+describe('crossing lines', () => {
+  it('vanish: no planar diagram (target and BCFW exactly 0, n = 4..6), and evaluate says so', () => {
+    for (const n of [4, 5, 6]) {
+      const k = rationalPoint(n, `two-lines-cross-${n}`)
+      const cases = twoLineCases(n).filter((c) => linesCross(c.pdg))
+      expect(cases.length).toBeGreaterThan(0)
+      for (const c of sample(cases, 100)) {
+        expect(vanishes(QCD, c.h, c.pdg)).toBe(true)
+        expect(Q.isZero(quarkLinesBerendsGiele(Q, k, c.h, c.pdg)), `${c.h} ${c.pdg}`).toBe(true)
+        expect(Q.isZero(bcfw(Q, QCD, k, c.h, defaultShift(QCD, c.h, c.pdg), { pdg: c.pdg }).value), `${c.h} ${c.pdg}`).toBe(true)
+      }
+    }
+    const r = evaluate({ theory: 'qcd', helicities: [-0.5, 0.5, 0.5, -0.5, 1], species: ['qbar1', 'qbar2', 'q1', 'q2', 'g'], kinematics: { kind: 'random', seed: 2 } })
+    expect(r.value).toEqual([0, 0])
+    expect(r.warnings.some((w) => w.includes('cross'))).toBe(true)
+  })
 })
 
 describe('same flavour', () => {
