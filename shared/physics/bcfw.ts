@@ -8,7 +8,7 @@ import { threePoint, threePointSurvives, type VertexKind } from './three-point'
 import { PhysicsError } from './errors'
 import { parkeTaylorAntiMhv, parkeTaylorMhv } from './targets/parke-taylor'
 import { GLUON_PDG, linesCross } from './quarks'
-import { classifyQuarkMhv, quarkMhvValue } from './targets/quark-mhv'
+import { classifyQuarkMhv, classifyTwoLineMhv, quarkMhvValue, twoLineMhvValue } from './targets/quark-mhv'
 
 /** A leg of a (sub-)amplitude: an external label (1-based) or an internal line L1, L2, … */
 export type LegRef = { label: number } | { line: string }
@@ -44,7 +44,7 @@ export interface SubAmplitude<T> {
 export interface BcfwOptions {
   /** Expand children down to three-point vertices (no closed forms). */
   tree?: boolean
-  /** Use Parke–Taylor for MHV and anti-MHV gluon sub-blocks (exactly equal; on unless tree). */
+  /** Closed forms for MHV and anti-MHV sub-blocks: Parke–Taylor, the quark MHV forms (exactly equal; on unless tree). */
   closedForms?: boolean
   /** Refuse trees with more nodes than this. */
   maxNodes?: number
@@ -198,7 +198,7 @@ function quarkRules(p: Process, h: readonly number[], c: readonly number[]): { v
   r = { vanishes: v, shift: defaultShift(p, h, c), cost: v ? 0 : 1 }
   const gluons = c.every((x) => x === GLUON_PDG)
   if (!v && gluons) r.cost = cheapestShift(h).cost
-  else if (!v && n > 3 && classifyQuarkMhv(h, c).kind === 'other') {
+  else if (!v && n > 3 && classifyQuarkMhv(h, c).kind === 'other' && !classifyTwoLineMhv(h, c)) {
     let best = Infinity
     for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
       if (i === j || !isValidShift(p, h, i, j, c)) continue
@@ -414,7 +414,7 @@ function amplitudeValue<T>(ctx: Ctx<T>, k: Kin<T>, h: number[], c?: number[]): T
     const rules = quarkRules(p, h, c)
     if (rules.vanishes) return F.zero
     if (ctx.closedForms) {
-      const v = quarkMhvValue(F, k, h, c)
+      const v = quarkMhvValue(F, k, h, c) ?? twoLineMhvValue(F, k, h, c)
       if (v !== null) return v
     }
     return subSum(ctx, k, h, rules.shift, c)

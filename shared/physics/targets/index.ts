@@ -10,7 +10,7 @@ import { hodges, classifyGraviton } from './hodges'
 import { KLT_MAX_N, klt } from './klt'
 import { cubicScalarFeynman } from './cubic-scalar'
 import { quarkLine, quarkLineBerendsGiele } from './quark-line'
-import { classifyQuarkMhv, quarkMhv } from './quark-mhv'
+import { classifyQuarkMhv, classifyTwoLineMhv, quarkMhv, twoLineMhvValue } from './quark-mhv'
 import { quarkLines, quarkLinesBerendsGiele } from './quark-lines'
 import { GLUON_PDG } from '../quarks'
 
@@ -54,8 +54,8 @@ function gravityLike(theory: TargetTheory, spin?: number): boolean {
 
 /**
  * The registry, preferred target first: `auto` picks the first entry that applies (quark MHV →
- * quark-mhv, other one-line quark processes → berends-giele-quark, two lines →
- * berends-giele-quark-lines, gluon MHV/anti-MHV → parke-taylor, other gluons → berends-giele, graviton MHV → hodges, other
+ * quark-mhv, other one-line quark processes → berends-giele-quark, two-line MHV →
+ * quark-pairs-mhv, other two-line processes → berends-giele-quark-lines, gluon MHV/anti-MHV → parke-taylor, other gluons → berends-giele, graviton MHV → hodges, other
  * gravitons at n ≤ 6 → klt, cubic scalar → feynman).
  */
 export const TARGETS = defineTargets([
@@ -80,6 +80,21 @@ export const TARGETS = defineTargets([
     quarks: true,
     applies: (theory, _h, _s, pdg) => theory === 'qcd' && !!pdg && quarkLine(pdg) !== null,
     evaluate: (F, k, h, pdg) => quarkLineBerendsGiele(F, k, h, pdg!),
+  },
+  {
+    name: 'quark-pairs-mhv',
+    label: 'Two quark pairs MHV (N = 1 form)',
+    theories: ['qcd'],
+    description: 'Closed form with two quark lines of different flavours, every gluon + (or every gluon −): ⟨m₁m₂⟩³⟨p₁p₂⟩/(⟨12⟩…⟨n1⟩) and its parity conjugate, where the two +½ ends are neighbours among the quark legs (the four-gluino component of the N = 4 MHV superamplitude).',
+    source: 'V. P. Nair, Phys. Lett. B214 (1988) 215; L. Dixon, J. Henn, J. Plefka, T. Schuster, arXiv:1010.3991',
+    spin: 1,
+    quarks: true,
+    applies: (theory, h, _s, pdg) => theory === 'qcd' && !!pdg && classifyTwoLineMhv(h, pdg) !== null,
+    evaluate: (F, k, h, pdg) => {
+      const v = twoLineMhvValue(F, k, h, pdg!)
+      if (v === null) throw new PhysicsError('target', 'the two-quark-pair MHV form applies to two lines of different flavours, every gluon of one helicity, the + ends neighbours among the quarks')
+      return v
+    },
   },
   {
     name: 'berends-giele-quark-lines',

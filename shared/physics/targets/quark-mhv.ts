@@ -70,3 +70,59 @@ export function quarkMhv<T>(F: Field<T>, k: Kin<T>, h: number[], pdg: readonly n
   if (v === null) throw new PhysicsError('target', 'the quark MHV form applies to one quark line with exactly one gluon of each odd helicity (MHV or its conjugate)')
   return v
 }
+
+/**
+ * Two quark lines of different flavours, MHV (every gluon +) or its conjugate (every gluon −, n > 4),
+ * with the two +½ ends neighbours among the four quark legs (cyclically) and the lines not crossing:
+ *   MHV ⟨m₁m₂⟩³⟨p₁p₂⟩/(⟨12⟩…⟨n1⟩), conjugate (−1)ⁿ[p₁p₂]³[m₁m₂]/([12]…[n1]),
+ * m the ends of helicity −½, p of +½. This is the four-gluino component of the N = 4 MHV
+ * superamplitude with one gluino species (Nair, Phys. Lett. B214 (1988) 215), where the other
+ * fermion pairing of N = 1 crosses; its sign in our conventions (docs/conventions.md "Two quark
+ * lines") is +1, measured against the quark-lines Berends–Giele current. Null where it does not apply.
+ */
+export function twoLineMhvValue<T>(F: Field<T>, k: Kin<T>, h: readonly number[], pdg: readonly number[]): T | null {
+  const c = classifyTwoLineMhv(h, pdg)
+  if (!c) return null
+  const n = h.length
+  const { mhv, m1, p1, m2, p2 } = c
+  const L = mhv ? k.lambda : k.lambdaTilde
+  const br = (x: number, y: number) => {
+    const a = L[x]!, b = L[y]!
+    return mhv ? F.sub(F.mul(a[0], b[1]), F.mul(a[1], b[0])) : F.sub(F.mul(a[1], b[0]), F.mul(a[0], b[1]))
+  }
+  let den = F.one
+  for (let t = 0; t < n; t++) den = F.mul(den, br(t, (t + 1) % n))
+  const cube = mhv ? br(m1, m2) : br(p1, p2)
+  const v = F.div(F.mul(F.mul(cube, F.mul(cube, cube)), mhv ? br(p1, p2) : br(m1, m2)), den, 'an adjacent bracket of the two-line MHV form vanishes')
+  return !mhv && n % 2 ? F.neg(v) : v
+}
+
+/** Where the two-line form applies: the class and the line ends m (−½) and p (+½); null elsewhere. */
+export function classifyTwoLineMhv(h: readonly number[], pdg: readonly number[]): { mhv: boolean; m1: number; p1: number; m2: number; p2: number } | null {
+  const n = h.length
+  const q: number[] = []
+  let minusGluons = 0
+  for (let t = 0; t < n; t++) {
+    if (pdg[t] === GLUON_PDG) {
+      if (h[t]! < 0) minusGluons++
+    }
+    else q.push(t)
+  }
+  if (q.length !== 4) return null
+  const mhv = minusGluons === 0
+  if (!mhv && (n === 4 || minusGluons !== n - 4)) return null
+  const c = q.map((t) => pdg[t]!)
+  const plus = q.map((t) => h[t]! > 0)
+  // not crossing (flavours a, b, a, b), + ends neighbours (signs not alternating)
+  if (Math.abs(c[0]!) === Math.abs(c[2]!) || plus[0] === plus[2]) return null
+  const f1 = Math.abs(c[0]!)
+  const f2 = Math.abs(c[1]!) === f1 ? Math.abs(c[2]!) : Math.abs(c[1]!)
+  const end = (f: number, pl: boolean) => {
+    const x = [0, 1, 2, 3].filter((y) => Math.abs(c[y]!) === f && plus[y] === pl)
+    return x.length === 1 ? q[x[0]!]! : -1
+  }
+  const r = { mhv, m1: end(f1, false), p1: end(f1, true), m2: end(f2, false), p2: end(f2, true) }
+  // each line a q and a q̄ of opposite helicities
+  if (r.m1 < 0 || r.p1 < 0 || r.m2 < 0 || r.p2 < 0 || pdg[r.m1] !== -pdg[r.p1]! || pdg[r.m2] !== -pdg[r.p2]!) return null
+  return r
+}

@@ -9,6 +9,8 @@ import { angle, square } from '#shared/physics/spinors'
 import { bcfw } from '#shared/physics/bcfw'
 import { defaultShift, isValidShift } from '#shared/physics/theories'
 import { oneLineCases, sample, speciesNames, QCD } from './quarks-helpers'
+import { classifyTwoLineMhv } from '#shared/physics/targets/quark-mhv'
+import { pdgOfSpecies } from '#shared/physics/quarks'
 
 describe('evaluate with species', () => {
   for (const n of [4, 5, 6, 7, 8]) {
@@ -67,7 +69,7 @@ describe('evaluate with species', () => {
 
 describe('two quark lines of different flavours', () => {
   for (const arithmetic of ['float', 'exact'] as const) {
-    it(`${arithmetic}: the auto target is the quark-lines current and agrees (n = 4..7)`, () => {
+    it(`${arithmetic}: the auto target (the two-line MHV form, else the quark-lines current) agrees (n = 4..7)`, () => {
       for (const [h, species] of [
         [[-0.5, 0.5, 0.5, -0.5], ['qbar1', 'q1', 'qbar2', 'q2']],
         [[-0.5, 0.5, -1, 0.5, -0.5], ['qbar1', 'q1', 'g', 'qbar2', 'q2']],
@@ -75,7 +77,7 @@ describe('two quark lines of different flavours', () => {
         [[-0.5, 1, -1, 0.5, 0.5, -1, -0.5], ['qbar2', 'g', 'g', 'q2', 'qbar5', 'g', 'q5']],
       ] as [number[], string[]][]) {
         const r = evaluate({ theory: 'qcd', helicities: h, species, kinematics: { kind: arithmetic === 'exact' ? 'rational' : 'random', seed: 4 }, arithmetic })
-        expect(r.target!.name).toBe('berends-giele-quark-lines')
+        expect(r.target!.name).toBe(classifyTwoLineMhv(h, species.map(pdgOfSpecies)) ? 'quark-pairs-mhv' : 'berends-giele-quark-lines')
         expect(r.verdict, `${species} ${r.warnings.join('; ')}`).toBe('agrees')
       }
     })

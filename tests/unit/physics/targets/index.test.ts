@@ -65,11 +65,12 @@ describe('evaluateTarget', () => {
 
 describe('catalogue entries', () => {
   it('one entry per target, each with a label, theories, a description and a source', () => {
-    expect(TARGETS.map((t) => t.name).sort()).toEqual(['berends-giele', 'berends-giele-quark', 'berends-giele-quark-lines', 'feynman', 'hodges', 'klt', 'parke-taylor', 'quark-mhv'])
+    expect(TARGETS.map((t) => t.name).sort()).toEqual(['berends-giele', 'berends-giele-quark', 'berends-giele-quark-lines', 'feynman', 'hodges', 'klt', 'parke-taylor', 'quark-mhv', 'quark-pairs-mhv'])
     expect(Object.fromEntries(TARGETS.map((t) => [t.name, [t.label, t.theories]]))).toEqual({
       'quark-mhv': ['Quark MHV (Mangano–Parke)', ['qcd']],
       'berends-giele-quark': ['Berends–Giele with a quark line', ['qcd']],
       'berends-giele-quark-lines': ['Berends–Giele with two quark lines', ['qcd']],
+      'quark-pairs-mhv': ['Two quark pairs MHV (N = 1 form)', ['qcd']],
       'parke-taylor': ['Parke–Taylor', ['gluon', 'qcd']],
       'berends-giele': ['Berends–Giele', ['gluon', 'qcd']],
       'hodges': ['Hodges determinant', ['graviton', 'spin']],
