@@ -12,6 +12,7 @@ import { parkeTaylor } from '#shared/physics/targets/parke-taylor'
 import { allBoxes, boxCut, cutStates, rotateBox } from '#shared/physics/loop/index'
 import { productSign, superCorner } from '#shared/physics/loop/super'
 import { cornerTree } from '#shared/physics/loop/coefficient'
+import { infraredRows } from '#shared/physics/loop/infrared'
 
 const p = processOf('gluon')
 
@@ -110,5 +111,48 @@ describe('independence of the evaluation order (multiplet sum)', () => {
       expect(boxCut(Q, p, k, h, box, { states: 'multiplet', order: [3, 1, 0, 2] }).value.equals(ref)).toBe(true)
       for (const r of [1, 2, 3]) expect(boxCut(Q, p, k, h, rotateBox(box, r), { states: 'multiplet' }).value.equals(ref)).toBe(true)
     }
+  })
+})
+
+// The poles of the one-loop N = 4 amplitude, −(1/ε²) Σ_i (−s_{i,i+1})^(−ε) A_tree (BDDK,
+// hep-ph/9403226), against Σ boxes b F with the box functions' poles (infrared.ts; from memory,
+// checked here first on the MHV boxes): 1 condition from 1/ε², one per independent invariant.
+describe('infrared conditions of the N = 4 box coefficients', () => {
+  const check = (h: number[], seed: number) => {
+    const n = h.length
+    const k = rationalPoint(n, seed)
+    const boxes = allBoxes(n)
+    const c = boxes.map((box) => boxCut(Q, p, k, h, box, { states: 'multiplet' }).value)
+    const rows = infraredRows(Q, k, boxes, c, cornerTree(Q, p, k, h, 'closed'))!
+    for (const r of rows) expect(r.value.equals(r.target), `${JSON.stringify(r.legs)}`).toBe(true)
+    return rows
+  }
+  it.each([[-1, -1, 1, 1], [-1, 1, -1, 1, 1], [-1, -1, 1, 1, 1, 1], [-1, 1, 1, -1, 1, 1], [-1, 1, -1, 1, 1, 1, 1]])('MHV %j: every condition holds exactly', (...h) => {
+    const rows = check(h, 3)
+    // the 1/ε² row and one per distinct two- and three-particle invariant
+    expect(rows.length).toBeGreaterThanOrEqual(h.length === 4 ? 3 : 1 + h.length)
+  })
+  it.each([[-1, -1, -1, 1, 1, 1], [-1, 1, -1, 1, -1, 1], [-1, -1, 1, -1, 1, 1], [1, -1, -1, 1, -1, 1]])('six-gluon NMHV %j: every condition holds exactly (two seeds)', (...h) => {
+    const rows = check(h, 1)
+    check(h, 7)
+    expect(rows).toHaveLength(1 + 6 + 3)
+  })
+  it('the conditions see a wrong coefficient: one two-mass-hard box off by 1 % fails', () => {
+    const h = [-1, -1, -1, 1, 1, 1]
+    const k = rationalPoint(6, 1)
+    const boxes = allBoxes(6)
+    const c = boxes.map((box) => boxCut(Q, p, k, h, box, { states: 'multiplet' }).value)
+    const i = boxes.findIndex((b, j) => b.kind === 'two-mass-hard' && !Q.isZero(c[j]!))
+    c[i] = Q.mul(c[i]!, Q.div(Q.fromInt(101), Q.fromInt(100)))
+    const rows = infraredRows(Q, k, boxes, c, cornerTree(Q, p, k, h, 'closed'))!
+    expect(rows.some((r) => !r.value.equals(r.target))).toBe(true)
+  })
+  it('the gluon-only sum fails them for NMHV (fermions and scalars are needed)', () => {
+    const h = [-1, 1, -1, 1, -1, 1]
+    const k = rationalPoint(6, 1)
+    const boxes = allBoxes(6)
+    const c = boxes.map((box) => boxCut(Q, p, k, h, box).value)
+    const rows = infraredRows(Q, k, boxes, c, cornerTree(Q, p, k, h, 'closed'))!
+    expect(rows.some((r) => !r.value.equals(r.target))).toBe(true)
   })
 })
