@@ -149,11 +149,24 @@ describe('loopCuts (the route body)', () => {
     expect(r.counts.agrees).toBe(15)
     for (const b of r.boxes.filter((x) => x.kind === 'two-mass-hard')) expect(b.value).toEqual(['0', '0'])
   })
-  it('non-adjacent MHV: the multiplet cuts are not compared, the rest agree', () => {
+  it('non-adjacent MHV: the multiplet cuts are summed over N = 4 and agree; with gluons only they are not compared', () => {
     const r = loopCuts({ helicities: [-1, 1, 1, -1, 1, 1] })
     expect(r.verdict).toBe('agrees')
-    expect(r.counts['not evaluated']).toBeGreaterThan(0)
-    expect(r.boxes.filter((b) => b.verdict === 'not evaluated').every((b) => b.note?.startsWith('fermions'))).toBe(true)
+    expect(r.counts.agrees).toBe(15)
+    expect(r.boxes.some((b) => b.states.startsWith('N = 4 multiplet'))).toBe(true)
+    expect(r.infrared?.verdict).toBe('agrees')
+    const g = loopCuts({ helicities: [-1, 1, 1, -1, 1, 1], states: 'gluons' })
+    expect(g.counts['not evaluated']).toBeGreaterThan(0)
+    expect(g.infrared).toBeNull()
+    expect(g.boxes.filter((b) => b.verdict === 'not evaluated').every((b) => b.note?.startsWith('fermions') && b.states.startsWith('gluons only (asked for)'))).toBe(true)
+  })
+  it('six-gluon NMHV: no per-box target; the infrared conditions agree (exact), tree by BCFW', () => {
+    const r = loopCuts({ helicities: [-1, 1, -1, 1, -1, 1], arithmetic: 'exact' })
+    expect(r.verdict).toBe('agrees')
+    expect(r.counts['not evaluated']).toBe(15)
+    expect(r.infrared!.rows).toHaveLength(10)
+    expect(r.infrared!.rows.every((x) => x.deviation === 0)).toBe(true)
+    expect(r.tree).not.toEqual(['0', '0'])
   })
   it.each([
     [{ helicities: [-1, 1, 1] }, 'helicities'],
