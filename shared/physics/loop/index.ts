@@ -62,17 +62,10 @@ function run<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], corners: Corner
     let stateText: string
     values.push(null)
     try {
-      const gluonCut = boxCut(F, p, k, h, box, { corners })
-      const onlyGluons = gluonCut.solutions.every((s) => cutStates(box, s.threePoint, h) === 'gluons')
-      if (onlyGluons || states === 'gluons') {
-        cut = gluonCut
-        stateText = onlyGluons ? GLUONS_EXACT : GLUONS_ASKED
-        if (!onlyGluons) allN4 = false
-      }
-      else {
-        cut = boxCut(F, p, k, h, box, { corners, states: 'multiplet' })
-        stateText = MULTIPLET_STATES
-      }
+      cut = boxCut(F, p, k, h, box, { corners, states: states === 'n4' ? 'auto' : 'gluons' })
+      const onlyGluons = cut.solutions.every((s) => cutStates(box, s.threePoint, h) === 'gluons')
+      stateText = onlyGluons ? GLUONS_EXACT : states === 'n4' ? MULTIPLET_STATES : GLUONS_ASKED
+      if (stateText === GLUONS_ASKED) allN4 = false
     }
     catch (e) {
       allN4 = false
