@@ -55,7 +55,7 @@ export function gMul<T>(F: Field<T>, x: Grassmann<T>, y: Grassmann<T>, keep?: (m
 /** The N = 4 sector of a corner that no closed super-amplitude here covers (NMHV corners crossed by fermions). */
 export class UnsupportedCorner extends PhysicsError {
   constructor(m: number, k: number) {
-    super('states', `a ${m}-point N^${k - 2}MHV corner crossed by gluinos and scalars needs a super-amplitude beyond MHV and anti-MHV; not summed`)
+    super('states', `a ${m}-point ${k === 3 ? 'NMHV' : `N^${k - 2}MHV`} corner crossed by gluinos and scalars needs a super-amplitude beyond MHV and anti-MHV; this box is not summed`)
   }
 }
 
@@ -78,9 +78,14 @@ export function superCorner<T>(F: Field<T>, p: Process, kin: Kin<T>, ext: readon
     else if (k === m - 2) poly = antiMhvCorner(F, kin, ext)
     else if (d === 1) {
       // thrown only if a complete assignment of the cut uses this sector (superSolution)
+      // its gluon components are trees; the gluino and scalar ones are flagged
       if (!unsupported) throw new UnsupportedCorner(m, k)
-      for (let S = 0; S < 16; S++) unsupported.add(S | ((~S & 0xf) << 4))
-      poly = new Map([...unsupported].map((mono) => [mono, F.zero]))
+      poly = new Map([[0xf0, cornerTree(F, p, kin, [1, ...ext, -1], method)], [0x0f, cornerTree(F, p, kin, [-1, ...ext, 1], method)]])
+      for (let S = 1; S < 15; S++) {
+        const mono = S | ((~S & 0xf) << 4)
+        unsupported.add(mono)
+        poly.set(mono, F.zero)
+      }
       unsupportedSector = { m, k }
     }
     else {

@@ -168,6 +168,17 @@ describe('loopCuts (the route body)', () => {
     expect(r.infrared!.rows.every((x) => x.deviation === 0)).toBe(true)
     expect(r.tree).not.toEqual(['0', '0'])
   })
+  it('seven-gluon −+−+−++: boxes with an NMHV corner that gluinos cross say they are not summed; no infrared check then', () => {
+    const r = loopCuts({ helicities: [-1, 1, -1, 1, -1, 1, 1] })
+    const open = r.boxes.filter((b) => b.states === '—')
+    expect(open.length).toBeGreaterThan(0)
+    expect(open.every((b) => b.verdict === 'not evaluated' && /6-point NMHV corner crossed by gluinos/.test(b.note ?? ''))).toBe(true)
+    expect(r.infrared).toBeNull()
+  })
+  it('eight-gluon split N²MHV −−−−++++: every box summed, the infrared conditions agree (float)', () => {
+    const r = loopCuts({ helicities: [-1, -1, -1, -1, 1, 1, 1, 1] })
+    expect(r.infrared?.verdict).toBe('agrees')
+  })
   it.each([
     [{ helicities: [-1, 1, 1] }, 'helicities'],
     [{ helicities: [-1, 1, 1, 1, 1, 1, 1, 1, 1] }, 'helicities'],

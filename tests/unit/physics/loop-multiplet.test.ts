@@ -137,6 +137,10 @@ describe('infrared conditions of the N = 4 box coefficients', () => {
     check(h, 7)
     expect(rows).toHaveLength(1 + 6 + 3)
   })
+  it('seven-gluon NMHV −−−++++: 35 boxes (three-mass ones included), every condition exact', () => {
+    const rows = check([-1, -1, -1, 1, 1, 1, 1], 2)
+    expect(rows).toHaveLength(1 + 7 + 7)
+  })
   it('the conditions see a wrong coefficient: one two-mass-hard box off by 1 % fails', () => {
     const h = [-1, -1, -1, 1, 1, 1]
     const k = rationalPoint(6, 1)
