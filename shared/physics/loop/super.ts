@@ -13,8 +13,7 @@ import { angleOf, squareOf, type Kin } from '../spinors'
 import type { Process } from '../theories'
 import type { VertexKind } from '../three-point'
 import type { Box } from './boxes'
-import type { BoxTerm } from './coefficient'
-import { cornerTree, type CornerMethod } from './coefficient'
+import { cornerTree, type BoxTerm, type CornerMethod } from './coefficient'
 
 /** A Grassmann polynomial: monomial (bit g set: generator g present, product in increasing g) → coefficient. */
 export type Grassmann<T> = Map<number, T>
