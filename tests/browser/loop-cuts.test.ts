@@ -65,6 +65,8 @@ describe('loop cuts in the browser', () => {
     // a gluino routing shows its multiplicity
     expect(await page.locator('[data-test=loop-table]').textContent()).toContain('×4')
     await shot(page, 'loop-cuts-nmhv-multiplet')
+    await page.locator('[data-test=loop-infrared]').scrollIntoViewIfNeeded()
+    await shot(page, 'loop-cuts-infrared')
     const [csv] = await Promise.all([page.waitForEvent('download'), page.click('[data-test=loop-export-csv]')])
     expect(csv.suggestedFilename()).toBe('loop-cuts-mpmpmp.csv')
     const text = readFileSync((await csv.path())!, 'utf8')
