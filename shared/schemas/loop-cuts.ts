@@ -15,8 +15,10 @@ export const LoopCutRequestSchema = z.object({
   kinematics: KinematicsSchema.optional(),
   /** How corners with four or more legs are evaluated: Parke–Taylor where it applies (else BCFW), BCFW, or Berends–Giele. */
   corners: z.enum(['closed', 'bcfw', 'berends-giele']).default('closed'),
-  /** 'n4-mhv': compare with the N = 4 MHV box coefficients; 'none': no comparison. */
+  /** 'n4-mhv': compare with the N = 4 MHV box coefficients and (states n4) the infrared conditions; 'none': no comparison. */
   target: z.enum(['n4-mhv', 'none']).default('n4-mhv'),
+  /** What crosses the cut lines: 'n4' the N = 4 multiplet (gluons, four gluinos, six scalars), 'gluons' gluons only. */
+  states: z.enum(['n4', 'gluons']).default('n4'),
 })
 
 export type LoopCutRequest = z.output<typeof LoopCutRequestSchema>
@@ -38,8 +40,13 @@ export interface LoopCutBox {
     /** 'gluons': only gluons can cross the cut in N = 4 (SU(4) counting); 'multiplet': fermions and scalars too. */
     states: 'gluons' | 'multiplet'
   }[]
-  /** The non-zero products of corner trees: solution (1 or 2), h_1..h_4 of the lines, value. */
-  terms: { solution: number; helicities: number[]; value: Wire }[]
+  /** What was summed on the cut lines, in words ('N = 4 multiplet: …' or 'gluons only: … because …'). */
+  states: string
+  /**
+   * The non-zero products of corner amplitudes: solution (1 or 2), h_1..h_4 of the lines (±1
+   * gluons, ±½ gluinos, 0 scalars), value; multiplicity: SU(4) assignments summed in the value.
+   */
+  terms: { solution: number; helicities: number[]; multiplicity: number; value: Wire }[]
   /** ½ Σ terms; null where the cut is singular or not exact. */
   value: Wire | null
   target: Wire | null
@@ -62,6 +69,17 @@ export interface LoopCutResponse {
   sum: Wire | null
   targetSum: Wire | null
   counts: Record<'agrees' | 'disagrees' | 'not evaluated' | 'singular point', number>
+  /** The states summed on the cut lines ('n4' or 'gluons'). */
+  states: 'n4' | 'gluons'
+  /**
+   * The N = 4 infrared conditions on the box coefficients (1/ε² and one per independent invariant),
+   * null unless every box was summed over the multiplet.
+   */
+  infrared: {
+    rows: { invariant: string; value: Wire; target: Wire; deviation: number; verdict: 'agrees' | 'disagrees' }[]
+    verdict: 'agrees' | 'disagrees'
+    note: string
+  } | null
   verdict: 'singular point' | 'not evaluated' | 'agrees' | 'disagrees'
   tolerance: number | null
   source: string

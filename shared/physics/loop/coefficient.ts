@@ -13,6 +13,8 @@ import { classifyGluon, parkeTaylorAntiMhv, parkeTaylorMhv } from '../targets/pa
 import { berendsGiele } from '../targets/berends-giele'
 import { solveQuadrupleCut, type CutSolution } from './cut'
 import type { Box } from './boxes'
+import { superCut } from './super'
+import { cutStates } from './states'
 
 export type CornerMethod = 'closed' | 'bcfw' | 'berends-giele'
 
@@ -22,6 +24,8 @@ export interface BoxTerm<T> {
   /** h_1..h_4 of the lines at their outgoing (+ℓ) end. */
   helicities: number[]
   value: T
+  /** Multiplet sums: how many SU(4) assignments of the states share these helicities. */
+  multiplicity?: number
 }
 
 export interface BoxCut<T> {
@@ -60,7 +64,7 @@ export function cornerTree<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], m
  * The quadruple-cut coefficient of a box. `order` is the order in which the four corners are
  * evaluated and multiplied (a permutation of 0..3; the result must not depend on it).
  */
-export function boxCut<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number[], box: Box, opts: { corners?: CornerMethod; order?: number[] } = {}): BoxCut<T> {
+export function boxCut<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number[], box: Box, opts: { corners?: CornerMethod; order?: number[]; states?: 'gluons' | 'multiplet' | 'auto' } = {}): BoxCut<T> {
   const method = opts.corners ?? 'closed'
   // default: three-point corners first, whose helicity rule zeroes most products before a tree is built
   const order = opts.order ?? [0, 1, 2, 3].sort((a, b) => box.corners[a]!.length - box.corners[b]!.length)
@@ -83,6 +87,15 @@ export function boxCut<T>(F: Field<T>, p: Process, k: Kin<T>, h: readonly number
         lambdaTilde: [neg(cut.lambdaTilde[q]!), ...ext.map((e) => k.lambdaTilde[e]!), cut.lambdaTilde[out]!],
       }
     })
+    // 'auto': the multiplet only where SU(4) counting lets more than gluons cross (the same value, cheaper)
+    if (opts.states === 'multiplet' || (opts.states === 'auto' && cutStates(box, kinds, h) === 'multiplet')) {
+      // the N = 4 multiplet by Grassmann integration over the four internal η's (super.ts)
+      for (const t of superCut(F, p, box, h, kins, kinds, method, order, sIdx)) {
+        terms.push(t)
+        value = F.add(value, t.value)
+      }
+      return
+    }
     // its amplitude for (h_in of −ℓ_q, h_out of +ℓ_{q+1}), memoized over the four values
     const memo: (T | undefined)[] = new Array(16)
     const corner = (q: number, hIn: number, hOut: number): T => {

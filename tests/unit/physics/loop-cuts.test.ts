@@ -24,8 +24,8 @@ function bddk<T>(F: Field<T>, k: Kin<T>, corners: number[][], tree: T): T {
 }
 
 describe('the cut solutions', () => {
-  it.each([4, 5, 6, 7, 8])('every box of %i legs: both solutions on shell to 1e-14 (float), exactly 0 (exact)', (n) => {
-    const kc = randomPoint(n, 11)
+  it.each([[4, 11], [5, 11], [6, 11], [7, 11], [8, 11], [6, 29], [8, 29]])('every box of %i legs (seed %i): both solutions on shell to 1e-14 (float), exactly 0 (exact)', (n, seed) => {
+    const kc = randomPoint(n, seed)
     for (const box of allBoxes(n)) {
       const sols = solveQuadrupleCut(C, box.corners.map((c) => momentumSum(C, kc, c)))
       for (const s of sols) {
@@ -37,7 +37,7 @@ describe('the cut solutions', () => {
       }
       expect(C.abs(C.sub(sols[0].ell[0]![0]![0]!, sols[1].ell[0]![0]![0]!))).toBeGreaterThan(1e-6)
     }
-    const kq = rationalPoint(n, 11)
+    const kq = rationalPoint(n, seed)
     // every box with a massless corner has rational solutions (cut.ts), three-mass included
     for (const box of allBoxes(n).filter((b) => b.kind !== 'four-mass')) {
       const sols = solveQuadrupleCut(Q, box.corners.map((c) => momentumSum(Q, kq, c)))
@@ -149,11 +149,35 @@ describe('loopCuts (the route body)', () => {
     expect(r.counts.agrees).toBe(15)
     for (const b of r.boxes.filter((x) => x.kind === 'two-mass-hard')) expect(b.value).toEqual(['0', '0'])
   })
-  it('non-adjacent MHV: the multiplet cuts are not compared, the rest agree', () => {
+  it('non-adjacent MHV: the multiplet cuts are summed over N = 4 and agree; with gluons only they are not compared', () => {
     const r = loopCuts({ helicities: [-1, 1, 1, -1, 1, 1] })
     expect(r.verdict).toBe('agrees')
-    expect(r.counts['not evaluated']).toBeGreaterThan(0)
-    expect(r.boxes.filter((b) => b.verdict === 'not evaluated').every((b) => b.note?.startsWith('fermions'))).toBe(true)
+    expect(r.counts.agrees).toBe(15)
+    expect(r.boxes.some((b) => b.states.startsWith('N = 4 multiplet'))).toBe(true)
+    expect(r.infrared?.verdict).toBe('agrees')
+    const g = loopCuts({ helicities: [-1, 1, 1, -1, 1, 1], states: 'gluons' })
+    expect(g.counts['not evaluated']).toBeGreaterThan(0)
+    expect(g.infrared).toBeNull()
+    expect(g.boxes.filter((b) => b.verdict === 'not evaluated').every((b) => b.note?.startsWith('fermions') && b.states.startsWith('gluons only (asked for)'))).toBe(true)
+  })
+  it('six-gluon NMHV: no per-box target; the infrared conditions agree (exact), tree by BCFW', () => {
+    const r = loopCuts({ helicities: [-1, 1, -1, 1, -1, 1], arithmetic: 'exact' })
+    expect(r.verdict).toBe('agrees')
+    expect(r.counts['not evaluated']).toBe(15)
+    expect(r.infrared!.rows).toHaveLength(10)
+    expect(r.infrared!.rows.every((x) => x.deviation === 0)).toBe(true)
+    expect(r.tree).not.toEqual(['0', '0'])
+  })
+  it('seven-gluon −+−+−++: boxes with an NMHV corner that gluinos cross say they are not summed; no infrared check then', () => {
+    const r = loopCuts({ helicities: [-1, 1, -1, 1, -1, 1, 1] })
+    const open = r.boxes.filter((b) => b.states === '—')
+    expect(open.length).toBeGreaterThan(0)
+    expect(open.every((b) => b.verdict === 'not evaluated' && /6-point NMHV corner crossed by gluinos/.test(b.note ?? ''))).toBe(true)
+    expect(r.infrared).toBeNull()
+  })
+  it('eight-gluon split N²MHV −−−−++++: every box summed, the infrared conditions agree (float)', () => {
+    const r = loopCuts({ helicities: [-1, -1, -1, -1, 1, 1, 1, 1] })
+    expect(r.infrared?.verdict).toBe('agrees')
   })
   it.each([
     [{ helicities: [-1, 1, 1] }, 'helicities'],
