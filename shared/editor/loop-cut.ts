@@ -3,7 +3,8 @@
 // over the corners in colour order (docs/conventions.md "Loop-cut drawings"). The editor shows
 // these checks on the nodes as you draw; the check route compiles the same rings into the
 // engine's boxes (shared/physics/loop). Pure TypeScript: the store, the server and the tests share it.
-import type { Process } from '../schemas/graph'
+import { DIAGRAM_KINDS, type Process } from '../schemas/graph'
+import { LOOP_CUT_MAX_LEGS } from '../schemas/loop-cuts'
 import { allBoxes, type Box, type BoxKind } from '../physics/loop/boxes'
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
 import { handleIds, helicityText, nodeOf } from './types'
@@ -11,7 +12,7 @@ import { bestRotation } from './geometry'
 import type { Component, Issue, SlotInfo, Validation } from './validate'
 import { helicityAt } from './validate'
 
-export const DIAGRAM_KINDS = ['tree', 'loop-cut'] as const
+export { DIAGRAM_KINDS }
 export type DiagramKind = (typeof DIAGRAM_KINDS)[number]
 export const diagramKindOf = (g: { kind?: unknown } | null | undefined): DiagramKind => (g?.kind === 'loop-cut' ? 'loop-cut' : 'tree')
 
@@ -48,6 +49,7 @@ export function loopCutProcessProblem(p: Process | undefined): { field: string, 
   if (p.theory !== 'gluon') return { field: 'graph.process.theory', message: `loop cuts are built for colour-ordered gluons; this diagram's theory is ${p.theory}` }
   const n = p.helicities.length
   if (n < 4) return { field: 'graph.process.helicities', message: `a box needs at least 4 legs, got ${n}` }
+  if (n > LOOP_CUT_MAX_LEGS) return { field: 'graph.process.helicities', message: `${n} legs exceed the limit of ${LOOP_CUT_MAX_LEGS} for loop cuts` }
   const bad = p.helicities.findIndex(h => h !== 1 && h !== -1)
   if (bad >= 0) return { field: `graph.process.helicities[${bad}]`, message: `gluon helicities are ±1, got ${p.helicities[bad]}` }
   if (p.order && p.order.some((l, i) => l !== i + 1)) return { field: 'graph.process.order', message: 'loop cuts use the colour order 1..n (relabel the legs instead)' }
