@@ -49,7 +49,7 @@ describe('POST /api/diagrams/:id/check-loop-cut', () => {
 
   it.each([
     ['a tree diagram', (g: Graph) => ({ ...g, kind: 'tree' }), 'graph.kind'],
-    ['a scalar process', (g: Graph) => ({ ...g, process: { theory: 'scalar', helicities: [0, 0, 0, 0, 0] } }), 'graph.process.theory'],
+    ['a scalar process', (g: Graph) => ({ ...g, process: { theory: 'scalar-cubic', helicities: [0, 0, 0, 0, 0] } }), 'graph.process.theory'],
     ['three legs', (g: Graph) => ({ ...g, process: { theory: 'gluon', helicities: [-1, -1, 1] } }), 'graph.process.helicities'],
     ['nothing drawn', (g: Graph) => ({ ...g, nodes: [], edges: [] }), 'graph.nodes'],
     ['a corner of the wrong kind', (g: Graph) => ({ ...g, nodes: g.nodes.map((n, i) => (i === 0 ? { ...n, type: 'square' } : n)) }), 'graph.nodes[0]'],

@@ -119,7 +119,7 @@ describe('broken rings are named', () => {
   })
   it('legs out of colour order, a leg missing, a leg of the wrong helicity', () => {
     const g = fresh()
-    const swapped = g.nodes.map(n => (n.type === 'leg' && (n.data.label === 2 || n.data.label === 3) ? { ...n, data: { ...n.data, label: 5 - (n.data.label as number), helicity: p.helicities[4 - (n.data.label as number)]! } } : n))
+    const swapped = g.nodes.map(n => (n.type === 'leg' && (n.data.label === 2 || n.data.label === 3) ? { ...n, data: { ...n.data, label: 5 - (n.data.label as number), helicity: p.helicities[4 - (n.data.label as number)]! } } : n)) as EditorNode[]
     expect(messages(validateLoopCut(swapped, g.edges, p)).join()).toMatch(/not in colour order 1..4/)
     const leg4 = g.nodes.find(n => n.type === 'leg' && n.data.label === 4)!
     const without = validateLoopCut(g.nodes.filter(n => n !== leg4), g.edges.filter(e => e.source !== leg4.id), p)
@@ -132,7 +132,7 @@ describe('broken rings are named', () => {
     const b = fresh()
     const v = validateLoopCut([...a.nodes, ...b.nodes], [...a.edges, ...b.edges], p)
     expect(messages(v).join()).toMatch(/is drawn twice \(rings 1 and 2\)/)
-    const s = validateLoopCut(a.nodes, a.edges, { theory: 'scalar', helicities: [0, 0, 0, 0] } as Process)
+    const s = validateLoopCut(a.nodes, a.edges, { theory: 'scalar-cubic', helicities: [0, 0, 0, 0] })
     expect(s.problems.join()).toMatch(/colour-ordered gluons/)
   })
 })
