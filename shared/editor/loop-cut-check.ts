@@ -3,7 +3,7 @@
 // Dunbar, Kosower, hep-ph/9403226), then per drawn ring the terms it stands for — the solutions
 // and internal helicities its open or drawn Lines allow — summed per box and compared with the
 // box's target. Runs in the evaluation worker.
-import { Complex, Fraction, complexField, parseRational, rationalField, type Field, type WireNumber } from '../physics/field'
+import { Complex, complexField, parseRational, rationalField, type Field, type Fraction, type WireNumber } from '../physics/field'
 import { deviationOf } from '../physics/verdict'
 import { loopCuts } from '../physics/loop/index'
 import type { LoopCutBox, LoopCutRequestInput, LoopCutResponse } from '../schemas/loop-cuts'

@@ -293,8 +293,8 @@ function cornerRules(corners: DrawnRing['corners'], linesIn: { edgeId: string, f
       if (k && k !== want(q)) add(corners[q]!.nodeId, `the cut makes this corner a ${want(q)} vertex (neighbouring three-point corners alternate, opposite ones agree): swap its kind`)
     })
   }
-  corners.forEach((c, q) => {
-    if (c.kind === 'block') return
+  for (const c of corners) {
+    if (c.kind === 'block') continue
     const s = slots[c.nodeId]!
     const hs = s.map(x => x.helicity)
     const open = hs.filter(h => h === null).length
@@ -304,7 +304,7 @@ function cornerRules(corners: DrawnRing['corners'], linesIn: { edgeId: string, f
     const base = fixed.reduce((a, b) => a + b, 0)
     const reachable = Array.from({ length: open + 1 }, (_, m) => base + open - 2 * m)
     if (!reachable.includes(want)) add(c.nodeId, `an ${c.kind} vertex of gluons needs ${c.kind === 'angle' ? 'two − and one +' : 'one − and two +'}; here ${hs.map(h => (h === null ? 'open' : helicityText(h))).join(', ')}`)
-  })
+  }
   return lines
 }
 

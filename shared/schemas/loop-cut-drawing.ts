@@ -1,6 +1,6 @@
 // POST /api/diagrams/:id/check-loop-cut: the rings drawn on a loop-cut diagram, checked against
 // the engine's boxes (shared/editor/loop-cut-check.ts). Writes nothing.
-import { z } from 'zod'
+import type { z } from 'zod'
 import { GraphSchema } from './graph'
 import { LoopCutRequestSchema } from './loop-cuts'
 

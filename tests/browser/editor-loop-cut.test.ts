@@ -5,7 +5,7 @@
 // Page errors and console errors fail the test.
 import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { nodesOutside, openEditor, shot, signedInBrowser } from '../helpers/browser'
+import { nodesOutside, shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 
 async function glue(page: Page, a: { node: string, handle: string }, b: { node: string, handle: string }) {
