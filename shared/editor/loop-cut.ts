@@ -285,12 +285,15 @@ function cornerRules(corners: DrawnRing['corners'], linesIn: { edgeId: string, f
     const s = slots[l.from]!.find(x => x.other?.kind === 'line' && x.other.edgeId === l.edgeId)
     return { edgeId: l.edgeId, helicity: s?.helicity ?? null }
   })
-  // the solution the drawing shows: the parity of the first three-point corner
+  // the solution the drawing shows: the one most three-point corners fit (ties: the first corner's)
+  const kindAt = (q: number, s: number) => ((q + s) % 2 === 0 ? 'angle' : 'square')
+  const misfits = (s: number) => threePoint.filter((k, q) => k && k !== kindAt(q, s)).length
   const firstQ = threePoint.findIndex(k => k !== null)
   if (firstQ >= 0) {
-    const want = (q: number) => ((q - firstQ) % 2 === 0 ? threePoint[firstQ]! : threePoint[firstQ] === 'angle' ? 'square' : 'angle')
+    const own = threePoint[firstQ] === kindAt(firstQ, 0) ? 0 : 1
+    const s = misfits(1 - own) < misfits(own) ? 1 - own : own
     threePoint.forEach((k, q) => {
-      if (k && k !== want(q)) add(corners[q]!.nodeId, `the cut makes this corner a ${want(q)} vertex (neighbouring three-point corners alternate, opposite ones agree): swap its kind`)
+      if (k && k !== kindAt(q, s)) add(corners[q]!.nodeId, `the cut makes this corner a ${kindAt(q, s)} vertex (neighbouring three-point corners alternate, opposite ones agree): swap its kind`)
     })
   }
   for (const c of corners) {
@@ -327,7 +330,7 @@ const CORNER_AT = [{ x: 0, y: 0 }, { x: 380, y: 0 }, { x: 380, y: 280 }, { x: 0,
 const OUTSIDE: ('left' | 'right')[] = ['left', 'right', 'right', 'left']
 /** Three-point slot positions (in, leg, out) per corner position (docs: vertex slots left, upper right, lower right). */
 const VERTEX_SLOTS = [[2, 0, 1], [0, 1, 2], [1, 2, 0], [2, 0, 1]]
-export const RING_CELL = { width: 780, height: 520 }
+export const RING_CELL = { width: 760, height: 460 }
 
 let seq = 0
 const gid = (p: string) => `${p}${(seq++).toString(36)}`
@@ -342,7 +345,8 @@ export function boxRings(process: Process, which?: number[], origin = { x: 0, y:
   const n = process.helicities.length
   const boxes = allBoxes(n)
   const list = which ?? boxes.map((_, i) => i)
-  const cols = Math.max(1, Math.ceil(Math.sqrt(list.length)))
+  // a wide canvas: about twice as many columns as rows
+  const cols = Math.max(1, Math.ceil(Math.sqrt(list.length * 1.6)))
   const nodes: EditorNode[] = []
   const edges: EditorEdge[] = []
   list.forEach((b, idx) => {

@@ -26,6 +26,15 @@ async function place(page: Page, type: string, x: number, y: number): Promise<st
   const ids = await page.locator('.vue-flow__node').evaluateAll(ns => ns.map(n => n.getAttribute('data-id')!))
   return ids.find(id => !before.has(id))!
 }
+/** Drags a node so its centre sits at (x, y) from the canvas's top-left. */
+async function moveTo(page: Page, id: string, x: number, y: number) {
+  const c = (await page.locator('[data-test=canvas]').boundingBox())!
+  const b = (await page.locator(`.vue-flow__node[data-id="${id}"]`).boundingBox())!
+  await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2)
+  await page.mouse.down()
+  await page.mouse.move(c.x + x, c.y + y, { steps: 6 })
+  await page.mouse.up()
+}
 async function runLoopCheck(page: Page) {
   await page.click('[data-test=evaluate-quick]')
   await page.waitForSelector('[data-test=loop-result]', { timeout: 60_000 })
@@ -60,6 +69,8 @@ describe('the loop-cut editor', () => {
       await place(page, 'leg', 150, 80), await place(page, 'leg', 790, 80),
       await place(page, 'leg', 790, 450), await place(page, 'leg', 150, 450),
     ]
+    // the view fitted itself to the first node: move that one to its place
+    await moveTo(page, corners[0]!, 300, 130)
     for (let q = 0; q < 4; q++) await glue(page, { node: legs[q]!, handle: 'p' }, { node: corners[q]!, handle: 'h0' })
     for (let q = 0; q < 4; q++) await glue(page, { node: corners[q]!, handle: 'h1' }, { node: corners[(q + 1) % 4]!, handle: 'h2' })
     await expect.poll(() => page.locator('.vue-flow__edge').count()).toBe(8)

@@ -19,14 +19,14 @@ export default defineEventHandler(async (event) => {
   const nodes = graph.nodes as unknown as EditorNode[]
   const edges = graph.edges as unknown as EditorEdge[]
   const v = validateLoopCut(nodes, edges, process)
-  // the first thing wrong, named by its place in the graph
-  for (const [i, n] of nodes.entries()) {
-    const issue = v.nodes[n.id]?.find(x => x.level === 'error')
-    if (issue) throw fieldError(422, `graph.nodes[${i}]`, `${n.type === 'leg' ? 'leg' : `${n.type === 'block' ? 'Block' : `${n.type} vertex`} ${n.id}`}: ${issue.message}`, { nodeId: n.id })
-  }
+  // the first thing wrong, named by its place in the graph: Lines first (a corner's complaint may follow from one)
   for (const [i, e] of edges.entries()) {
     const issue = v.edges[e.id]?.[0]
     if (issue) throw fieldError(422, `graph.edges[${i}]`, `line ${e.id}: ${issue.message}`, { edgeId: e.id })
+  }
+  for (const [i, n] of nodes.entries()) {
+    const issue = v.nodes[n.id]?.find(x => x.level === 'error')
+    if (issue) throw fieldError(422, `graph.nodes[${i}]`, `${n.type === 'leg' ? 'leg' : `${n.type === 'block' ? 'Block' : `${n.type} vertex`} ${n.id}`}: ${issue.message}`, { nodeId: n.id })
   }
   if (!v.rings.length) throw fieldError(422, 'graph.nodes', 'no ring is drawn: place four corners joined by four Lines with the legs on them, or generate the boxes')
   const req = { helicities: process!.helicities, arithmetic: body.arithmetic, corners: body.corners, target: body.target, ...(body.kinematics ? { kinematics: body.kinematics } : {}) }
