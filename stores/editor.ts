@@ -14,7 +14,7 @@ import { blockPaths, collapseSpec, compId, expandAllSpecs, specsToGraph, type Co
 import { matchTerms, processFromCanvas, processKey } from '#shared/editor/process'
 import { layoutGraph } from '#shared/editor/layout'
 import { collapsedCount, openOne, readableSpecs } from '#shared/editor/collapse'
-import { boxRings, diagramKindOf, validateLoopCut, type DiagramKind, type LoopCutValidation } from '#shared/editor/loop-cut'
+import { boxRings, diagramKindOf, tidyRings, validateLoopCut, type DiagramKind, type LoopCutValidation } from '#shared/editor/loop-cut'
 import type { LoopCutDrawingResult } from '#shared/editor/loop-cut-check'
 
 export interface Expansion {
@@ -369,8 +369,7 @@ export const useEditorStore = defineStore('editor', () => {
     })
   }
   function tidy() {
-    if (kind.value === 'loop-cut') return
-    commit(() => { nodes.value = layoutGraph(nodes.value, edges.value) })
+    commit(() => { nodes.value = kind.value === 'loop-cut' ? tidyRings(nodes.value, edges.value, process.value) : layoutGraph(nodes.value, edges.value) })
   }
   /** A loop cut: the rings of every box of the process (or of the boxes listed, 0-based), replacing the canvas. */
   function generateBoxes(which?: number[]): number {

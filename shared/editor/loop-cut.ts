@@ -332,6 +332,41 @@ const OUTSIDE: ('left' | 'right')[] = ['left', 'right', 'right', 'left']
 const VERTEX_SLOTS = [[2, 0, 1], [0, 1, 2], [1, 2, 0], [2, 0, 1]]
 export const RING_CELL = { width: 760, height: 460 }
 
+const ringColumns = (count: number) => Math.max(1, Math.ceil(Math.sqrt(count * 1.6)))
+const cellOrigin = (idx: number, cols: number, origin = { x: 0, y: 0 }) => ({ x: origin.x + (idx % cols) * RING_CELL.width + 150, y: origin.y + Math.floor(idx / cols) * RING_CELL.height + 90 })
+/** Where corner q of a ring sits (a Block a little up and left, it is larger). */
+function cornerAt(o: { x: number, y: number }, q: number, legs: number) {
+  const x = o.x + CORNER_AT[q]!.x
+  const y = o.y + CORNER_AT[q]!.y
+  return legs === 1 ? { x, y } : { x: x - 40, y: y - 20 }
+}
+/** Where leg t of corner q goes: outside the ring, a Block's legs stacked. */
+function legAt(o: { x: number, y: number }, q: number, legs: number, t: number) {
+  const x = o.x + CORNER_AT[q]!.x
+  const y = o.y + CORNER_AT[q]!.y
+  const dx = OUTSIDE[q] === 'left' ? -130 : legs === 1 ? 130 : 200
+  const dy = legs === 1 ? (q < 2 ? -40 : 40) : -20 + t * 36 - ((legs - 1) * 36) / 2 + 20
+  return { x: x + dx, y: y + dy }
+}
+
+/** Tidy for a loop cut: every ring that reads as a box moved to its place on the grid (ids, slots and Lines kept). */
+export function tidyRings(nodes: EditorNode[], edges: EditorEdge[], process?: Process): EditorNode[] {
+  const v = validateLoopCut(nodes, edges, process)
+  const cols = ringColumns(v.rings.length)
+  const pos = new Map<string, { x: number, y: number }>()
+  v.rings.forEach((r, idx) => {
+    const o = cellOrigin(idx, cols)
+    r.corners.forEach((c, q) => {
+      pos.set(c.nodeId, cornerAt(o, q, c.legs.length))
+      c.legs.forEach((label, t) => {
+        const other = v.slots[c.nodeId]!.find(s => s.other?.kind === 'leg' && s.other.label === label)?.other
+        if (other?.kind === 'leg') pos.set(other.nodeId, legAt(o, q, c.legs.length, t))
+      })
+    })
+  })
+  return nodes.map(n => (pos.has(n.id) ? { ...n, position: pos.get(n.id)! } : n))
+}
+
 let seq = 0
 const gid = (p: string) => `${p}${(seq++).toString(36)}`
 
@@ -346,14 +381,12 @@ export function boxRings(process: Process, which?: number[], origin = { x: 0, y:
   const boxes = allBoxes(n)
   const list = which ?? boxes.map((_, i) => i)
   // a wide canvas: about twice as many columns as rows
-  const cols = Math.max(1, Math.ceil(Math.sqrt(list.length * 1.6)))
+  const cols = ringColumns(list.length)
   const nodes: EditorNode[] = []
   const edges: EditorEdge[] = []
   list.forEach((b, idx) => {
     const box = boxes[b]!
-    const ox = origin.x + (idx % cols) * RING_CELL.width + 150
-    const oy = origin.y + Math.floor(idx / cols) * RING_CELL.height + 90
-    const r = drawBox(process, box, b, { x: ox, y: oy })
+    const r = drawBox(process, box, b, cellOrigin(idx, cols, origin))
     nodes.push(...r.nodes)
     edges.push(...r.edges)
   })
@@ -371,7 +404,7 @@ function drawBox(process: Process, box: Box, index: number, o: { x: number, y: n
     return Array.from({ length: c.length + 2 }, (_, t) => `h${t}`)
   })
   box.corners.forEach((legs, q) => {
-    const at = { x: o.x + CORNER_AT[q]!.x, y: o.y + CORNER_AT[q]!.y }
+    const at = cornerAt(o, q, legs.length)
     const meta = { ring: index + 1 }
     if (legs.length === 1) {
       const kind = (q - firstQ) % 2 === 0 ? 'angle' : 'square'
@@ -382,13 +415,11 @@ function drawBox(process: Process, box: Box, index: number, o: { x: number, y: n
       const inside = OUTSIDE[q] === 'left' ? 'right' : 'left'
       const want = Array.from({ length: k }, (_, t) => (t === 0 || t === k - 1 ? inside : OUTSIDE[q]!))
       const helicities = [1, ...legs.map(e => process.helicities[e]!), 1]
-      nodes.push(nodeOf(ids[q]!, 'block', { x: at.x - 40, y: at.y - 20 }, { ...meta, helicities, legs: ['ℓ', ...legs.map(e => String(e + 1)), 'ℓ'], openLines: [0, k - 1], rot: bestRotation('block', k, want) } satisfies BlockData & Record<string, unknown>))
+      nodes.push(nodeOf(ids[q]!, 'block', at, { ...meta, helicities, legs: ['ℓ', ...legs.map(e => String(e + 1)), 'ℓ'], openLines: [0, k - 1], rot: bestRotation('block', k, want) } satisfies BlockData & Record<string, unknown>))
     }
     legs.forEach((e, t) => {
       const lid = gid('l')
-      const dx = OUTSIDE[q] === 'left' ? -130 : legs.length === 1 ? 130 : 200
-      const dy = legs.length === 1 ? (q < 2 ? -40 : 40) : -20 + t * 36 - ((legs.length - 1) * 36) / 2 + 20
-      nodes.push(nodeOf(lid, 'leg', { x: at.x + dx, y: at.y + dy }, { label: e + 1, helicity: process.helicities[e]!, ring: index + 1 }))
+      nodes.push(nodeOf(lid, 'leg', legAt(o, q, legs.length, t), { label: e + 1, helicity: process.helicities[e]!, ring: index + 1 }))
       edges.push({ id: gid('e'), source: lid, target: ids[q]!, sourceHandle: 'p', targetHandle: handles[q]![legs.length === 1 ? 1 : t + 1]!, type: 'line', data: { external: true } })
     })
   })

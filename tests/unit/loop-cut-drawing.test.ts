@@ -3,7 +3,7 @@
 // hep-th/0412103) and agree with the N = 4 MHV coefficients (Bern, Dixon, Dunbar, Kosower,
 // hep-ph/9403226); broken rings are named on the node that is wrong.
 import { describe, expect, it } from 'vitest'
-import { boxRings, validateLoopCut, diagramKindOf } from '#shared/editor/loop-cut'
+import { boxRings, validateLoopCut, diagramKindOf, tidyRings } from '#shared/editor/loop-cut'
 import { checkLoopCutDrawing, compileRings } from '#shared/editor/loop-cut-check'
 import { loopCuts, allBoxes } from '#shared/physics/loop/index'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
@@ -56,6 +56,14 @@ describe('generated boxes', () => {
     expect(r.rings[0]!.terms).toHaveLength(1)
     expect(r.boxes[0]!.verdict).toBe('disagrees')
     expect(r.boxes[0]!.note).toMatch(/leave out 1 of its 2 non-zero terms/)
+  })
+  it('tidy puts scattered rings back on the grid, still the same boxes', () => {
+    const p = gluons([-1, -1, 1, 1, 1])
+    const g = boxRings(p)
+    const scattered = g.nodes.map((n, i) => ({ ...n, position: { x: (i * 37) % 200, y: (i * 53) % 150 } }))
+    const tidy = tidyRings(scattered, g.edges, p)
+    expect(tidy.map(n => n.position)).toEqual(g.nodes.map(n => n.position))
+    expect(validateLoopCut(tidy, g.edges, p).rings.map(r => r.box)).toEqual([0, 1, 2, 3, 4])
   })
   it('the kind lives in the graph', () => {
     expect(diagramKindOf({ kind: 'loop-cut' })).toBe('loop-cut')
