@@ -415,7 +415,7 @@ function drawBox(process: Process, box: Box, index: number, o: { x: number, y: n
       const inside = OUTSIDE[q] === 'left' ? 'right' : 'left'
       const want = Array.from({ length: k }, (_, t) => (t === 0 || t === k - 1 ? inside : OUTSIDE[q]!))
       const helicities = [1, ...legs.map(e => process.helicities[e]!), 1]
-      nodes.push(nodeOf(ids[q]!, 'block', at, { ...meta, helicities, legs: ['ℓ', ...legs.map(e => String(e + 1)), 'ℓ'], openLines: [0, k - 1], rot: bestRotation('block', k, want) } satisfies BlockData & Record<string, unknown>))
+      nodes.push(nodeOf(ids[q]!, 'block', at, { ...meta, helicities, legs: ['ℓ', ...legs.map(e => String(e + 1)), 'ℓ'], rot: bestRotation('block', k, want) } satisfies BlockData & Record<string, unknown>))
     }
     legs.forEach((e, t) => {
       const lid = gid('l')

@@ -3,6 +3,8 @@
 // hep-th/0412103) and agree with the N = 4 MHV coefficients (Bern, Dixon, Dunbar, Kosower,
 // hep-ph/9403226); broken rings are named on the node that is wrong.
 import { describe, expect, it } from 'vitest'
+import { createPinia, setActivePinia } from 'pinia'
+import { useEditorStore } from '~~/stores/editor'
 import { boxRings, validateLoopCut, diagramKindOf, tidyRings } from '#shared/editor/loop-cut'
 import { checkLoopCutDrawing, compileRings } from '#shared/editor/loop-cut-check'
 import { loopCuts, allBoxes } from '#shared/physics/loop/index'
@@ -132,7 +134,7 @@ describe('broken rings are named', () => {
     const leg4 = g.nodes.find(n => n.type === 'leg' && n.data.label === 4)!
     const without = validateLoopCut(g.nodes.filter(n => n !== leg4), g.edges.filter(e => e.source !== leg4.id), p)
     expect(messages(without).join()).toMatch(/open slot/)
-    const wrong = g.nodes.map(n => (n === leg4 ? { ...n, data: { ...n.data, helicity: -1 } } : n))
+    const wrong = g.nodes.map(n => (n === leg4 ? { ...n, data: { ...n.data, helicity: -1 } } : n)) as EditorNode[]
     expect(messages(validateLoopCut(wrong, g.edges, p)).join()).toMatch(/leg 4 is − here but \+ in the process/)
   })
   it('a box drawn twice, and a process that is not gluons', () => {
@@ -142,5 +144,34 @@ describe('broken rings are named', () => {
     expect(messages(v).join()).toMatch(/is drawn twice \(rings 1 and 2\)/)
     const s = validateLoopCut(a.nodes, a.edges, { theory: 'scalar-cubic', helicities: [0, 0, 0, 0] })
     expect(s.problems.join()).toMatch(/colour-ordered gluons/)
+  })
+})
+
+describe('the store on a loop-cut diagram', () => {
+  it('keeps the kind, starts Lines open, cycles them open → + → − → open, generates and tidies rings', () => {
+    setActivePinia(createPinia())
+    const s = useEditorStore()
+    const p = gluons([-1, -1, 1, 1])
+    s.load({ id: 1, projectId: 1, title: 'Box', version: 1, role: 'editor', graph: { schemaVersion: 1, kind: 'loop-cut', process: p, nodes: [], edges: [] } })
+    expect(s.kind).toBe('loop-cut')
+    expect(s.toGraph().kind).toBe('loop-cut')
+    const a = s.addNode('angle', { x: 0, y: 0 })
+    const b = s.addNode('square', { x: 100, y: 0 })
+    const e = s.connect({ source: a, target: b, sourceHandle: 'h1', targetHandle: 'h2' })!
+    const data = () => s.edges.find(x => x.id === e)!.data
+    expect(data()).toEqual({})
+    s.flipLine(e)
+    expect(data()).toEqual({ helicity: 1, targetHelicity: -1 })
+    s.flipLine(e)
+    expect(data()).toEqual({ helicity: -1, targetHelicity: 1 })
+    s.flipLine(e)
+    expect(data()).toEqual({})
+    expect(s.generateBoxes()).toBe(1)
+    expect(s.validation.rings).toHaveLength(1)
+    s.undo()
+    expect(s.nodes).toHaveLength(2)
+    s.load({ id: 2, projectId: 1, title: 'Tree', version: 1, role: 'editor', graph: { schemaVersion: 1, process: p, nodes: [], edges: [] } })
+    expect(s.kind).toBe('tree')
+    expect(s.toGraph().kind).toBeUndefined()
   })
 })
