@@ -120,6 +120,18 @@ describe('the loop-cut editor', () => {
     for (const t of await page.locator('[data-test=loop-box]').allTextContents()) expect(t).toMatch(/one-mass.*−½ st A_tree.*agrees/)
     expect(await page.locator('[data-test=loop-result] [data-test=stale]').count()).toBe(0)
     await shot(page, 'loop-cut-five-gluon-boxes')
+    // exact arithmetic: equality, no tolerance
+    await page.selectOption('select[name=loop-arithmetic]', 'exact')
+    await runLoopCheck(page)
+    expect(await verdict(page)).toBe('agrees')
+    expect(await page.locator('[data-test=loop-sum]').textContent()).toContain('exact rational arithmetic: agreement is equality')
+    // one chosen box, then back by undo
+    await page.selectOption('select[name=loop-box]', '1')
+    await page.click('[data-test=generate-boxes]')
+    await expect.poll(() => page.locator('[data-test=term-label]').allTextContents()).toEqual(['ring 1 · box 2 · one-mass · {1}{2}{3,4}{5}'])
+    await expect.poll(() => page.locator('[data-test=loop-result] [data-test=stale]').count()).toBe(1)
+    await page.click('[data-test=undo]')
+    await expect.poll(() => page.locator('[data-test=term-label]').count()).toBe(5)
     await page.click('[data-test=save]')
     await expect.poll(() => page.locator('[data-test=save-state]').textContent()).toBe('saved')
     expect(errors).toEqual([])

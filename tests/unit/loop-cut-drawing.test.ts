@@ -73,6 +73,22 @@ describe('generated boxes', () => {
   })
 })
 
+describe('the three-point rule the editor checks', () => {
+  it('at both cut solutions of every box up to eight legs, neighbouring three-point corners alternate, opposite ones agree, and the solutions swap every kind', () => {
+    for (const h of [[-1, -1, 1, 1], [-1, 1, -1, 1, 1, 1], [-1, -1, 1, 1, 1, 1, 1], [-1, 1, -1, 1, 1, -1, 1, 1]]) {
+      for (const seed of [1, 2]) {
+        const r = loopCuts({ helicities: h, kinematics: { kind: 'random', seed }, target: 'none' })
+        for (const b of r.boxes) {
+          const [s1, s2] = b.solutions.map(x => x.threePoint)
+          s1!.forEach((k, q) => { if (k) expect(s2![q]).toBe(k === 'angle' ? 'square' : 'angle') })
+          const q0 = s1!.findIndex(k => k)
+          s1!.forEach((k, q) => { if (k && q0 >= 0) expect(k === s1![q0]).toBe((q - q0) % 2 === 0) })
+        }
+      }
+    }
+  })
+})
+
 describe('broken rings are named', () => {
   const p = gluons([-1, -1, 1, 1])
   const fresh = () => boxRings(p)
