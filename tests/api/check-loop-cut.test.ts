@@ -68,7 +68,7 @@ describe('POST /api/diagrams/:id/check-loop-cut', () => {
     const stored = await r.editor.post(`/api/diagrams/${d.id}/checks`, { kinematics: { kind: 'random', seed: 1 } })
     expect(stored.status).toBe(422)
     expect(stored.body.data.field).toBe('graph.kind')
-    const drawn = await r.viewer.post(`/api/diagrams/${d.id}/check-drawing`, { graph: ringsOf(five) })
+    const drawn = await r.viewer.post(`/api/diagrams/${d.id}/check-drawing`, { kinematics: { kind: 'random', seed: 1 }, graph: ringsOf(five) })
     expect(drawn.status).toBe(422)
     expect(drawn.body.data.field).toBe('graph.kind')
   })
