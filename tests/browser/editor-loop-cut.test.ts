@@ -120,6 +120,15 @@ describe('the loop-cut editor', () => {
     for (const t of await page.locator('[data-test=loop-box]').allTextContents()) expect(t).toMatch(/one-mass.*−½ st A_tree.*agrees/)
     expect(await page.locator('[data-test=loop-result] [data-test=stale]').count()).toBe(0)
     await shot(page, 'loop-cut-five-gluon-boxes')
+    // close up on the first ring: a Block corner shows ± on its open line slots
+    const block = page.locator('.vue-flow__node-block').first()
+    const bb = (await block.boundingBox())!
+    await page.mouse.move(bb.x + bb.width / 2, bb.y + bb.height / 2)
+    await page.mouse.wheel(0, -900)
+    await page.waitForTimeout(400)
+    expect(await block.textContent()).toContain('±')
+    await shot(page, 'loop-cut-ring-close-up')
+    await page.click('[data-test=fit]')
     // exact arithmetic: equality, no tolerance
     await page.selectOption('select[name=loop-arithmetic]', 'exact')
     await runLoopCheck(page)
