@@ -14,6 +14,8 @@ import { blockPaths, collapseSpec, compId, expandAllSpecs, specsToGraph, type Co
 import { matchTerms, processFromCanvas, processKey } from '#shared/editor/process'
 import { layoutGraph } from '#shared/editor/layout'
 import { collapsedCount, openOne, readableSpecs } from '#shared/editor/collapse'
+import { boxRings, diagramKindOf, tidyRings, validateLoopCut, type DiagramKind, type LoopCutValidation } from '#shared/editor/loop-cut'
+import type { LoopCutDrawingResult } from '#shared/editor/loop-cut-check'
 
 export interface Expansion {
   /** processKey() of the process it was made for. */
@@ -51,6 +53,8 @@ export const useEditorStore = defineStore('editor', () => {
   const version = ref(0)
   const role = ref<'owner' | 'editor' | 'viewer'>('viewer')
   const process = ref<Process | undefined>()
+  /** 'loop-cut': the canvas holds rings of quadruple cuts (shared/editor/loop-cut.ts). */
+  const kind = ref<DiagramKind>('tree')
   const settings = ref<Record<string, unknown>>({})
   const nodes = shallowRef<EditorNode[]>([])
   const edges = shallowRef<EditorEdge[]>([])
@@ -74,7 +78,7 @@ export const useEditorStore = defineStore('editor', () => {
   const lastLayoutMs = ref(0)
 
   const readOnly = computed(() => role.value === 'viewer')
-  const validation = computed(() => validateGraph(nodes.value, edges.value, process.value))
+  const validation = computed<ReturnType<typeof validateGraph> & Partial<LoopCutValidation>>(() => (kind.value === 'loop-cut' ? validateLoopCut(nodes.value, edges.value, process.value) : validateGraph(nodes.value, edges.value, process.value)))
   const nodeById = computed(() => new Map(nodes.value.map(n => [n.id, n])))
   const expansionStale = computed(() => !!expansion.value && !!process.value && expansion.value.key !== processKey(process.value))
 
@@ -111,6 +115,7 @@ export const useEditorStore = defineStore('editor', () => {
     else delete s.expansion
     return {
       schemaVersion: GRAPH_SCHEMA_VERSION,
+      ...(kind.value === 'loop-cut' ? { kind: 'loop-cut' as const } : {}),
       ...(process.value ? { process: process.value } : {}),
       settings: s,
       nodes: nodes.value.map(n => ({ id: n.id, type: n.type, position: { x: n.position.x, y: n.position.y }, data: n.data })),
@@ -125,6 +130,7 @@ export const useEditorStore = defineStore('editor', () => {
 
   function setGraph(g: Graph) {
     process.value = g.process ? plain(g.process) : undefined
+    kind.value = diagramKindOf(g)
     const s = { ...(g.settings ?? {}) }
     const exp = s.expansion as Expansion | undefined
     delete s.expansion
@@ -138,6 +144,7 @@ export const useEditorStore = defineStore('editor', () => {
     diagramId.value = doc.id
     projectId.value = doc.projectId
     title.value = doc.title
+    loopResult.value = null
     version.value = doc.version
     role.value = doc.role ?? 'viewer'
     setGraph(doc.graph)
@@ -288,6 +295,8 @@ export const useEditorStore = defineStore('editor', () => {
     const s = particleSpin(process.value) ?? 1
     let data: LineData
     if (external) data = { external: true }
+    // a loop cut's Lines start open: the check sums their helicities
+    else if (kind.value === 'loop-cut') data = {}
     else {
       const srcNode = nodeById.value.get(src.id)!
       let h = s
@@ -325,7 +334,14 @@ export const useEditorStore = defineStore('editor', () => {
   function flipLine(id: string) {
     const e = edges.value.find(x => x.id === id)
     const d = (e?.data ?? {}) as LineData
-    if (!e || d.external || d.helicity === undefined) return
+    if (!e || d.external) return
+    // a loop cut's Line cycles open → +|− → −|+ → open
+    if (kind.value === 'loop-cut') {
+      const next = d.helicity === undefined ? 1 : d.helicity > 0 ? -1 : undefined
+      commit(() => { edges.value = edges.value.map(x => (x.id === id ? { ...x, data: next === undefined ? {} : { helicity: next, targetHelicity: -next } } : x)) })
+      return
+    }
+    if (d.helicity === undefined) return
     updateEdgeData(id, { helicity: -d.helicity, targetHelicity: -(d.targetHelicity ?? -d.helicity) })
   }
   function moveNodes(pos: Record<string, { x: number, y: number }>) {
@@ -353,8 +369,23 @@ export const useEditorStore = defineStore('editor', () => {
     })
   }
   function tidy() {
-    commit(() => { nodes.value = layoutGraph(nodes.value, edges.value) })
+    commit(() => { nodes.value = kind.value === 'loop-cut' ? tidyRings(nodes.value, edges.value, process.value) : layoutGraph(nodes.value, edges.value) })
   }
+  /** A loop cut: the rings of every box of the process (or of the boxes listed, 0-based), replacing the canvas. */
+  function generateBoxes(which?: number[]): number {
+    if (!process.value) return 0
+    const g = boxRings(process.value, which)
+    commit(() => {
+      nodes.value = g.nodes
+      edges.value = g.edges
+      expansion.value = null
+    })
+    fitToken.value++
+    return g.nodes.filter(n => n.type !== 'leg').length / 4
+  }
+  /** The last loop-cut check and what it was computed from (stale once the canvas changes). */
+  const loopResult = shallowRef<LoopCutDrawingResult | null>(null)
+  const loopResultFor = ref<string | null>(null)
 
   // ---- expansion ----
   function rebuild(specs: CompSpec[]) {
@@ -442,6 +473,11 @@ export const useEditorStore = defineStore('editor', () => {
   const resultFor = ref<string | null>(null)
   /** A result computed before the canvas or the process last changed. */
   const resultStale = computed(() => !!result.value && resultFor.value !== computationKey())
+  const loopResultStale = computed(() => !!loopResult.value && loopResultFor.value !== computationKey())
+  function setLoopResult(r: LoopCutDrawingResult | null) {
+    loopResult.value = r
+    loopResultFor.value = r ? computationKey() : null
+  }
   function setResult(r: EvaluateResponse | null) {
     result.value = r
     resultKey.value = r && process.value ? processKey(process.value) : null
@@ -472,12 +508,12 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   return {
-    diagramId, projectId, title, version, role, process, settings, nodes, edges, expansion, tree, selection, selectedEdges,
+    diagramId, projectId, title, version, role, process, kind, settings, nodes, edges, expansion, tree, selection, selectedEdges,
     undoStack, redoStack, canUndo, canRedo, result, resultKey, highlightTerm, shiftPick, pickingShift, fitToken, lastLayoutMs,
     readOnly, validation, nodeById, resultStale, focusTerm, dimmed, expansionStale, termComponents, highlighted, dirty,
     toGraph, load, markSaved, commit, undo, redo, setProcess, setShift, setTitle, pickLeg,
     addNode, connect, updateNodeData, setNodeType, updateEdgeData, flipLine, moveNodes, removeIds, removeSelected, clearCanvas, tidy,
     applyExpansion, setTree, canExpand, expandBlock, collapsiblePath, collapseAt, expandAll, specOfNode,
-    setResult, select, applyDraft, replaceGraph, currentJson,
+    setResult, select, applyDraft, replaceGraph, currentJson, generateBoxes, loopResult, loopResultStale, setLoopResult,
   }
 })

@@ -42,6 +42,7 @@ import {
   type ShiftsResponse,
 } from '#shared/schemas/service'
 import { checkDrawing } from '#shared/editor/drawing/evaluate'
+import { checkLoopCutDrawing, type CompiledRing } from '#shared/editor/loop-cut-check'
 import type { Process as GraphProcess } from '#shared/schemas/graph'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
@@ -53,6 +54,8 @@ export type Task
     | { kind: 'crossShift'; req: unknown }
     | { kind: 'limitCheck'; req: unknown }
     | { kind: 'loopCuts'; req: unknown }
+  /** A loop-cut drawing: the process's boxes, then the drawn rings' terms (shared/editor/loop-cut-check.ts). */
+    | { kind: 'loopCutDrawing'; req: unknown; rings: CompiledRing[] }
     | { kind: 'catalogue' }
     | { kind: 'generatePoints'; g: GenerateInput }
   /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
@@ -107,6 +110,8 @@ function dispatch(task: Task): unknown {
       return checkLimit(task.req as LimitCheckRequestInput)
     case 'loopCuts':
       return loopCuts(task.req as LoopCutRequestInput)
+    case 'loopCutDrawing':
+      return checkLoopCutDrawing(task.req as LoopCutRequestInput, task.rings)
     case 'catalogue':
       return catalogue()
     case 'generatePoints':

@@ -10,6 +10,7 @@ import { EvaluateRequestSchema } from '../schemas/evaluate'
 import { CheckRunSchema, CrossShiftRequestSchema, DrawingCheckSchema, ShiftsRequestSchema } from '../schemas/service'
 import { LimitCheckRequestSchema } from '../schemas/limit-checks'
 import { LoopCutRequestSchema } from '../schemas/loop-cuts'
+import { LoopCutDrawingCheckSchema } from '../schemas/loop-cut-drawing'
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
 
@@ -240,6 +241,14 @@ export const API_SECTIONS: ApiSection[] = [
         examples: [example(DrawingCheckSchema, 'an empty canvas: the process\'s recursion', { kinematics: { kind: 'random', seed: 1 }, graph: { process: { theory: 'gluon', helicities: [-1, -1, 1, 1, 1] }, nodes: [], edges: [] } })],
         response: 'The evaluation response (as POST /api/evaluate) in the diagram\'s labels; with drawn terms `value`, `deviation` and `verdict` are the drawing\'s and `drawing` holds the terms and the comparison, as in a stored check\'s `result`. Nothing is stored.',
         statuses: [[200, 'checked'], [400, 'the body fails the schema (`graph.nodes[3].id`, …)'], [422, 'no process in the graph or the diagram (`graph.process`), or the process or point is invalid'], [404, 'no such diagram, or not a member'], [503, 'over the time budget'], ...commonErrors],
+      },
+      {
+        id: 'check-loop-cut', method: 'POST', path: '/api/diagrams/:id/check-loop-cut', params: { id: 1 }, access: 'viewer', summary: 'Checks the rings drawn on a loop-cut diagram (the body\'s `graph`, else the saved one): each ring of four corners joined by four Lines is read as a box of the process (gluons, 4..8 legs, colour order 1..n), stands for the quadruple-cut terms its Lines allow (open Lines: both cut solutions and every internal helicity; drawn ones: only those), and the rings of each box are summed and compared with the box\'s N = 4 MHV coefficient (Bern, Dixon, Dunbar, Kosower, hep-ph/9403226). Writes nothing.',
+        schema: LoopCutDrawingCheckSchema,
+        query: [{ name: 'budgetMs', meaning: 'a smaller time budget for this request, in ms' }],
+        examples: [example(LoopCutDrawingCheckSchema, 'the saved rings at seed 2', { kinematics: { kind: 'random', seed: 2 } })],
+        response: '`{ kind: \'loop-cut\', n, helicities, arithmetic, tree, rings: [{ ring, box, corners, kind, helicities, summed, terms, value }], boxes: [{ box, corners, kind, rings, value, engineValue, target, targetRule, deviation, verdict, note }], missing, sum, targetSum, deviation, verdict, tolerance, counts, source, warnings, ms }`: `summed` is `open`, `drawn` or `partly`; `missing` lists the boxes of the process not drawn; `sum` and `targetSum` run over the drawn boxes with a target.',
+        statuses: [[200, 'checked'], [400, 'the body fails the schema'], [422, 'a tree diagram (`graph.kind`), a process that is not 4..8 gluons (`graph.process.helicities`, …), a broken ring named by its node (`graph.nodes[3]`) or line (`graph.edges[5]`), or nothing drawn (`graph.nodes`)'], [404, 'no such diagram, or not a member'], [503, 'over the time budget'], ...commonErrors],
       },
       { id: 'check-list', method: 'GET', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'viewer', summary: 'The diagram\'s checks, newest first.', query: [{ name: 'limit', meaning: 'at most this many (default 50, at most 200)' }], response: 'An array of `{ id, diagramVersion, kind, status, verdict, arithmetic, seed, engineVersion, durationMs, summary, createdBy, createdByName, createdAt }` — without the payloads.', statuses: [[200, 'the list'], [404, 'no such diagram'], ...commonErrors] },
       { id: 'check-get', method: 'GET', path: '/api/checks/:id', params: { id: 1 }, access: 'viewer', summary: 'One check in full.', response: 'The list fields plus `request` and `result` (the evaluation response).', statuses: [[200, 'the check'], [404, 'no such check'], ...commonErrors] },

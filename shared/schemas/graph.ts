@@ -7,6 +7,9 @@ import { THEORY_NAMES } from '../physics/theories'
 
 export const GRAPH_SCHEMA_VERSION = 1
 
+/** What a diagram draws: channel terms of a tree recursion (the default) or one-loop quadruple cuts. */
+export const DIAGRAM_KINDS = ['tree', 'loop-cut'] as const
+
 export const TheorySchema = z.enum(THEORY_NAMES, {
   error: `must be ${THEORY_NAMES.slice(0, -1).join(', ')} or ${THEORY_NAMES.at(-1)}`,
 })
@@ -45,6 +48,8 @@ export const GraphEdgeSchema = z.object({
 
 export const GraphSchema = z.object({
   schemaVersion: z.literal(GRAPH_SCHEMA_VERSION, { error: `must be ${GRAPH_SCHEMA_VERSION}` }).optional(),
+  /** Absent: 'tree'. */
+  kind: z.enum(DIAGRAM_KINDS, { error: `must be ${DIAGRAM_KINDS.join(' or ')}` }).optional(),
   process: ProcessSchema.optional(),
   /** Evaluation settings the editor remembers (kinematics, target, arithmetic). */
   settings: z.record(z.string(), z.unknown()).superRefine(boundedFields).optional(),

@@ -55,6 +55,7 @@ export const matrix: RouteAccess[] = [
   { file: 'diagrams/[id]/checks/index.post.ts', access: 'editor', scope: 'diagram', body: {} },
   { file: 'diagrams/[id]/checks/index.get.ts', access: 'viewer', scope: 'diagram' },
   { file: 'diagrams/[id]/check-drawing.post.ts', access: 'viewer', scope: 'diagram', body: {} },
+  { file: 'diagrams/[id]/check-loop-cut.post.ts', access: 'viewer', scope: 'diagram', body: {} },
   { file: 'checks/[id]/index.get.ts', access: 'viewer', scope: 'check' },
   // Collaboration. Token and invitation ids in these paths name nothing, so the
   // allowed call would be a correct 404: tests/api/collab*.test.ts cover the allowed cases.

@@ -10,6 +10,7 @@ export default defineEventHandler(async (event) => {
   const id = routeId(event)
   const { diagram } = await requireDiagramRole(event, id, 'viewer')
   const body = await readValid(event, DrawingCheckSchema)
+  refuseLoopCut(body.graph.kind ? body.graph : diagram.graph)
   const process = diagramProcess(body.graph.process ? body.graph : diagram.graph)
   const req: EvaluateRequest = {
     kinematics: body.kinematics,

@@ -11,6 +11,7 @@ export default defineEventHandler(async (event) => {
   const id = routeId(event)
   const { diagram, user, project } = await requireDiagramRole(event, id, 'editor')
   const body = await readValid(event, CheckRunSchema)
+  refuseLoopCut(diagram.graph)
   const process = diagramProcess(diagram.graph)
   const req: EvaluateRequest = {
     ...body,
