@@ -2,7 +2,7 @@
 // process (−−−+++) over a generated set of 10,000 physical points (RAMBO) in its worker pool,
 // streaming progress over SSE; we time it end to end and sample the server's resident memory.
 // Run: `npm run bench -- pointsets` or `node bench/run.mjs pointsets [--points=N]` after a build
-// (POLEWRIGHT_BENCH_OUTPUT picks another build folder). Aim: 10,000 points in under 10 s on 2 cores.
+// (POLEWRIGHT_BENCH_OUTPUT picks another build folder). Aim: 10,000 points in under 2 s on 2 cores.
 import { readFileSync } from 'node:fs'
 import { availableParallelism, cpus } from 'node:os'
 import { signInDemo, startBuiltServer } from './server'
@@ -96,6 +96,14 @@ console.log(`\n${fmt(small)}\n${fmt(big)}\n${fmt(again)} (again)`)
 console.log(`verdicts (${POINTS}): ${JSON.stringify(big.counts)}; median deviation ${big.median?.toExponential(2)}, worst ${big.worst?.toExponential(2)}`)
 console.log(`memory: the ${POINTS.toLocaleString('en-US')}-point run peaked ${(big.peak - big.before).toFixed(0)} MB above its start, the 2,000-point run ${(small.peak - small.before).toFixed(0)} MB (results are written per chunk of 250)`)
 console.log(`memory, second ${POINTS.toLocaleString('en-US')}-point run: RSS ${again.before.toFixed(0)} → peak ${again.peak.toFixed(0)} MB (first run: ${big.before.toFixed(0)} → ${big.peak.toFixed(0)} MB)`)
-const best = Math.min(big.wall, again.wall)
-console.log(best < 10_000 ? `PASS: under 10 s (best ${(best / 1000).toFixed(2)} s)` : `MISS: over 10 s (best ${(best / 1000).toFixed(2)} s; load average now ${readFileSync('/proc/loadavg', 'utf8').split(' ')[0]})`)
+const best = big.wall < again.wall ? big : again
+const loadNow = readFileSync('/proc/loadavg', 'utf8').split(' ')[0]
+// Two idle cores give at most 2 s of CPU per second of wall: the CPU per point bounds the wall time.
+const cores = availableParallelism()
+const floorS = Math.max((best.cpu) / cores, best.cpuMain)
+const grown = again.peak - big.peak
+console.log(`\n| aim | measured | bound by | load | status |`)
+console.log('|---|---|---|---|---|')
+console.log(`| ${POINTS.toLocaleString('en-US')} six-gluon NMHV points, Berends–Giele target, end to end < 2 s | best ${(best.wall / 1000).toFixed(2)} s (${(big.wall / 1000).toFixed(2)}, ${(again.wall / 1000).toFixed(2)}) | server CPU ${(1000 * best.cpu / best.points).toFixed(2)} ms per point (request thread ${(1000 * best.cpuMain / best.points).toFixed(2)}): ≥ ${floorS.toFixed(2)} s on ${cores} idle cores | ${loadNow} | ${best.wall < 2000 ? 'goal met' : '**not met**'} |`)
+console.log(`| memory bounded: a second ${POINTS.toLocaleString('en-US')}-point run peaks no higher than the first + 64 MB | RSS peak ${big.peak.toFixed(0)} MB, then ${again.peak.toFixed(0)} MB | results written per chunk of 250 | ${loadNow} | ${grown < 64 ? 'goal met' : '**not met**'} |`)
 process.exit(0)

@@ -16,6 +16,8 @@ type CheckRow = typeof tables.checks.$inferSelect
 
 /** Points per chunk read, evaluated and written together. */
 export const BATCH_CHUNK = 250
+/** Chunks evaluating at once per batch while the oldest is written. */
+const BATCH_AHEAD = 3
 /** Batches running at once (the pool is shared; more wait as "queued"). */
 const MAX_RUNNING = 2
 const TERMINAL = new Set(['done', 'failed', 'cancelled'])
@@ -356,16 +358,29 @@ async function runBatch(checkId: number, pointSetId: number, total: number, plan
         .catch(e => ({ status: 'failed' as const, done, message: `the batch stopped: ${(e as Error).message}` })))
     }
     else try {
-      let next: Promise<CheckPointRow[]> | null = total > 0 ? evalChunk(0) : null
-      for (let from = 0; next; from += BATCH_CHUNK) {
-        const rows = await next
+      // Chunks evaluate ahead while earlier ones are written, in order: with BATCH_AHEAD chunks in
+      // the pool the workers never wait for the request thread's reads and writes (memory stays
+      // bounded by that many chunks).
+      const ahead: Promise<CheckPointRow[]>[] = []
+      let queued = 0
+      const topUp = () => {
+        while (ahead.length < BATCH_AHEAD && queued < total) {
+          const p = evalChunk(queued)
+          p.catch(() => {})
+          ahead.push(p)
+          queued += BATCH_CHUNK
+        }
+      }
+      topUp()
+      while (ahead.length) {
+        const rows = await ahead.shift()!
         if (signal.aborted) {
           status = 'cancelled'
           break
         }
-        // The next chunk evaluates while this one is written.
-        next = rows.length === BATCH_CHUNK && from + BATCH_CHUNK < total ? evalChunk(from + BATCH_CHUNK) : null
-        next?.catch(() => {})
+        // A short chunk means the set ended early (points deleted meanwhile): nothing more to read.
+        if (rows.length === BATCH_CHUNK) topUp()
+        else queued = total
         if (rows.length) await db.insert(tables.checkPoints).values(rows)
         done += rows.length
         for (const r of rows) l.counts[r.verdict as Verdict]++
