@@ -118,7 +118,7 @@ try {
     await page.waitForSelector('.vue-flow__pane')
     await page.waitForSelector('[data-test=expand-full]:not([disabled])')
     const cdp = profile && k === 2 ? await page.context().newCDPSession(page) : null
-    const events: { name: string, ph: string, dur?: number, tid: number, ts: number }[] = []
+    const events: { name: string, ph: string, dur?: number, tid: number, ts: number, args?: { name?: string } }[] = []
     if (cdp) {
       cdp.on('Tracing.dataCollected', e => events.push(...(e.value as typeof events)))
       await cdp.send('Tracing.start', { categories: 'devtools.timeline,v8.execute', transferMode: 'ReportEvents' })
@@ -134,9 +134,9 @@ try {
       await ended
       writeFileSync(profile!, JSON.stringify({ traceEvents: events }))
       // Where the renderer's main thread spent the click: top-level tasks by kind (nested events are part of their task).
-      const main = events.find(e => e.name === 'RunTask' || e.name === 'ThreadControllerImpl::RunTask')?.tid
+      const main = (events as { name: string, tid: number, args?: { name?: string } }[]).find(e => e.name === 'thread_name' && e.args?.name === 'CrRendererMain')?.tid
       const byName = new Map<string, number>()
-      for (const e of events) if (e.tid === main && e.ph === 'X' && e.dur && ['FunctionCall', 'EvaluateScript', 'v8.callFunction', 'TimerFire', 'FireAnimationFrame', 'UpdateLayoutTree', 'Layout', 'Paint', 'PrePaint', 'Layerize', 'UpdateLayer', 'Commit', 'HitTest', 'ParseHTML', 'RecalculateStyles', 'ScheduleStyleRecalculation', 'GCEvent', 'MinorGC', 'MajorGC', 'V8.GC_SCAVENGER', 'XHRLoad', 'ResourceReceivedData', 'EventDispatch', 'ResizeObserver', 'UpdateLayoutTree'].includes(e.name)) byName.set(e.name, (byName.get(e.name) ?? 0) + e.dur / 1000)
+      for (const e of events) if (e.tid === main && e.ph === 'X' && e.dur && ['FunctionCall', 'EvaluateScript', 'v8.callFunction', 'TimerFire', 'FireAnimationFrame', 'UpdateLayoutTree', 'Layout', 'Paint', 'PrePaint', 'Layerize', 'UpdateLayer', 'Commit', 'HitTest', 'ParseHTML', 'RecalculateStyles', 'ScheduleStyleRecalculation', 'GCEvent', 'MinorGC', 'MajorGC', 'XHRLoad', 'EventDispatch'].includes(e.name)) byName.set(e.name, (byName.get(e.name) ?? 0) + e.dur / 1000)
       console.log(`  cold click trace (${profile}): ${[...byName].sort((a, b) => b[1] - a[1]).map(([n, ms]) => `${n} ${ms.toFixed(0)} ms`).join(', ')}`)
     }
     cold.push(r.ms)

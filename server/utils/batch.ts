@@ -5,7 +5,8 @@
 import { and, asc, count, desc, eq, gte, inArray, isNotNull, sql } from 'drizzle-orm'
 import { EventEmitter, setMaxListeners } from 'node:events'
 import { ENGINE_VERSION } from '#shared/physics/index'
-import type { EvaluateRequestInput, EvaluateResponse } from '#shared/schemas/evaluate'
+import type { EvaluateRequestInput } from '#shared/schemas/evaluate'
+import type { BatchValue } from '../workers/tasks'
 import type { Process } from '#shared/schemas/graph'
 import { VERDICTS, type BatchProgressView, type PointData, type Verdict } from '#shared/pointsets'
 import { checkOrder, effectiveOrder, inOrder, shiftInOrder } from '#shared/physics/colour-order'
@@ -311,7 +312,7 @@ async function cancelAndWait(pick: (entry: [number, Live]) => boolean) {
 
 type CheckPointRow = typeof tables.checkPoints.$inferInsert
 
-export function rowOf(checkId: number, idx: number, data: PointData, item: { ok: true, value: EvaluateResponse } | { ok: false, message: string }): CheckPointRow {
+export function rowOf(checkId: number, idx: number, data: PointData, item: { ok: true, value: BatchValue } | { ok: false, message: string }): CheckPointRow {
   const base = { checkId, idx, minInvariant: data.minInvariant ?? null }
   if (!item.ok) return { ...base, value: null, target: null, deviation: null, verdict: 'not evaluated', message: item.message }
   const r = item.value
