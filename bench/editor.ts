@@ -120,7 +120,7 @@ try {
     const cdp = profile && k === 2 ? await page.context().newCDPSession(page) : null
     const events: { name: string, ph: string, dur?: number, tid: number, ts: number, args?: { name?: string } }[] = []
     if (cdp) {
-      cdp.on('Tracing.dataCollected', e => events.push(...(e.value as typeof events)))
+      cdp.on('Tracing.dataCollected', e => events.push(...(e.value as unknown as typeof events)))
       await cdp.send('Tracing.start', { categories: 'devtools.timeline,v8.execute', transferMode: 'ReportEvents' })
       await cdp.send('Profiler.enable')
       await cdp.send('Profiler.setSamplingInterval', { interval: 500 })
