@@ -133,10 +133,15 @@ try {
       await cdp.send('Tracing.end')
       await ended
       writeFileSync(profile!, JSON.stringify({ traceEvents: events }))
-      // Where the renderer's main thread spent the click: top-level tasks by kind (nested events are part of their task).
+      // Where the renderer's main thread spent the click: top-level events by kind (RunMicrotasks is mostly Vue rendering).
       const main = (events as { name: string, tid: number, args?: { name?: string } }[]).find(e => e.name === 'thread_name' && e.args?.name === 'CrRendererMain')?.tid
       const byName = new Map<string, number>()
-      for (const e of events) if (e.tid === main && e.ph === 'X' && e.dur && ['FunctionCall', 'EvaluateScript', 'v8.callFunction', 'TimerFire', 'FireAnimationFrame', 'UpdateLayoutTree', 'Layout', 'Paint', 'PrePaint', 'Layerize', 'UpdateLayer', 'Commit', 'HitTest', 'ParseHTML', 'RecalculateStyles', 'ScheduleStyleRecalculation', 'GCEvent', 'MinorGC', 'MajorGC', 'XHRLoad', 'EventDispatch'].includes(e.name)) byName.set(e.name, (byName.get(e.name) ?? 0) + e.dur / 1000)
+      let end = 0
+      for (const e of events.filter(e => e.tid === main && e.ph === 'X' && e.dur).sort((x, y) => x.ts - y.ts)) {
+        if (e.ts < end) continue // nested in the task before
+        end = e.ts + e.dur!
+        byName.set(e.name, (byName.get(e.name) ?? 0) + e.dur! / 1000)
+      }
       console.log(`  cold click trace (${profile}): ${[...byName].sort((a, b) => b[1] - a[1]).map(([n, ms]) => `${n} ${ms.toFixed(0)} ms`).join(', ')}`)
     }
     cold.push(r.ms)
