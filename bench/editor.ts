@@ -111,13 +111,13 @@ try {
   // --profile=FILE: a performance trace of the last cold click (open it in chromium's DevTools) and
   // where its main thread spent the time.
   const profile = process.argv.find(a => a.startsWith('--profile='))?.slice(10)
-  for (let k = 0; k < 3; k++) {
+  for (let k = 0; k < 5; k++) {
     await page.evaluate(id => localStorage.removeItem(`polewright:draft:${id}`), d.id)
     await page.goto(`/projects/${pid}/diagrams/${d.id}`)
     await page.waitForLoadState('networkidle')
     await page.waitForSelector('.vue-flow__pane')
     await page.waitForSelector('[data-test=expand-full]:not([disabled])')
-    const cdp = profile && k === 2 ? await page.context().newCDPSession(page) : null
+    const cdp = profile && k === 4 ? await page.context().newCDPSession(page) : null
     const events: { name: string, ph: string, dur?: number, tid: number, ts: number, args?: { name?: string } }[] = []
     if (cdp) {
       cdp.on('Tracing.dataCollected', e => events.push(...(e.value as unknown as typeof events)))
