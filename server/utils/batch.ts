@@ -1,6 +1,6 @@
 // Batch checks: a diagram's process evaluated over a point set in the worker pool, chunk by chunk.
 // Each chunk's per-point results are written to tables.checkPoints as soon as it is done, so
-// memory stays bounded by one chunk (plus the next one in flight); progress goes to subscribers
+// memory stays bounded by a few chunks (BATCH_AHEAD evaluating ahead); progress goes to subscribers
 // (the SSE route) and to checks.done. The summary is computed by SQL over the stored rows.
 import { and, asc, count, desc, eq, gte, inArray, isNotNull, sql } from 'drizzle-orm'
 import { EventEmitter, setMaxListeners } from 'node:events'
