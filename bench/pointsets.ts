@@ -2,8 +2,8 @@
 // process (−−−+++) over a generated set of 10,000 physical points (RAMBO) in its worker pool,
 // streaming progress over SSE; we time it end to end and sample the server's resident memory.
 // Run: `npm run bench -- pointsets` or `node bench/run.mjs pointsets [--points=N]` after a build
-// (POLEWRIGHT_BENCH_OUTPUT picks another build folder). Aim: 10,000 points in under 10 s on 2 cores.
-import { readFileSync } from 'node:fs'
+// (POLEWRIGHT_BENCH_OUTPUT picks another build folder). Aim: 10,000 points in under 2 s on 2 cores.
+import { readdirSync, readFileSync } from 'node:fs'
 import { availableParallelism, cpus } from 'node:os'
 import { signInDemo, startBuiltServer } from './server'
 
@@ -24,7 +24,17 @@ function cpuSeconds() {
     const f = readFileSync(path, 'utf8').split(') ')[1]!.split(' ')
     return (Number(f[11]) + Number(f[12])) / 100
   }
-  return { all: ticks(`/proc/${server.pid}/stat`), main: ticks(`/proc/${server.pid}/task/${server.pid}/stat`) }
+  const threads = new Map<string, number>()
+  for (const t of readdirSync(`/proc/${server.pid}/task`)) {
+    try { threads.set(t, ticks(`/proc/${server.pid}/task/${t}/stat`)) }
+    catch { /* the thread ended */ }
+  }
+  return { all: ticks(`/proc/${server.pid}/stat`), main: ticks(`/proc/${server.pid}/task/${server.pid}/stat`), threads }
+}
+
+/** CPU seconds per thread between two readings, busiest first (the main thread left out). */
+function busiest(a: ReturnType<typeof cpuSeconds>, b: ReturnType<typeof cpuSeconds>) {
+  return [...b.threads].filter(([t]) => t !== String(server.pid)).map(([t, v]) => v - (a.threads.get(t) ?? 0)).sort((x, y) => y - x)
 }
 
 let cookie = ''
@@ -79,7 +89,7 @@ async function run(points: number, seed: number) {
   const cpu = cpu1.all - cpu0.all
   const cpuMain = cpu1.main - cpu0.main
   const view = await api('GET', `/api/batch-checks/${check.id}`)
-  return { points, tGen, wall, serverMs: view.durationMs, events, counts: view.summary.counts, median: view.summary.median, worst: view.summary.worst?.deviation, before: before.rss, peak, cpu, cpuMain, status: last?.status }
+  return { points, tGen, wall, serverMs: view.durationMs, events, counts: view.summary.counts, median: view.summary.median, worst: view.summary.worst?.deviation, before: before.rss, peak, cpu, cpuMain, others: busiest(cpu0, cpu1), status: last?.status }
 }
 
 console.log(`load average at start: ${readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ')}`)
@@ -96,6 +106,16 @@ console.log(`\n${fmt(small)}\n${fmt(big)}\n${fmt(again)} (again)`)
 console.log(`verdicts (${POINTS}): ${JSON.stringify(big.counts)}; median deviation ${big.median?.toExponential(2)}, worst ${big.worst?.toExponential(2)}`)
 console.log(`memory: the ${POINTS.toLocaleString('en-US')}-point run peaked ${(big.peak - big.before).toFixed(0)} MB above its start, the 2,000-point run ${(small.peak - small.before).toFixed(0)} MB (results are written per chunk of 250)`)
 console.log(`memory, second ${POINTS.toLocaleString('en-US')}-point run: RSS ${again.before.toFixed(0)} → peak ${again.peak.toFixed(0)} MB (first run: ${big.before.toFixed(0)} → ${big.peak.toFixed(0)} MB)`)
-const best = Math.min(big.wall, again.wall)
-console.log(best < 10_000 ? `PASS: under 10 s (best ${(best / 1000).toFixed(2)} s)` : `MISS: over 10 s (best ${(best / 1000).toFixed(2)} s; load average now ${readFileSync('/proc/loadavg', 'utf8').split(' ')[0]})`)
+const best = big.wall < again.wall ? big : again
+const loadNow = readFileSync('/proc/loadavg', 'utf8').split(' ')[0]
+// Two idle cores give at most 2 s of CPU per second of wall: the CPU per point bounds the wall time.
+const cores = availableParallelism()
+const floorS = Math.max((best.cpu) / cores, best.cpuMain)
+const grown = again.peak - big.peak
+// Cores in use: CPU over wall. Below 2 with both workers equally busy means neighbours held the cores.
+console.log(`best run: ${(best.cpu / (best.wall / 1000)).toFixed(2)} cores busy on average; CPU s by thread: request ${best.cpuMain.toFixed(2)}, then ${best.others.slice(0, 4).map(x => x.toFixed(2)).join(', ')}; load average ${loadNow}`)
+console.log(`\n| aim | measured | bound by | load | status |`)
+console.log('|---|---|---|---|---|')
+console.log(`| ${POINTS.toLocaleString('en-US')} six-gluon NMHV points, Berends–Giele target, end to end < 2 s | best ${(best.wall / 1000).toFixed(2)} s (${(big.wall / 1000).toFixed(2)}, ${(again.wall / 1000).toFixed(2)}) | server CPU ${(1000 * best.cpu / best.points).toFixed(2)} ms per point (request thread ${(1000 * best.cpuMain / best.points).toFixed(2)}): ≥ ${floorS.toFixed(2)} s on ${cores} idle cores | ${loadNow} | ${best.wall < 2000 ? 'goal met' : '**not met**'} |`)
+console.log(`| memory bounded: a second ${POINTS.toLocaleString('en-US')}-point run peaks no higher than the first + 64 MB | RSS peak ${big.peak.toFixed(0)} MB, then ${again.peak.toFixed(0)} MB | results written per chunk of 250 | ${loadNow} | ${grown < 64 ? 'goal met' : '**not met**'} |`)
 process.exit(0)

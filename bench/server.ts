@@ -1,5 +1,6 @@
 // Starts the built server for a benchmark: loopback, a temporary SQLite file, the demo seed.
-// POLEWRIGHT_BENCH_OUTPUT picks the build folder (default .output).
+// POLEWRIGHT_BENCH_OUTPUT picks the build folder (default .output); POLEWRIGHT_BENCH_NODE_ARGS adds
+// node options to the server (e.g. `--cpu-prof --cpu-prof-dir=/tmp/prof`: a profile per thread).
 import { spawn, type ChildProcess } from 'node:child_process'
 import { existsSync, mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
@@ -19,7 +20,8 @@ export async function startBuiltServer(tag: string, env: Record<string, string> 
   const dir = mkdtempSync(join(tmpdir(), `polewright-bench-${tag}-`))
   const port = 3700 + Math.floor(Math.random() * 200)
   const base = `http://127.0.0.1:${port}`
-  const child = spawn(process.execPath, [entry], {
+  const nodeArgs = (process.env.POLEWRIGHT_BENCH_NODE_ARGS ?? '').split(' ').filter(Boolean)
+  const child = spawn(process.execPath, [...nodeArgs, entry], {
     cwd: root,
     stdio: ['ignore', 'ignore', 'inherit'],
     env: {
@@ -35,7 +37,8 @@ export async function startBuiltServer(tag: string, env: Record<string, string> 
   const stop = () => {
     if (stopped) return
     stopped = true
-    child.kill('SIGTERM')
+    // SIGINT lets node write its --cpu-prof files.
+    child.kill(nodeArgs.length ? 'SIGINT' : 'SIGTERM')
     rmSync(dir, { recursive: true, force: true })
   }
   process.on('exit', stop)

@@ -14,8 +14,7 @@ import Tinypool from 'tinypool'
 import { configureConnection, tables, useClient, useDB } from '../utils/db'
 import { codeMismatch, requestFor, rowOf } from '../utils/batch'
 import type { PointData } from '#shared/pointsets'
-import type { EvaluateResponse } from '#shared/schemas/evaluate'
-import type { Outcome } from '../workers/tasks'
+import type { BatchValue, Outcome } from '../workers/tasks'
 import { QUEUE_NAME, queueTimings, redisLabel, redisOptions, storeChunk, type ChunkJob, type ChunkResult } from './shared'
 
 const arg = (name: string) => {
@@ -58,7 +57,7 @@ async function running(checkId: number) {
 async function evaluateSlices(reqs: ReturnType<typeof requestFor>[], signal: AbortSignal) {
   const parts: Promise<Outcome[]>[] = []
   for (let s = 0; s < reqs.length; s += SLICE) {
-    parts.push(pool.run({ kind: 'evaluateMany', reqs: reqs.slice(s, s + SLICE) }, { signal }).then((o: Outcome) => {
+    parts.push(pool.run({ kind: 'evaluateMany', reqs: reqs.slice(s, s + SLICE), slim: true }, { signal }).then((o: Outcome) => {
       if (!o.ok) throw new Error(o.message)
       return o.value as Outcome[]
     }))
@@ -96,7 +95,7 @@ async function processChunk(job: Job<ChunkJob>): Promise<ChunkResult> {
   const rows = pts.map((p, k) => {
     if (mismatch[k]) return rowOf(c.checkId, p.idx, p.data, { ok: false, message: mismatch[k]! })
     const o = items[t++]!
-    return rowOf(c.checkId, p.idx, p.data, o.ok ? { ok: true, value: o.value as EvaluateResponse } : { ok: false, message: o.message })
+    return rowOf(c.checkId, p.idx, p.data, o.ok ? { ok: true, value: o.value as BatchValue } : { ok: false, message: o.message })
   })
   return serial(() => storeChunk(db, c, rows, name, evalMs))
 }

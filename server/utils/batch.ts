@@ -1,11 +1,12 @@
 // Batch checks: a diagram's process evaluated over a point set in the worker pool, chunk by chunk.
 // Each chunk's per-point results are written to tables.checkPoints as soon as it is done, so
-// memory stays bounded by one chunk (plus the next one in flight); progress goes to subscribers
+// memory stays bounded by a few chunks (BATCH_AHEAD evaluating ahead); progress goes to subscribers
 // (the SSE route) and to checks.done. The summary is computed by SQL over the stored rows.
 import { and, asc, count, desc, eq, gte, inArray, isNotNull, sql } from 'drizzle-orm'
 import { EventEmitter, setMaxListeners } from 'node:events'
 import { ENGINE_VERSION } from '#shared/physics/index'
-import type { EvaluateRequestInput, EvaluateResponse } from '#shared/schemas/evaluate'
+import type { EvaluateRequestInput } from '#shared/schemas/evaluate'
+import type { BatchValue } from '../workers/tasks'
 import type { Process } from '#shared/schemas/graph'
 import { VERDICTS, type BatchProgressView, type PointData, type Verdict } from '#shared/pointsets'
 import { checkOrder, effectiveOrder, inOrder, shiftInOrder } from '#shared/physics/colour-order'
@@ -16,6 +17,8 @@ type CheckRow = typeof tables.checks.$inferSelect
 
 /** Points per chunk read, evaluated and written together. */
 export const BATCH_CHUNK = 250
+/** Chunks evaluating at once per batch while the oldest is written. */
+const BATCH_AHEAD = 3
 /** Batches running at once (the pool is shared; more wait as "queued"). */
 const MAX_RUNNING = 2
 const TERMINAL = new Set(['done', 'failed', 'cancelled'])
@@ -309,7 +312,7 @@ async function cancelAndWait(pick: (entry: [number, Live]) => boolean) {
 
 type CheckPointRow = typeof tables.checkPoints.$inferInsert
 
-export function rowOf(checkId: number, idx: number, data: PointData, item: { ok: true, value: EvaluateResponse } | { ok: false, message: string }): CheckPointRow {
+export function rowOf(checkId: number, idx: number, data: PointData, item: { ok: true, value: BatchValue } | { ok: false, message: string }): CheckPointRow {
   const base = { checkId, idx, minInvariant: data.minInvariant ?? null }
   if (!item.ok) return { ...base, value: null, target: null, deviation: null, verdict: 'not evaluated', message: item.message }
   const r = item.value
@@ -356,16 +359,29 @@ async function runBatch(checkId: number, pointSetId: number, total: number, plan
         .catch(e => ({ status: 'failed' as const, done, message: `the batch stopped: ${(e as Error).message}` })))
     }
     else try {
-      let next: Promise<CheckPointRow[]> | null = total > 0 ? evalChunk(0) : null
-      for (let from = 0; next; from += BATCH_CHUNK) {
-        const rows = await next
+      // Chunks evaluate ahead while earlier ones are written, in order: with BATCH_AHEAD chunks in
+      // the pool the workers never wait for the request thread's reads and writes (memory stays
+      // bounded by that many chunks).
+      const ahead: Promise<CheckPointRow[]>[] = []
+      let queued = 0
+      const topUp = () => {
+        while (ahead.length < BATCH_AHEAD && queued < total) {
+          const p = evalChunk(queued)
+          p.catch(() => {})
+          ahead.push(p)
+          queued += BATCH_CHUNK
+        }
+      }
+      topUp()
+      while (ahead.length) {
+        const rows = await ahead.shift()!
         if (signal.aborted) {
           status = 'cancelled'
           break
         }
-        // The next chunk evaluates while this one is written.
-        next = rows.length === BATCH_CHUNK && from + BATCH_CHUNK < total ? evalChunk(from + BATCH_CHUNK) : null
-        next?.catch(() => {})
+        // A short chunk means the set ended early (points deleted meanwhile): nothing more to read.
+        if (rows.length === BATCH_CHUNK) topUp()
+        else queued = total
         if (rows.length) await db.insert(tables.checkPoints).values(rows)
         done += rows.length
         for (const r of rows) l.counts[r.verdict as Verdict]++

@@ -8,7 +8,7 @@ import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import Tinypool from 'tinypool'
 import type { EvaluateRequestInput, EvaluateResponse } from '#shared/schemas/evaluate'
-import type { Failure, Outcome, Task } from '../workers/tasks'
+import type { BatchValue, Failure, Outcome, Task } from '../workers/tasks'
 
 export interface PoolOptions {
   /** Time budget of the task (each chunk for batches), ms; default POLEWRIGHT_EVAL_BUDGET_MS. */
@@ -141,7 +141,7 @@ export async function evaluateInPool(req: EvaluateRequestInput, opts: PoolOption
   return (await runInPool<EvaluateResponse>({ kind: 'evaluate', req, ...(order ? { order } : {}) }, rest)).value
 }
 
-export type BatchItem = { ok: true; value: EvaluateResponse } | { ok: false; status: number; field: string; message: string }
+export type BatchItem = { ok: true; value: BatchValue } | { ok: false; status: number; field: string; message: string }
 
 /**
  * Many evaluations (batch checks), in chunks spread over the workers; one item's failure is its
@@ -160,9 +160,9 @@ export async function evaluateManyInPool(
     const part = reqs.slice(start, start + size)
     let items: BatchItem[]
     try {
-      const o = await runOutcome({ kind: 'evaluateMany', reqs: part }, opts)
+      const o = await runOutcome({ kind: 'evaluateMany', reqs: part, slim: true }, opts)
       if (!o.ok) throw failureError(o)
-      items = (o.value as Outcome[]).map((x) => (x.ok ? { ok: true as const, value: x.value as EvaluateResponse } : toItem(failureError(x))))
+      items = (o.value as Outcome[]).map((x) => (x.ok ? { ok: true as const, value: x.value as BatchValue } : toItem(failureError(x))))
     }
     catch (e) {
       const err = e instanceof EvaluationError ? e : new EvaluationError(503, '', String(e))

@@ -49,7 +49,8 @@ import type { EditorEdge, EditorNode } from '#shared/editor/types'
 export type Task
   /** `json`: the response comes back as its JSON text (a string crosses postMessage far cheaper than the object, and the route sends it as is). */
   = | { kind: 'evaluate'; req: EvaluateRequestInput; order?: number[]; json?: boolean }
-    | { kind: 'evaluateMany'; reqs: EvaluateRequestInput[] }
+  /** `slim`: each value keeps only what a batch stores (BatchValue): cloning whole responses across threads cost about half as much as evaluating them. */
+    | { kind: 'evaluateMany'; reqs: EvaluateRequestInput[]; slim?: boolean }
     | { kind: 'shifts'; req: unknown }
     | { kind: 'crossShift'; req: unknown }
     | { kind: 'limitCheck'; req: unknown }
@@ -101,7 +102,10 @@ function dispatch(task: Task): unknown {
       return task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)
     case 'evaluateMany':
       // One failing point does not fail the batch: each item is its own outcome.
-      return task.reqs.map((req) => runTask({ kind: 'evaluate', req }))
+      return task.reqs.map((req) => {
+        const o = runTask({ kind: 'evaluate', req })
+        return o.ok && task.slim ? { ...o, value: slimValue(o.value as EvaluateResponse) } : o
+      })
     case 'shifts':
       return shifts(task.req)
     case 'crossShift':
@@ -123,6 +127,12 @@ function dispatch(task: Task): unknown {
       return { ...out, ms: round3(performance.now() - t0) }
     }
   }
+}
+
+/** What a batch stores of one evaluation (server/utils/batch.ts rowOf). */
+export type BatchValue = Pick<EvaluateResponse, 'value' | 'deviation' | 'verdict' | 'warnings'> & { target: { value: EvaluateResponse['value'] | null } | null }
+function slimValue(r: EvaluateResponse): BatchValue {
+  return { value: r.value, deviation: r.deviation, verdict: r.verdict, warnings: r.warnings, target: r.target ? { value: r.target.value } : null }
 }
 
 const round3 = (ms: number) => Math.round(ms * 1000) / 1000

@@ -142,6 +142,30 @@ describe('headers and ids', () => {
     expect(csp).toMatch(/default-src 'self'/)
     expect(csp).toMatch(/connect-src 'self'/)
   })
+  it('V14.4.3 every page gets its own CSP nonce on its scripts; API answers keep the security headers, request after request', async () => {
+    const nonces: string[] = []
+    for (let k = 0; k < 3; k++) {
+      const page = await fetch(`${baseURL()}/projects/${pid}`, { headers: { cookie: ctx.owner.cookie } })
+      const nonce = /'nonce-([^']+)'/.exec(page.headers.get('content-security-policy') ?? '')?.[1]
+      expect(nonce).toBeTruthy()
+      expect(await page.text()).toContain(`<script nonce="${nonce}"`)
+      nonces.push(nonce!)
+    }
+    expect(new Set(nonces).size).toBe(3)
+    // The /api rules are resolved once per path (server/plugins/security-rules.ts): the same headers every time.
+    const heads = []
+    for (let k = 0; k < 3; k++) {
+      const res = await ctx.owner.req('POST', '/api/evaluate', { theory: 'gluon', helicities: [-1, -1, 1, 1], kinematics: { kind: 'random', seed: 1 } })
+      expect(res.status).toBe(200)
+      heads.push(['x-content-type-options', 'x-frame-options', 'referrer-policy', 'cache-control'].map(h => res.headers.get(h)))
+    }
+    expect(heads[0]).toEqual(['nosniff', 'SAMEORIGIN', 'no-referrer', 'no-store'])
+    expect(heads[1]).toEqual(heads[0])
+    expect(heads[2]).toEqual(heads[0])
+    // The request-size limit still holds on /api (413 beyond 4 MB).
+    const big = await fetch(`${baseURL()}/api/evaluate`, { method: 'POST', headers: { 'cookie': ctx.owner.cookie, 'content-type': 'application/json' }, body: JSON.stringify({ pad: 'x'.repeat(4_100_000) }) })
+    expect(big.status).toBe(413)
+  })
   it('V9.1.x / V14.4.5 HSTS is sent when served over HTTPS, not over plain HTTP', async () => {
     const https = await fetch(`${baseURL()}/api/auth/me`, { headers: { 'x-forwarded-proto': 'https' } })
     expect(https.headers.get('strict-transport-security')).toMatch(/max-age=\d+/)
