@@ -35,6 +35,7 @@ if (withComponents) {
     test: {
       name: 'components',
       include: ['tests/components/**/*.test.ts'],
+      setupFiles: ['tests/components/setup.ts'],
       environment: 'nuxt',
       // Its own build dir: loading the test Nuxt rewrites generated files that lint and typecheck read in .nuxt.
       environmentOptions: { nuxt: { domEnvironment: 'happy-dom', overrides: { buildDir: '.nuxt-vitest' } } },

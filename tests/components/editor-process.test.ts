@@ -30,8 +30,8 @@ registerEndpoint('/api/shifts', {
 })
 
 async function mountHeader(process: Process | undefined, role: Role = 'editor') {
-  const { pinia, store } = editorWith({ process, role })
-  const wrapper = await mountSuspended(EditorProcess, { props: { catalogue: null }, global: { plugins: [pinia] } })
+  const store = editorWith({ process, role })
+  const wrapper = await mountSuspended(EditorProcess, { props: { catalogue: null } })
   return { wrapper, store }
 }
 const chips = (w: VueWrapper) => w.findAll('[data-test=helicity-chips] button').map(b => b.text())
