@@ -1,4 +1,5 @@
-// npm test: install what is missing, build once, run every Vitest project against that build.
+// npm test: install what is missing, build once, run every Vitest project against that build
+// (unit, then components, then e2e: the sequence.groupOrder of each in vitest.config.ts).
 import { ensureBuilt, ensureInstalled, run } from './lib.mjs'
 
 ensureInstalled()

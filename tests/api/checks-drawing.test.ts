@@ -54,7 +54,9 @@ describe('checks of a drawing', () => {
     const want = `channel {${gone.channel!.left.join(',')}} with internal helicity ${gone.channel!.helicity > 0 ? '+' : '−'}`
     const drawing = res.body.result.drawing
     expect(drawing.comparison.complete).toBe(false)
-    expect(drawing.comparison.missing.length + drawing.comparison.incomplete.length).toBeGreaterThan(0)
+    // Exactly that channel, missing (not half-drawn): no drawn term is concerned.
+    expect(drawing.comparison.missing).toEqual([{ left: gone.channel!.left, helicity: gone.channel!.helicity, terms: [], message: `${want} is not drawn` }])
+    expect(drawing.comparison.incomplete).toEqual([])
     expect(drawing.message).toContain(want)
     expect(res.body.summary.drawing.message).toContain(want)
     // The process's own recursion still agrees: the drawing is what is wrong.

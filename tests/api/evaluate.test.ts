@@ -247,7 +247,9 @@ describe('errors: 400 for the schema, 422 for the physics, each naming its field
     expect(res.status, JSON.stringify(res.body)).toBe(status)
     expect(res.body.data.field).toBe(field)
     expect(res.body.message.startsWith(field)).toBe(true)
-    if (status === 400) expect(res.body.data.issues.length).toBeGreaterThan(0)
+    // The zod issues behind a 400 include one at exactly that path.
+    const at = (path: (string | number)[]) => path.map(k => (typeof k === 'number' ? `[${k}]` : `.${k}`)).join('').slice(1)
+    if (status === 400) expect(res.body.data.issues.map((i: { path: (string | number)[] }) => at(i.path))).toContain(field)
   })
 
   it('malformed JSON and a non-finite number are 400', async () => {

@@ -3,57 +3,20 @@
 // flipped, both shifted legs on one vertex: `disagrees`, named; the whole drawing: `agrees`); a
 // result goes stale on the next edit; each demo diagram opens with every node inside the canvas.
 // Page errors and console errors fail every test (an error toast logs one too).
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { nodesOutside, openBrowser, openEditor, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
-import { demo, signIn } from '../helpers/api'
+import { demoProject, glue, newDiagram, nodesOutside, openEditor, runCheck, shot, signedInBrowser } from '../helpers/browser'
+import { demo } from '../helpers/api'
 
-async function demoProject(): Promise<{ id: number, diagrams: { id: number, title: string }[] }> {
-  const c = await signIn(demo.owner)
-  const projects = (await c.get('/api/projects')).body as { id: number, name: string }[]
-  const p = projects.find(x => x.name.startsWith('Brackenridge'))!
-  return { id: p.id, diagrams: (await c.get(`/api/projects/${p.id}/diagrams`)).body }
-}
-async function newDiagram(page: Page, projectId: number, title: string) {
-  await page.goto(`/projects/${projectId}`)
-  await page.waitForLoadState('networkidle')
-  await page.fill('input[name=diagram-title]', title)
-  await Promise.all([page.waitForURL(/\/diagrams\/\d+$/), page.click('form button[type=submit]')])
-  await page.waitForSelector('.vue-flow__pane')
-  await page.waitForLoadState('networkidle')
-}
-async function glue(page: Page, a: { node: string, handle: string }, b: { node: string, handle: string }) {
-  const h = (x: { node: string, handle: string }) => page.locator(`.vue-flow__handle[data-nodeid="${x.node}"][data-handleid="${x.handle}"]`)
-  const ba = (await h(a).boundingBox())!
-  const bb = (await h(b).boundingBox())!
-  await page.mouse.move(ba.x + ba.width / 2, ba.y + ba.height / 2)
-  await page.mouse.down()
-  await page.mouse.move((ba.x + bb.x) / 2, (ba.y + bb.y) / 2, { steps: 4 })
-  await page.mouse.move(bb.x + bb.width / 2, bb.y + bb.height / 2, { steps: 4 })
-  await page.mouse.up()
-}
-async function runCheck(page: Page) {
-  await page.click('[data-test=evaluate-quick]')
-  await page.waitForSelector('[data-test=results]', { timeout: 60_000 })
-  await page.waitForSelector('[data-test=evaluate-quick]:not([disabled])', { timeout: 90_000 })
-}
 const verdict = (page: Page) => page.locator('[data-test=results] [data-test=verdict]').first().textContent()
 const chips = (page: Page) => page.locator('[data-test=helicity-chips] button').allTextContents()
 const blur = (page: Page) => page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur())
 
 describe('the canvas is the computation', () => {
-  let a: BrowserSession
+  const a = signedInBrowser(demo.owner, demo.password)
   let project: Awaited<ReturnType<typeof demoProject>>
   beforeAll(async () => {
     project = await demoProject()
-    a = await openBrowser()
-    await signInBrowser(a.page, demo.owner, demo.password)
-  })
-  afterAll(async () => {
-    await a?.close()
-  })
-  beforeEach(() => {
-    a.errors.length = 0
   })
 
   it('every header control changes the process; saved, reloaded, undone', async () => {

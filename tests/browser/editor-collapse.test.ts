@@ -6,7 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { READABLE_NODES } from '#shared/editor/collapse'
-import { nodesOutside, openBrowser, openEditor, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
+import { nodesOutside, openBrowser, openEditor, runCheck, shot, signInBrowser, type BrowserSession } from '../helpers/browser'
 import { projectWithRoles } from '../helpers/api'
 
 const PASSWORD = 'correct-horse-1'
@@ -111,9 +111,7 @@ describe('big expansions collapse to labelled Blocks that open one at a time', (
       await shot(page, 'editor-collapse-viewer-explores')
 
       // The check of what is drawn: a verdict, not stored.
-      await page.click('[data-test=evaluate-quick]')
-      await page.waitForSelector('[data-test=results]', { timeout: 60_000 })
-      await page.waitForSelector('[data-test=evaluate-quick]:not([disabled])', { timeout: 90_000 })
+      await runCheck(page)
       await expect.poll(() => page.locator('[data-test=results] [data-test=verdict]').first().textContent()).toContain('agrees')
       await expect.poll(() => page.locator('[data-test=results]').textContent()).toContain('this is a check of what is drawn')
       await shot(page, 'editor-collapse-viewer-check')

@@ -6,33 +6,14 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import type { Page } from 'playwright-core'
-import { shot, signedInBrowser } from '../helpers/browser'
+import { demoProject, newDiagram, runCheck, shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 import { FORMULA_SYNTAX } from '#shared/physics/formula-syntax'
 import { exportCaption } from '#shared/editor/exports'
 
-async function projectId(): Promise<number> {
-  const c = await signIn(demo.owner)
-  const projects = (await c.get('/api/projects')).body as { id: number, name: string }[]
-  return projects.find(x => x.name.startsWith('Brackenridge'))!.id
-}
-async function newDiagram(page: Page, project: number, title: string): Promise<number> {
-  await page.goto(`/projects/${project}`)
-  await page.waitForLoadState('networkidle')
-  await page.fill('input[name=diagram-title]', title)
-  await Promise.all([page.waitForURL(/\/diagrams\/\d+$/), page.click('form button[type=submit]')])
-  await page.waitForSelector('.vue-flow__pane')
-  await page.waitForLoadState('networkidle')
-  return Number(/\/diagrams\/(\d+)$/.exec(page.url())![1])
-}
 async function setLegs(page: Page, n: number) {
   await page.fill('input[name=legs]', String(n))
   await page.locator('input[name=legs]').press('Tab')
-}
-async function runCheck(page: Page) {
-  await page.click('[data-test=evaluate]')
-  await page.waitForSelector('[data-test=results]', { timeout: 60_000 })
-  await page.waitForSelector('[data-test=evaluate]:not([disabled])', { timeout: 90_000 })
 }
 /** The distinct rows (rounded top edges) the visible children of an element sit in. */
 async function rowsOf(page: Page, selector: string): Promise<number> {
@@ -52,7 +33,7 @@ describe('editor extras', () => {
   const a = signedInBrowser(demo.owner, demo.password)
   let project: number
   beforeAll(async () => {
-    project = await projectId()
+    project = (await demoProject()).id
   })
 
   it('the syntax reference beside the formula field and on the help page; a formula typed with ⟨12⟩ agrees', async () => {
@@ -79,7 +60,7 @@ describe('editor extras', () => {
     await page.fill('input[name=formula]', '⟨1 2⟩^4/(⟨12⟩⟨23⟩⟨34⟩⟨45⟩⟨51⟩)')
     await page.locator('input[name=formula]').press('Tab')
     await expect.poll(() => page.locator('[data-test=formula-preview] .katex').count()).toBe(1)
-    await runCheck(page)
+    await runCheck(page, 'evaluate')
     expect(await page.locator('[data-test=results] [data-test=verdict]').first().textContent()).toBe('agrees')
     // One verdict badge on screen while the drawer is open.
     expect(await page.locator('[data-test=verdict]:visible').count()).toBe(1)
@@ -183,7 +164,7 @@ describe('editor extras', () => {
     await page.waitForSelector('[data-test=helicity-string]')
     expect(await page.inputValue('[data-test=helicity-string]')).toBe('−−++−+−+++')
     await page.click('[data-test=tab-check]')
-    await runCheck(page)
+    await runCheck(page, 'evaluate')
     expect(await page.locator('[data-test=verdict]:visible').count()).toBe(1)
     await shot(page, 'editor-extras-1280-result')
     await page.setViewportSize({ width: 1440, height: 900 })

@@ -4,7 +4,7 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core'
 import { mkdirSync, mkdtempSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
-import { baseURL } from './api'
+import { baseURL, demo, signIn } from './api'
 
 export const screenshotDir = resolve(import.meta.dirname, '../screenshots')
 
@@ -80,4 +80,45 @@ export async function nodesOutside(page: Page): Promise<string[]> {
     }
     return out
   })
+}
+
+/** The demo owner's project (Brackenridge…) and its diagrams, read through the API. */
+export async function demoProject(): Promise<{ id: number, diagrams: { id: number, title: string }[] }> {
+  const c = await signIn(demo.owner)
+  const projects = (await c.get('/api/projects')).body as { id: number, name: string }[]
+  const p = projects.find(x => x.name.startsWith('Brackenridge'))!
+  return { id: p.id, diagrams: (await c.get(`/api/projects/${p.id}/diagrams`)).body }
+}
+
+/** Creates a diagram from the project page's form, as a user does, and waits for its editor: its id. */
+export async function newDiagram(page: Page, projectId: number, title: string): Promise<number> {
+  await page.goto(`/projects/${projectId}`)
+  await page.waitForLoadState('networkidle')
+  await page.fill('input[name=diagram-title]', title)
+  await Promise.all([page.waitForURL(/\/diagrams\/\d+$/), page.click('form button[type=submit]')])
+  await page.waitForSelector('.vue-flow__pane')
+  await page.waitForLoadState('networkidle')
+  return Number(/\/diagrams\/(\d+)$/.exec(page.url())![1])
+}
+
+/** Drags from one handle to another, as a user glues two nodes. */
+export async function glue(page: Page, a: { node: string, handle: string }, b: { node: string, handle: string }) {
+  const h = (x: { node: string, handle: string }) => page.locator(`.vue-flow__handle[data-nodeid="${x.node}"][data-handleid="${x.handle}"]`)
+  const ba = (await h(a).boundingBox())!
+  const bb = (await h(b).boundingBox())!
+  await page.mouse.move(ba.x + ba.width / 2, ba.y + ba.height / 2)
+  await page.mouse.down()
+  await page.mouse.move((ba.x + bb.x) / 2, (ba.y + bb.y) / 2, { steps: 4 })
+  await page.mouse.move(bb.x + bb.width / 2, bb.y + bb.height / 2, { steps: 4 })
+  await page.mouse.up()
+}
+
+/**
+ * Runs a check from the editor (the header's quick button, or `evaluate` in the Check tab) and
+ * waits until its results are shown and the button is free again.
+ */
+export async function runCheck(page: Page, button: 'evaluate-quick' | 'evaluate' = 'evaluate-quick') {
+  await page.click(`[data-test=${button}]`)
+  await page.waitForSelector('[data-test=results]', { timeout: 60_000 })
+  await page.waitForSelector(`[data-test=${button}]:not([disabled])`, { timeout: 90_000 })
 }

@@ -84,7 +84,7 @@ describe('exported figures are captioned', () => {
     const svg = canvasSvg(g.nodes as EditorNode[], g.edges, { shift: q.shift, title: 'Six gluons', caption })
     expect(svg).toContain(`data-role="caption">${caption}</text>`)
     const blocks = g.nodes.filter(n => n.type === 'block')
-    expect(blocks.length).toBeGreaterThan(0)
+    expect(blocks).toHaveLength(2)
     const slots = blocks.reduce((a, b) => a + (b.data as { helicities: number[] }).helicities.length, 0)
     expect((svg.match(/data-role="slot"/g) ?? []).length).toBe(slots)
     // A Block's slot joined to an internal line is labelled by the line (P…), the others by leg.
