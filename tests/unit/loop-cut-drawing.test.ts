@@ -77,7 +77,9 @@ describe('the three-point rule the editor checks', () => {
   it('at both cut solutions of every box up to eight legs, neighbouring three-point corners alternate, opposite ones agree, and the solutions swap every kind', () => {
     for (const h of [[-1, -1, 1, 1], [-1, 1, -1, 1, 1, 1], [-1, -1, 1, 1, 1, 1, 1], [-1, 1, -1, 1, 1, -1, 1, 1]]) {
       for (const seed of [1, 2]) {
-        const r = loopCuts({ helicities: h, kinematics: { kind: 'random', seed }, target: 'none' })
+        // The rule is kinematic: gluon-only cuts give every box both solutions.
+        const r = loopCuts({ helicities: h, kinematics: { kind: 'random', seed }, target: 'none', states: 'gluons' })
+        expect(r.boxes.every(b => b.solutions.length === 2)).toBe(true)
         for (const b of r.boxes) {
           const [s1, s2] = b.solutions.map(x => x.threePoint)
           s1!.forEach((k, q) => { if (k) expect(s2![q]).toBe(k === 'angle' ? 'square' : 'angle') })
