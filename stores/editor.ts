@@ -256,7 +256,7 @@ export const useEditorStore = defineStore('editor', () => {
     if (!d) {
       const s = particleSpin(process.value) ?? 1
       if (type === 'leg') {
-        const used = new Set(nodes.value.filter(n => n.type === 'leg').map(n => (n.data as unknown as LegData).label))
+        const used = new Set(nodes.value.filter(n => n.type === 'leg').map(n => n.data.label))
         let label = 1
         while (used.has(label)) label++
         const h = process.value?.helicities[label - 1] ?? (label <= 2 ? -s : s)
@@ -286,14 +286,14 @@ export const useEditorStore = defineStore('editor', () => {
     const dst = swap ? { id: c.source, h: c.sourceHandle } : { id: c.target, h: c.targetHandle }
     const external = a.type === 'leg' || b.type === 'leg'
     const s = particleSpin(process.value) ?? 1
-    let data: LineData
+    let data: LineData & Record<string, unknown>
     if (external) data = { external: true }
     else {
       const srcNode = nodeById.value.get(src.id)!
       let h = s
       if (srcNode.type === 'block') {
         const k = Number((src.h ?? 'h0').slice(1))
-        h = (srcNode.data as unknown as BlockData).helicities[k] ?? s
+        h = srcNode.data.helicities[k] ?? s
       }
       else {
         const known = (validation.value.slots[src.id] ?? []).filter(x => x.handle !== src.h && x.helicity !== null).map(x => x.helicity!)
@@ -307,7 +307,7 @@ export const useEditorStore = defineStore('editor', () => {
     }
     const id = newId('e')
     commit(() => {
-      edges.value = [...edges.value, { id, source: src.id, target: dst.id, sourceHandle: src.h ?? null, targetHandle: dst.h ?? null, type: 'line', data: data as unknown as Record<string, unknown> }]
+      edges.value = [...edges.value, { id, source: src.id, target: dst.id, sourceHandle: src.h ?? null, targetHandle: dst.h ?? null, type: 'line', data }]
     })
     return id
   }
@@ -395,7 +395,7 @@ export const useEditorStore = defineStore('editor', () => {
   }
   function canExpand(id: string): boolean {
     const n = nodeById.value.get(id)
-    return n?.type === 'block' && !!specOfNode(id) && ((n.data as unknown as BlockData).terms ?? 0) > 0 && !expansionStale.value
+    return n?.type === 'block' && !!specOfNode(id) && (n.data.terms ?? 0) > 0 && !expansionStale.value
   }
   function expandBlock(id: string): boolean {
     const at = specOfNode(id)
