@@ -1,4 +1,4 @@
-import { EvaluateRequestSchema, type EvaluateResponse } from '#shared/schemas/evaluate'
+import { EvaluateRequestSchema } from '#shared/schemas/evaluate'
 
 // Stateless; writes nothing, so read-scope tokens may call it. Limits are checked here before any
 // work; the evaluation itself runs in the worker pool within the request's time budget.
@@ -16,8 +16,7 @@ export default defineEventHandler(async (event) => {
       'x-evaluation-thread': String(thread),
       'server-timing': `engine;dur=${ms}, pool;dur=${(performance.now() - t0).toFixed(3)}`,
     })
-    // Typed as what the text holds, so $fetch and useFetch callers infer EvaluateResponse.
-    return value as unknown as EvaluateResponse
+    return value
   }
   catch (e) {
     throw evaluationHttpError(e)
