@@ -47,6 +47,11 @@ export default defineNuxtConfig({
     esbuild: { options: { target: 'es2022' } },
     output: process.env.NUXT_OUTPUT_DIR ? { dir: process.env.NUXT_OUTPUT_DIR } : undefined,
     experimental: { tasks: false },
+    hooks: {
+      // The JSON 404 for unknown API paths (server/api/[...].ts) matches every path; left in the
+      // typed routes it would hide each dynamic route's return type from $fetch and useFetch.
+      'types:extend'(types) { delete types.routes?.['/api/**'] },
+    },
   },
   security: {
     // Bracket formulas such as <1 2> are ordinary input; output is escaped by Vue and KaTeX (trust: false).

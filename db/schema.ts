@@ -1,6 +1,9 @@
 // Polewright's data model. Every table a later feature needs is here so migrations stay linear.
 import { sql } from 'drizzle-orm'
 import { integer, real, sqliteTable, text, primaryKey, index, uniqueIndex } from 'drizzle-orm/sqlite-core'
+import type { Graph } from '../shared/schemas/graph'
+import type { PointData } from '../shared/pointsets/types'
+import type { CheckedResponse } from '../shared/editor/drawing/evaluate'
 
 const now = sql`(unixepoch() * 1000)`
 const createdAt = () => integer('created_at', { mode: 'timestamp_ms' }).notNull().default(now)
@@ -35,7 +38,7 @@ export const diagrams = sqliteTable('diagrams', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   projectId: integer('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
   title: text('title').notNull(),
-  graph: text('graph', { mode: 'json' }).notNull().$type<Record<string, unknown>>(),
+  graph: text('graph', { mode: 'json' }).notNull().$type<Graph>(),
   version: integer('version').notNull().default(1),
   createdBy: integer('created_by').notNull().references(() => users.id),
   updatedBy: integer('updated_by').notNull().references(() => users.id),
@@ -48,7 +51,7 @@ export const diagramRevisions = sqliteTable('diagram_revisions', {
   diagramId: integer('diagram_id').notNull().references(() => diagrams.id, { onDelete: 'cascade' }),
   version: integer('version').notNull(),
   title: text('title').notNull(),
-  graph: text('graph', { mode: 'json' }).notNull().$type<Record<string, unknown>>(),
+  graph: text('graph', { mode: 'json' }).notNull().$type<Graph>(),
   note: text('note').notNull().default(''),
   savedBy: integer('saved_by').notNull().references(() => users.id),
   savedAt: integer('saved_at', { mode: 'timestamp_ms' }).notNull().default(now),
@@ -83,7 +86,7 @@ export const points = sqliteTable('points', {
   pointSetId: integer('point_set_id').notNull().references(() => pointSets.id, { onDelete: 'cascade' }),
   idx: integer('idx').notNull(),
   // { momenta } or { lambda, lambdaTilde }, plus particle codes for event files.
-  data: text('data', { mode: 'json' }).notNull().$type<Record<string, unknown>>(),
+  data: text('data', { mode: 'json' }).notNull().$type<PointData>(),
 }, t => [primaryKey({ columns: [t.pointSetId, t.idx] })])
 
 export const checks = sqliteTable('checks', {
@@ -95,7 +98,8 @@ export const checks = sqliteTable('checks', {
   kind: text('kind', { enum: ['single', 'batch'] }).notNull().default('single'),
   status: text('status', { enum: ['queued', 'running', 'done', 'failed', 'cancelled'] }).notNull().default('done'),
   request: text('request', { mode: 'json' }).notNull().$type<Record<string, unknown>>(),
-  result: text('result', { mode: 'json' }).$type<Record<string, unknown>>(),
+  // A single check's response (batch checks keep theirs per point in check_points).
+  result: text('result', { mode: 'json' }).$type<CheckedResponse>(),
   summary: text('summary', { mode: 'json' }).$type<Record<string, unknown>>(),
   verdict: text('verdict'),
   engineVersion: text('engine_version').notNull(),

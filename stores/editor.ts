@@ -263,7 +263,7 @@ export const useEditorStore = defineStore('editor', () => {
     if (!d) {
       const s = particleSpin(process.value) ?? 1
       if (type === 'leg') {
-        const used = new Set(nodes.value.filter(n => n.type === 'leg').map(n => (n.data as unknown as LegData).label))
+        const used = new Set(nodes.value.filter(n => n.type === 'leg').map(n => n.data.label))
         let label = 1
         while (used.has(label)) label++
         const h = process.value?.helicities[label - 1] ?? (label <= 2 ? -s : s)
@@ -293,7 +293,7 @@ export const useEditorStore = defineStore('editor', () => {
     const dst = swap ? { id: c.source, h: c.sourceHandle } : { id: c.target, h: c.targetHandle }
     const external = a.type === 'leg' || b.type === 'leg'
     const s = particleSpin(process.value) ?? 1
-    let data: LineData
+    let data: LineData & Record<string, unknown>
     if (external) data = { external: true }
     // a loop cut's Lines start open: the check sums their helicities
     else if (kind.value === 'loop-cut') data = {}
@@ -302,7 +302,7 @@ export const useEditorStore = defineStore('editor', () => {
       let h = s
       if (srcNode.type === 'block') {
         const k = Number((src.h ?? 'h0').slice(1))
-        h = (srcNode.data as unknown as BlockData).helicities[k] ?? s
+        h = srcNode.data.helicities[k] ?? s
       }
       else {
         const known = (validation.value.slots[src.id] ?? []).filter(x => x.handle !== src.h && x.helicity !== null).map(x => x.helicity!)
@@ -316,7 +316,7 @@ export const useEditorStore = defineStore('editor', () => {
     }
     const id = newId('e')
     commit(() => {
-      edges.value = [...edges.value, { id, source: src.id, target: dst.id, sourceHandle: src.h ?? null, targetHandle: dst.h ?? null, type: 'line', data: data as unknown as Record<string, unknown> }]
+      edges.value = [...edges.value, { id, source: src.id, target: dst.id, sourceHandle: src.h ?? null, targetHandle: dst.h ?? null, type: 'line', data }]
     })
     return id
   }
@@ -426,7 +426,7 @@ export const useEditorStore = defineStore('editor', () => {
   }
   function canExpand(id: string): boolean {
     const n = nodeById.value.get(id)
-    return n?.type === 'block' && !!specOfNode(id) && ((n.data as unknown as BlockData).terms ?? 0) > 0 && !expansionStale.value
+    return n?.type === 'block' && !!specOfNode(id) && (n.data.terms ?? 0) > 0 && !expansionStale.value
   }
   function expandBlock(id: string): boolean {
     const at = specOfNode(id)

@@ -70,7 +70,7 @@ async function processChunk(job: Job<ChunkJob>): Promise<ChunkResult> {
   if (!(await running(c.checkId))) return { skipped: 'stopped' }
   const pts = (await serial(() => db.select().from(tables.points)
     .where(and(eq(tables.points.pointSetId, c.pointSetId), gte(tables.points.idx, c.from), lt(tables.points.idx, c.to)))
-    .orderBy(asc(tables.points.idx)))).map(r => ({ idx: r.idx, data: r.data as PointData }))
+    .orderBy(asc(tables.points.idx)))).map(r => ({ idx: r.idx, data: r.data }))
   if (pts.length !== c.to - c.from) throw new Error(`points ${c.from}–${c.to - 1} of point set ${c.pointSetId}: found ${pts.length} of ${c.to - c.from}`)
   const mismatch = pts.map(p => codeMismatch(c.plan.process.theory, p.data.codes, c.plan.process.species))
   const todo = pts.filter((_, k) => !mismatch[k])

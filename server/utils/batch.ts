@@ -415,7 +415,7 @@ export async function pointLabels(pointSetId: number | null, idxs: number[]) {
   const rows = await useDB().select({ idx: tables.points.idx, data: tables.points.data }).from(tables.points)
     .where(and(eq(tables.points.pointSetId, pointSetId), inArray(tables.points.idx, idxs)))
   for (const r of rows) {
-    const label = (r.data as PointData).label
+    const label = r.data.label
     if (label !== undefined) out.set(r.idx, label)
   }
   return out

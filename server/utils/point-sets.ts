@@ -160,9 +160,9 @@ export async function storePointSet(input: {
       seed: input.seed ?? null, energy: input.energy ?? null, meta: input.meta, createdBy: input.userId,
     }).returning().get()
     let idx = 0
-    let batch: { pointSetId: number, idx: number, data: Record<string, unknown> }[] = []
+    let batch: { pointSetId: number, idx: number, data: PointData }[] = []
     for (const data of input.points) {
-      batch.push({ pointSetId: set.id, idx: idx++, data: data as Record<string, unknown> })
+      batch.push({ pointSetId: set.id, idx: idx++, data })
       if (batch.length === INSERT_CHUNK) {
         await tx.insert(tables.points).values(batch)
         batch = []
@@ -178,7 +178,7 @@ export async function pointsInRange(pointSetId: number, from: number, to: number
   const rows = await useDB().select().from(tables.points)
     .where(and(eq(tables.points.pointSetId, pointSetId), gte(tables.points.idx, from), lt(tables.points.idx, to)))
     .orderBy(asc(tables.points.idx))
-  return rows.map(r => ({ idx: r.idx, data: r.data as PointData }))
+  return rows.map(r => ({ idx: r.idx, data: r.data }))
 }
 
 /** A download: sets the file name and type. */

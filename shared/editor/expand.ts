@@ -183,8 +183,7 @@ export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos
           const legId = `${comp}-l${label}`
           const data: LegData = { ...origin, label, helicity: x.helicities[slot]! }
           nodes.push(nodeOf(legId, 'leg', { x: 0, y: 0 }, data))
-          const ed: LineData = { ...origin, external: true }
-          edges.push({ id: `${legId}-e`, source: legId, target: x.id, sourceHandle: 'p', targetHandle: `h${slot}`, type: 'line', data: ed as unknown as Record<string, unknown> })
+          edges.push({ id: `${legId}-e`, source: legId, target: x.id, sourceHandle: 'p', targetHandle: `h${slot}`, type: 'line', data: { ...origin, external: true } satisfies LineData })
         }
         else {
           const list = lineEnds.get(l.line) ?? []
@@ -213,8 +212,8 @@ export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos
     for (const [line, ends] of lineEnds) {
       if (ends.length !== 2) continue
       const [a, b] = ends as [typeof ends[0], typeof ends[0]]
-      const ed: LineData = { ...origin, line, helicity: a.h, targetHelicity: b.h }
-      edges.push({ id: `${comp}-${line}`, source: a.id, target: b.id, sourceHandle: `h${a.slot}`, targetHandle: `h${b.slot}`, type: 'line', data: ed as unknown as Record<string, unknown> })
+      const ed = { ...origin, line, helicity: a.h, targetHelicity: b.h } satisfies LineData
+      edges.push({ id: `${comp}-${line}`, source: a.id, target: b.id, sourceHandle: `h${a.slot}`, targetHandle: `h${b.slot}`, type: 'line', data: ed })
     }
   }
   return { nodes, edges }

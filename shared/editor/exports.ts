@@ -3,7 +3,7 @@
 // captioned with the process and the shift so a figure pasted into a paper says what it shows.
 import type { EvaluateResponse, WireComplex } from '../schemas/evaluate'
 import type { Process } from '../schemas/graph'
-import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
+import type { EditorEdge, EditorNode, LineData } from './types'
 import { helicityText, sign } from './types'
 import { absOf, fmtDeviation, fmtReal, phaseOf } from './format'
 import { neutraliseCell } from '../csv-safe'
@@ -136,7 +136,7 @@ export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shif
     const x = n.position.x + ox
     const y = n.position.y + oy
     if (n.type === 'leg') {
-      const d = n.data as unknown as LegData
+      const d = n.data
       const shifted = opts.shift && (opts.shift[0] === d.label || opts.shift[1] === d.label)
       if (shifted) {
         out.push(`<circle cx="${x + w - 2}" cy="${y + 2}" r="9" fill="${PALETTE.accent}" opacity="0.9"/>`)
@@ -155,7 +155,7 @@ export function canvasSvg(nodes: EditorNode[], edges: EditorEdge[], opts: { shif
       out.push(`<text x="${x + w / 2}" y="${y + h / 2 + 5}" font-size="15" font-weight="700" text-anchor="middle" fill="#fff">[ ]</text>`)
     }
     else {
-      const d = n.data as unknown as BlockData
+      const d = n.data
       out.push(`<rect x="${x}" y="${y}" width="${w}" height="${h}" rx="12" fill="${PALETTE.blockLight}" stroke="${PALETTE.block}" stroke-width="1.6"/>`)
       const k = d.helicities.length
       out.push(`<text x="${x + 10}" y="${y + 23}" font-size="12" font-weight="700" fill="${PALETTE.block}">A${[...String(k)].map(c => SUB[c]).join('')}</text>`)

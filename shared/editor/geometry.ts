@@ -1,6 +1,6 @@
 // Node sizes and handle positions, shared by the node components, the layout function and the
 // SVG export, so an exported picture matches the canvas.
-import type { EditorNode } from './types'
+import type { EditorNode, Origin } from './types'
 import { handleCount } from './types'
 
 export const LEG_SIZE = { width: 46, height: 28 }
@@ -71,8 +71,8 @@ export function handleLayout(n: Pick<EditorNode, 'type' | 'data'>): { id: string
 }
 
 /** The slot each handle position shows, after rotation (for labelling a block's rows). */
-export function slotAtPosition(n: Pick<EditorNode, 'type' | 'data'>, position: number, k: number): number {
-  const rot = Number((n.data as { rot?: number }).rot ?? 0) || 0
+export function slotAtPosition(n: { data: Origin }, position: number, k: number): number {
+  const rot = Number(n.data.rot ?? 0) || 0
   return (((position - rot) % k) + k) % k
 }
 

@@ -4,7 +4,7 @@ import type { Process } from '../schemas/graph'
 import type { EvaluateRequestInput, EvaluateResponse, Kinematics, WireTerm } from '../schemas/evaluate'
 import { inOrder, orderProblem, responseToLabels, shiftInOrder } from '../physics/colour-order'
 import { THEORIES, theoryOfSpin } from '../physics/theories'
-import type { EditorEdge, EditorNode, LegData } from './types'
+import type { EditorEdge, EditorNode } from './types'
 import type { Component } from './validate'
 import { helicityAt, isExternal } from './validate'
 
@@ -57,7 +57,7 @@ export function toLabels(r: EvaluateResponse, p: Process): EvaluateResponse {
  * process or a message saying what is missing. The theory follows |h| unless `base` sets it.
  */
 export function processFromCanvas(nodes: EditorNode[], base?: Process): { process: Process } | { error: string } {
-  const legs = nodes.filter(n => n.type === 'leg').map(n => n.data as unknown as LegData)
+  const legs = nodes.filter(n => n.type === 'leg').map(n => n.data)
   if (!legs.length) return { error: 'the canvas has no legs: drag legs from the palette, or set the process in the header and expand' }
   const byLabel = new Map<number, number>()
   for (const l of legs) {
@@ -105,7 +105,7 @@ export function componentChannels(comp: Component, nodes: EditorNode[], edges: E
     ;(adj.get(e.source) ?? adj.set(e.source, []).get(e.source)!).push({ to: e.target, edge: e })
     ;(adj.get(e.target) ?? adj.set(e.target, []).get(e.target)!).push({ to: e.source, edge: e })
   }
-  const labelOf = (id: string) => (byId.get(id)?.type === 'leg' ? (byId.get(id)!.data as unknown as LegData).label : null)
+  const labelOf = (id: string) => { const n = byId.get(id); return n?.type === 'leg' ? n.data.label : null }
   const out: CanvasChannel[] = []
   for (const e of compEdges) {
     if (isExternal(e, byId)) continue

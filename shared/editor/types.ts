@@ -93,7 +93,7 @@ export function helicityText(h: number): string {
 /** Number of handles of a node (vertex 3, block k, leg 1). */
 export function handleCount(n: EditorNode): number {
   if (n.type === 'leg') return 1
-  if (n.type === 'block') return ((n.data as unknown as BlockData).helicities ?? []).length
+  if (n.type === 'block') return (n.data.helicities ?? []).length
   return 3
 }
 

@@ -5,7 +5,7 @@
 // helicities, and momentum routing closes only on a tree holding every external leg once.
 import type { Process } from '../schemas/graph'
 import { THEORIES, spinOf } from '../physics/theories'
-import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
+import type { EditorEdge, EditorNode, LineData } from './types'
 import { handleIds, helicityText, sign } from './types'
 import { compileStructure, type DrawingStructure } from './drawing/structure'
 
@@ -54,7 +54,7 @@ export function helicityAt(edge: EditorEdge, nodeId: string, nodes: Map<string, 
   const d = (edge.data ?? {}) as LineData
   const otherId = edge.source === nodeId ? edge.target : edge.source
   const other = nodes.get(otherId)
-  if (other?.type === 'leg') return (other.data as unknown as LegData).helicity
+  if (other?.type === 'leg') return other.data.helicity
   if (d.helicity === undefined) return null
   if (edge.source === nodeId && edge.target !== nodeId) return d.helicity
   return d.targetHelicity ?? -d.helicity
@@ -125,7 +125,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const slots: Record<string, SlotInfo[]> = {}
   for (const node of nodesIn) {
     if (node.type === 'leg') {
-      const d = node.data as unknown as LegData
+      const d = node.data
       const list = at(node.id, 'p') ?? edges.filter(e => (e.source === node.id || e.target === node.id) && e.source !== e.target)
       if (list.length === 0) add(node.id, 'error', `leg ${d.label} is not attached: connect it to a vertex or a block`)
       if (list.length > 1) add(node.id, 'error', `leg ${d.label} is attached ${list.length} times: an external leg enters exactly one vertex`)
@@ -145,7 +145,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       if (first) {
         const oid = first.source === node.id ? first.target : first.source
         const o = nodes.get(oid)!
-        other = o.type === 'leg' ? { kind: 'leg', label: (o.data as unknown as LegData).label, nodeId: oid } : { kind: 'line', nodeId: oid, edgeId: first.id }
+        other = o.type === 'leg' ? { kind: 'leg', label: o.data.label, nodeId: oid } : { kind: 'line', nodeId: oid, edgeId: first.id }
       }
       info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other })
     }
@@ -175,7 +175,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       }
     }
     else if (node.type === 'block') {
-      const want = (node.data as unknown as BlockData).helicities ?? []
+      const want = node.data.helicities ?? []
       info.forEach((x, t) => {
         if (x.helicity !== null && want[t] !== undefined && x.helicity !== want[t])
           add(node.id, 'error', `slot ${t + 1} expects ${helicityText(want[t]!)} but receives ${helicityText(x.helicity)}`, false)
@@ -220,9 +220,10 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   }
   const components: Component[] = []
   for (const [root, ids] of groups) {
-    const legIds = ids.filter(id => nodes.get(id)!.type === 'leg')
+    const legs = ids.map(id => nodes.get(id)!).filter(nd => nd.type === 'leg')
+    const legIds = legs.map(nd => nd.id)
     const inner = ids.filter(id => nodes.get(id)!.type !== 'leg')
-    const labels = legIds.map(id => (nodes.get(id)!.data as unknown as LegData).label)
+    const labels = legs.map(nd => nd.data.label)
     const lineIds = linesByRoot.get(root) ?? []
     const isTree = (edgeCount.get(root) ?? 0) === ids.length - 1
     components.push({ id: inner[0] ?? ids[0]!, nodeIds: ids, legIds, labels, lineIds, isTree })
@@ -230,8 +231,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     const anchor = inner[0]!
     if (!isTree) add(anchor, 'error', 'a closed loop of lines: a tree-level term has no loops, so momentum routing cannot be fixed')
     const seen = new Map<number, string>()
-    for (const id of legIds) {
-      const l = (nodes.get(id)!.data as unknown as LegData).label
+    for (const { id, data: { label: l } } of legs) {
       if (seen.has(l)) add(id, 'error', `leg ${l} appears twice in this term`)
       seen.set(l, id)
     }

@@ -7,7 +7,6 @@ import { GraphSchema } from '#shared/schemas/graph'
 import { processFromCanvas, matchTerms, componentChannels, toLabels, evaluateRequest } from '#shared/editor/process'
 import { validateGraph } from '#shared/editor/validate'
 import { blockPaths } from '#shared/editor/expand'
-import type { LegData } from '#shared/editor/types'
 
 const doc = (process?: Process) => ({ id: 1, projectId: 1, title: 'T', version: 1, role: 'editor' as const, graph: { schemaVersion: 1 as const, ...(process ? { process } : {}), nodes: [], edges: [] } })
 
@@ -185,7 +184,7 @@ describe('editor store', () => {
     expect(req).toMatchObject({ helicities: [-1, -1, 1, 1], shift: [1, 2] })
     const r = evaluate(req)
     s.applyExpansion(toLabels(r, p).terms, [1, 3], 'structure')
-    const labels = s.nodes.filter(n => n.type === 'leg').map(n => (n.data as unknown as LegData))
+    const labels = s.nodes.filter(n => n.type === 'leg').map(n => n.data)
     for (const l of labels) expect(l.helicity).toBe(p.helicities[l.label - 1])
     expect(s.validation.errorCount).toBe(0)
   })

@@ -24,7 +24,8 @@ export default defineEventHandler(async (event) => {
     ...(process.shift ? { shift: process.shift } : {}),
   }
   precheckProcess(req, 'graph.process.')
-  const graph = body.graph as unknown as { nodes: EditorNode[], edges: EditorEdge[] }
+  // GraphSchema checked node kinds, not each kind's data; drawingGraph keeps only what the drawing reads.
+  const graph = body.graph as { nodes: EditorNode[], edges: EditorEdge[] }
   const order = process.order ? { order: process.order } : {}
   try {
     const task = hasDrawnTerms(graph.nodes)

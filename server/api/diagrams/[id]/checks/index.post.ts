@@ -23,6 +23,7 @@ export default defineEventHandler(async (event) => {
   }
   precheckProcess(req, 'graph.process.')
   const t0 = performance.now()
+  // Saved through GraphSchema (node kinds checked, not each kind's data); drawingGraph keeps only what it reads.
   const graph = diagram.graph as { nodes?: EditorNode[], edges?: EditorEdge[] }
   const drawn = hasDrawnTerms(graph.nodes ?? [])
   const order = process.order ? { order: process.order } : {}
@@ -44,7 +45,7 @@ export default defineEventHandler(async (event) => {
     kind: 'single',
     status: 'done',
     request: { ...req, ...(process.order ? { order: process.order } : {}) },
-    result: result as unknown as Record<string, unknown>,
+    result,
     summary: checkSummary(req, process, result),
     verdict: result.verdict,
     engineVersion: result.engine.version,
