@@ -13,7 +13,6 @@ import { fileURLToPath } from 'node:url'
 import Tinypool from 'tinypool'
 import { configureConnection, tables, useClient, useDB } from '../utils/db'
 import { codeMismatch, requestFor, rowOf } from '../utils/batch'
-import type { PointData } from '#shared/pointsets'
 import type { BatchValue, Outcome } from '../workers/tasks'
 import { QUEUE_NAME, queueTimings, redisLabel, redisOptions, storeChunk, type ChunkJob, type ChunkResult } from './shared'
 
