@@ -14,6 +14,7 @@ import { blockPaths, collapseSpec, compId, expandAllSpecs, specsToGraph, type Co
 import { matchTerms, processFromCanvas, processKey } from '#shared/editor/process'
 import { layoutGraph } from '#shared/editor/layout'
 import { collapsedCount, openOne, readableSpecs } from '#shared/editor/collapse'
+import { processSpecies } from '#shared/editor/species'
 
 export interface Expansion {
   /** processKey() of the process it was made for. */
@@ -360,7 +361,7 @@ export const useEditorStore = defineStore('editor', () => {
   function rebuild(specs: CompSpec[]) {
     if (!tree.value || !process.value) return
     const t0 = performance.now()
-    const g = specsToGraph(tree.value, specs)
+    const g = specsToGraph(tree.value, specs, undefined, processSpecies(process.value) ?? undefined)
     nodes.value = layoutGraph(g.nodes, g.edges)
     // Read by the browser benchmark (bench/editor.ts).
     lastLayoutMs.value = performance.now() - t0
