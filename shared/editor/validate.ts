@@ -178,7 +178,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
         const sum = hv[0]! + hv[1]! + hv[2]!
         const txt = () => `(${hv.map(sign).join(',')})`
         const allSame = hv.every(h => h > 0) || hv.every(h => h < 0)
-        if ((s !== null && s > 0 || species) && allSame) addKind(node.id, `helicities ${txt()}: ${THEORIES[process!.theory].particles} have no three-point amplitude with all helicities equal`)
+        if (((s !== null && s > 0) || species) && allSame) addKind(node.id, `helicities ${txt()}: ${THEORIES[process!.theory].particles} have no three-point amplitude with all helicities equal`)
         else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt()} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
         else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt()} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
         else if (sum === 0 && s !== 0 && (s !== null || species)) addKind(node.id, `helicities ${txt()} sum to 0: only scalars have such a vertex`)

@@ -3,7 +3,7 @@
 // shift gives the same amplitude (BCFW under different shifts, the consistency check itself),
 // and bad species are a 422 naming the field.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { Client, newUser } from '../helpers/api'
+import { newUser, type Client } from '../helpers/api'
 
 let u: Client
 beforeAll(async () => {
