@@ -57,6 +57,7 @@ describe('quark legs and lines in the editor', () => {
     const badges = await page.locator('[data-test=line-badge]').allTextContents()
     expect(badges.some(b => b.includes('1/2'))).toBe(true)
     expect(await nodesOutside(page)).toEqual([])
+    await page.click('[data-test=tab-check]')
     await page.click('[data-test=evaluate]')
     await page.waitForSelector('[data-test=results]', { timeout: 60_000 })
     await page.waitForSelector('[data-test=evaluate]:not([disabled])', { timeout: 90_000 })
