@@ -12,6 +12,8 @@ export default {
         angle: { DEFAULT: '#0f8b8d', light: '#d5efef' },
         square: { DEFAULT: '#e04e2b', light: '#fbe0d8' },
         block: { DEFAULT: '#52606d', light: '#e4e8ec' },
+        // Quark legs and Lines, and their fermion-flow arrows.
+        fermion: { DEFAULT: '#7b4a26', light: '#f1e4d6' },
         verdict: { agrees: '#2f7d32', disagrees: '#c62828', boundary: '#b26a00', singular: '#6a1b9a', none: '#6b7280' },
       },
       fontFamily: {

@@ -11,6 +11,7 @@ import { alternativeShift } from '#shared/physics/falloff'
 import { processOf } from '#shared/physics/theories'
 import type { Process } from '#shared/schemas/graph'
 import { useEditorStore } from '~~/stores/editor'
+import { processSpecies } from '#shared/editor/species'
 import { errMessage, type Say } from './useEditorNotice'
 
 export interface StoredCheck { id: number, kind?: string, status?: string, batchId?: number | null, result: EvaluateResponse | null, diagramVersion: number | null, summary?: { target?: string | null } | null }
@@ -33,15 +34,18 @@ async function measureFalloff(p: Process, res: EvaluateResponse, step: (s: strin
   const base = await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: evaluateRequest({ ...p, shift: res.shift }, { kinematics: { kind: 'rational', seed: 'falloff' }, target: 'none', arithmetic: 'exact' }) })
   tick()
   const hOrd = order.map(l => p.helicities[l - 1]!)
+  // Several species (qcd): the species in the colour order, for the process and every request.
+  const sp = processSpecies(p)
+  const spOrd = sp ? { species: order.map(l => sp[l - 1]!) } : {}
   const [i, j] = [pos(res.shift[0]), pos(res.shift[1])]
-  const alt = alternativeShift(processOf(p.theory, p.spin), hOrd, i, j)
+  const alt = alternativeShift(processOf(p.theory, p.spin, sp ? hOrd : undefined, spOrd.species), hOrd, i, j)
   const lam = base.kinematics.lambda as [string, string][]
   const lamT = base.kinematics.lambdaTilde as [string, string][]
   const points: FalloffPoints['points'] = []
   for (const z of FALLOFF_Z) {
     step(`falloff: A(z) at z = 1e${z.toString().length - 1}`)
     const shifted = shiftExact(lam, lamT, i, j, z)
-    const r = await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: hOrd, kinematics: { kind: 'exact-spinors', ...shifted }, shift: [alt[0] + 1, alt[1] + 1], arithmetic: 'exact', target: 'none' } })
+    const r = await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: hOrd, ...spOrd, kinematics: { kind: 'exact-spinors', ...shifted }, shift: [alt[0] + 1, alt[1] + 1], arithmetic: 'exact', target: 'none' } })
     tick()
     if (!r.value) throw new Error(`A(z) is singular at z = ${z}`)
     const y = log10Abs(r.value)
@@ -138,7 +142,8 @@ export function useCheckRun(ctx: Ctx) {
       step('cross-shift check')
       try {
         const order = orderOf(p)
-        const cs = await $fetch<CrossShiftResponse>('/api/cross-shift', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: order.map(l => p!.helicities[l - 1]!), kinematics: kin.kinematics, arithmetic: s.arithmetic } })
+        const sp = processSpecies(p)
+        const cs = await $fetch<CrossShiftResponse>('/api/cross-shift', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: order.map(l => p!.helicities[l - 1]!), ...(sp ? { species: order.map(l => sp[l - 1]!) } : {}), kinematics: kin.kinematics, arithmetic: s.arithmetic } })
         cross.value = { ...cs, rows: cs.rows.map(r => ({ ...r, shift: [order[r.shift[0] - 1]!, order[r.shift[1] - 1]!] as [number, number] })) }
       }
       catch (e) {

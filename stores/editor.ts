@@ -16,6 +16,7 @@ import { layoutGraph } from '#shared/editor/layout'
 import { collapsedCount, openOne, readableSpecs } from '#shared/editor/collapse'
 import { boxRings, diagramKindOf, tidyRings, validateLoopCut, type DiagramKind, type LoopCutValidation } from '#shared/editor/loop-cut'
 import type { LoopCutDrawingResult } from '#shared/editor/loop-cut-check'
+import { processSpecies } from '#shared/editor/species'
 
 export interface Expansion {
   /** processKey() of the process it was made for. */
@@ -391,7 +392,7 @@ export const useEditorStore = defineStore('editor', () => {
   function rebuild(specs: CompSpec[]) {
     if (!tree.value || !process.value) return
     const t0 = performance.now()
-    const g = specsToGraph(tree.value, specs)
+    const g = specsToGraph(tree.value, specs, undefined, processSpecies(process.value) ?? undefined)
     nodes.value = layoutGraph(g.nodes, g.edges)
     // Read by the browser benchmark (bench/editor.ts).
     lastLayoutMs.value = performance.now() - t0

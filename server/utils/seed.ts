@@ -25,6 +25,7 @@ export const demoDiagrams: { title: string, graph: Graph }[] = [
   { title: 'Six gluons, alternating (−+−+−+)', graph: expandedGraph({ theory: 'gluon', helicities: [-1, 1, -1, 1, -1, 1], shift: [1, 2] }) },
   { title: 'Four gravitons: consistency test', graph: expandedGraph({ theory: 'graviton', helicities: [-2, -2, 2, 2], shift: [1, 2] }, true) },
   { title: 'Bad shift: four gluons under [+,−⟩', graph: expandedGraph({ theory: 'gluon', helicities: [-1, -1, 1, 1], shift: [3, 1] }, true) },
+  { title: 'A quark line: q̄⁻ q⁺ g⁻ g⁺ under [3,1⟩', graph: expandedGraph({ theory: 'qcd', helicities: [-0.5, 0.5, -1, 1], species: ['qbar1', 'q1', 'g', 'g'], shift: [3, 1] }, true) },
 ]
 
 export async function seedDemo() {

@@ -197,9 +197,9 @@ export function evaluateInOrder(input: EvaluateRequestInput, order: number[]): E
 function shifts(input: unknown): ShiftsResponse {
   const t0 = performance.now()
   const req = ShiftsRequestSchema.parse(input)
-  const { process: p } = validateProcess(req.theory, req.helicities, 'float', req.spin)
+  const { process: p } = validateProcess(req.theory, req.helicities, 'float', req.spin, req.species)
   const n = req.helicities.length
-  const table = falloffTable(req.theory, req.helicities, req.spin)
+  const table = falloffTable(req.theory, req.helicities, req.spin, req.species)
   const needsProbe = req.measure || table.some((r) => r.exponent === null)
   const limit = shiftsMeasureLimit(req.theory)
   if (needsProbe && n > limit)
@@ -215,6 +215,7 @@ function shifts(input: unknown): ShiftsResponse {
     ...(req.theory === 'spin' ? { spin: req.spin } : {}),
     n,
     helicities: req.helicities,
+    ...(req.species ? { species: req.species } : {}),
     defaultShift: [d[0] + 1, d[1] + 1],
     rows,
     ms: round3(performance.now() - t0),
@@ -224,7 +225,7 @@ function shifts(input: unknown): ShiftsResponse {
 function crossShiftTask(input: unknown): CrossShiftResponse {
   const t0 = performance.now()
   const req = CrossShiftRequestSchema.parse(input)
-  const { process: p, warnings } = validateProcess(req.theory, req.helicities, req.arithmetic, req.spin)
+  const { process: p, warnings } = validateProcess(req.theory, req.helicities, req.arithmetic, req.spin, req.species)
   const n = req.helicities.length
   const kin: Kinematics = req.kinematics ?? (req.arithmetic === 'exact' ? { kind: 'rational', seed: 1 } : { kind: 'random', seed: 1 })
   const pt = buildPoint(kin, n, req.arithmetic)

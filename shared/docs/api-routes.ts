@@ -175,8 +175,9 @@ export const API_SECTIONS: ApiSection[] = [
         examples: [
           example(ShiftsRequestSchema, 'the table for six gluons', { theory: 'gluon', helicities: [-1, -1, 1, -1, 1, 1] }),
           example(ShiftsRequestSchema, 'measured, spin 3', { theory: 'spin', spin: 3, helicities: [-3, -3, 3, 3], measure: true }),
+          example(ShiftsRequestSchema, 'a quark line and three gluons (species per leg)', { theory: 'qcd', helicities: [-0.5, 0.5, -1, 1, 1], species: ['qbar1', 'q1', 'g', 'g', 'g'] }),
         ],
-        response: '`{ theory, n, helicities, defaultShift, rows: [{ shift: [i, j], exponent, valid, source: "table" | "measured" }], ms }`.',
+        response: '`{ theory, n, helicities, species?, defaultShift, rows: [{ shift: [i, j], exponent, valid, source: "table" | "measured" }], ms }`.',
         statuses: [[200, 'the shifts'], [400, 'the body fails the schema'], [422, 'invalid process, or n over the limit'], [503, 'over the time budget'], ...commonErrors], runnable: true,
       },
       {
@@ -184,6 +185,7 @@ export const API_SECTIONS: ApiSection[] = [
         schema: CrossShiftRequestSchema,
         examples: [
           example(CrossShiftRequestSchema, 'four gravitons (consistent)', { theory: 'graviton', helicities: [-2, -2, 2, 2] }),
+          example(CrossShiftRequestSchema, 'q̄ q g g (species per leg)', { theory: 'qcd', helicities: [-0.5, 0.5, -1, 1], species: ['qbar1', 'q1', 'g', 'g'] }),
           example(CrossShiftRequestSchema, 'spin 3, exact (inconsistent)', { theory: 'spin', spin: 3, helicities: [-3, -3, 3, 3], kinematics: { kind: 'rational', seed: 2 }, arithmetic: 'exact' }),
         ],
         response: '`{ theory, n, arithmetic, rows: [{ shift, valid, value }], spread, agree, test, poles?, tolerance, kinematics, warnings, ms }`; `spread` is the largest |v_a − v_b| / max |v| among valid shifts; `test` is `shifts`, or `factorisation` for a single scalar species (spin 0), whose every shift has a boundary term: then `poles` lists each pole with whether the sum of all cubic diagrams has the residue A_L·A_R there.',

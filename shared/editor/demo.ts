@@ -8,6 +8,7 @@ import { expandAllSpecs, specsToGraph, STRUCTURE_SEED, topSpecs } from './expand
 import { evaluateRequest, processKey, toLabels } from './process'
 import { layoutGraph } from './layout'
 import { readableSpecs } from './collapse'
+import { processSpecies } from './species'
 
 /** `full`: every Block opened; 'readable': as Expand fully does it (collapse.ts). */
 export function expandedGraph(process: Process, full: boolean | 'readable' = false): Graph {
@@ -19,7 +20,7 @@ export function graphFromTree(process: Process, response: EvaluateResponse, full
   const res = toLabels(response, process)
   const p: Process = { ...process, shift: res.shift }
   const specs = full === 'readable' ? readableSpecs(res.terms, true) : full ? expandAllSpecs(res.terms, topSpecs(res.terms)) : topSpecs(res.terms)
-  const g = specsToGraph(res.terms, specs)
+  const g = specsToGraph(res.terms, specs, undefined, processSpecies(p) ?? undefined)
   return {
     schemaVersion: GRAPH_SCHEMA_VERSION,
     process: p,

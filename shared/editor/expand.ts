@@ -7,6 +7,8 @@ import type { WireLeg, WireSubAmplitude, WireTerm, WireVertex } from '../schemas
 import type { BlockData, EditorEdge, EditorNode, LegData, LineData, VertexData } from './types'
 import { nodeOf } from './types'
 import { bestRotation } from './geometry'
+import { codeOf, lineCodes, type SlotSpec } from './species'
+import { speciesOfPdg } from '../physics/quarks'
 
 export interface CompSpec {
   /** Index of the top-level term. */
@@ -137,9 +139,10 @@ interface Shown { id: string, kind: 'angle' | 'square' | 'block', legs: WireLeg[
 
 /**
  * The nodes and edges of the components (positions 0,0: the layout function places them).
- * `labelOf` maps the server's leg positions 1..n to the diagram's labels (colour order).
+ * `labelOf` maps the server's leg positions 1..n to the diagram's labels (colour order); `species`
+ * (by label, theory qcd) puts species on legs and on quark Lines.
  */
-export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos: number) => number = p => p): { nodes: EditorNode[], edges: EditorEdge[] } {
+export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos: number) => number = p => p, species?: readonly string[]): { nodes: EditorNode[], edges: EditorEdge[] } {
   const nodes: EditorNode[] = []
   const edges: EditorEdge[] = []
   for (const spec of specs) {
@@ -181,7 +184,7 @@ export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos
         if ('label' in l) {
           const label = labelOf(l.label)
           const legId = `${comp}-l${label}`
-          const data: LegData = { ...origin, label, helicity: x.helicities[slot]! }
+          const data: LegData = { ...origin, label, helicity: x.helicities[slot]!, ...(species ? { species: species[label - 1] ?? 'g' } : {}) }
           nodes.push(nodeOf(legId, 'leg', { x: 0, y: 0 }, data))
           edges.push({ id: `${legId}-e`, source: legId, target: x.id, sourceHandle: 'p', targetHandle: `h${slot}`, type: 'line', data: { ...origin, external: true } satisfies LineData })
         }
@@ -209,10 +212,12 @@ export function specsToGraph(terms: WireTerm[], specs: CompSpec[], labelOf: (pos
       const rot = bestRotation(nd.type, w.length, w)
       if (rot) nd.data = { ...nd.data, rot }
     }
+    const codes = species ? lineCodes(new Map(shown.map(x => [x.id, x.legs.map((l, slot): SlotSpec => ('label' in l ? { code: codeOf(species[labelOf(l.label) - 1]) } : { line: l.line, h: x.helicities[slot]! }))])), lineEnds) : null
     for (const [line, ends] of lineEnds) {
       if (ends.length !== 2) continue
       const [a, b] = ends as [typeof ends[0], typeof ends[0]]
-      const ed = { ...origin, line, helicity: a.h, targetHelicity: b.h } satisfies LineData
+      const code = codes?.get(line)
+      const ed = { ...origin, line, helicity: a.h, targetHelicity: b.h, ...(code !== undefined && code !== 21 ? { species: speciesOfPdg(code) } : {}) } satisfies LineData
       edges.push({ id: `${comp}-${line}`, source: a.id, target: b.id, sourceHandle: `h${a.slot}`, targetHandle: `h${b.slot}`, type: 'line', data: ed })
     }
   }

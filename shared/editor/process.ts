@@ -30,6 +30,7 @@ export function evaluateRequest(p: Process, opts: { kinematics: Kinematics | Eva
     theory: p.theory,
     ...(THEORIES[p.theory].needsSpin ? { spin: p.spin } : {}),
     helicities: inOrder(p.helicities, order),
+    ...(p.species && THEORIES[p.theory].species.length > 1 ? { species: inOrder(p.species, order) } : {}),
     kinematics: opts.kinematics,
     ...(p.shift ? { shift: shiftInOrder(p.shift, order) } : {}),
     target: opts.target ?? 'auto',
@@ -169,5 +170,5 @@ export function matchTerms(p: Process, terms: WireTerm[], comps: Component[], no
 
 /** Identifies the process an expansion was made for. */
 export function processKey(p: Process): string {
-  return JSON.stringify([p.theory, p.spin ?? null, p.helicities, orderOf(p), p.shift ?? null])
+  return JSON.stringify([p.theory, p.spin ?? null, p.helicities, orderOf(p), p.shift ?? null, ...(p.species ? [p.species] : [])])
 }

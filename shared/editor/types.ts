@@ -21,6 +21,8 @@ export interface LegData extends Origin {
   label: number
   /** Outgoing helicity. */
   helicity: number
+  /** Species (theory qcd: "g", "q1", "qbar1", …); absent: the theory's only species, or a gluon. */
+  species?: string
 }
 
 export interface VertexData extends Origin {
@@ -43,6 +45,8 @@ export interface LineData extends Origin {
   /** Internal on-shell line: helicity at the source end (the target end carries −h unless set). */
   helicity?: number
   targetHelicity?: number
+  /** Theory qcd: the species leaving the source end (the target end carries its antiparticle); absent: a gluon. */
+  species?: string
   /** Line name from the term tree (L1, L2, …). */
   line?: string
   /** An attachment of an external leg (solid, no badge). */

@@ -8,6 +8,7 @@ import { THEORIES, spinOf } from '../physics/theories'
 import type { EditorEdge, EditorNode, LineData } from './types'
 import { handleIds, helicityText, sign } from './types'
 import { compileStructure, type DrawingStructure } from './drawing/structure'
+import { codeAt, codeOf, processSpecies, speciesSpin, speciesText, vertexFlowProblem } from './species'
 
 export interface Issue {
   level: 'error' | 'warning'
@@ -21,6 +22,8 @@ export interface SlotInfo {
   helicity: number | null
   /** What sits at the other end: a leg label, a line, or nothing. */
   other: { kind: 'leg', label: number, nodeId: string } | { kind: 'line', nodeId: string, edgeId: string } | null
+  /** Theory qcd: PDG code of the species leaving the node at this slot (species.ts codeAt). */
+  code?: number
 }
 
 export interface Component {
@@ -85,7 +88,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     add(id, 'error', message, false)
     kindIssues.set(id, issues[id]!.at(-1)!)
   }
-  const s = particleSpin(process)
+  const species = processSpecies(process)
+  // Several species: |h| follows each leg's or Line's species, not one spin.
+  const s = species ? null : particleSpin(process)
   const n = process?.helicities.length ?? 0
 
   // Edges at each (node, handle).
@@ -118,6 +123,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
         addEdge(e.id, 'error', msg, false)
         add(e.target, 'error', msg, false)
       }
+      if (species && Math.abs(d.helicity) !== speciesSpin(d.species)) addEdge(e.id, 'error', `helicity ${helicityText(d.helicity)} on a ${d.species ? 'quark' : 'gluon'} line, whose helicities are ${d.species ? '±1/2' : '±1'}`, false)
       if (s !== null && Math.abs(d.helicity) !== s) addEdge(e.id, 'error', `helicity ${helicityText(d.helicity)} on a line of ${THEORIES[process!.theory].particles}, whose helicities are ${s === 0 ? '0' : `±${s}`}`)
     }
   }
@@ -132,8 +138,10 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       if (process) {
         if (!Number.isInteger(d.label) || d.label < 1 || d.label > n) add(node.id, 'error', `leg ${d.label} does not exist (legs are 1..${n})`)
         else if (process.helicities[d.label - 1] !== d.helicity) add(node.id, 'error', `leg ${d.label} is ${helicityText(d.helicity)} here but ${helicityText(process.helicities[d.label - 1]!)} in the process`)
+        else if (species && codeOf(d.species) !== codeOf(species[d.label - 1])) add(node.id, 'error', `leg ${d.label} is ${speciesText(d.species)} here but ${speciesText(species[d.label - 1])} in the process`)
       }
       if (s !== null && Math.abs(d.helicity) !== s) add(node.id, 'error', `helicity ${helicityText(d.helicity)} does not belong to ${THEORIES[process!.theory].particles} (${s === 0 ? '0' : `±${s}`})`)
+      if (species && Math.abs(d.helicity) !== speciesSpin(d.species)) add(node.id, 'error', `helicity ${helicityText(d.helicity)} does not belong to a ${d.species && speciesSpin(d.species) < 1 ? 'quark' : 'gluon'} (${speciesSpin(d.species) < 1 ? '±1/2' : '±1'})`)
       continue
     }
     const info: SlotInfo[] = []
@@ -147,7 +155,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
         const o = nodes.get(oid)!
         other = o.type === 'leg' ? { kind: 'leg', label: o.data.label, nodeId: oid } : { kind: 'line', nodeId: oid, edgeId: first.id }
       }
-      info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other })
+      info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other, ...(species && first ? { code: codeAt(first, node.id, nodes) } : {}) })
     }
     slots[node.id] = info
     // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
@@ -163,15 +171,17 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     for (const c of crowded) add(node.id, 'error', `slot ${Number(c.handle.slice(1)) + 1} has ${c.edges.length} connections: one leg or line per slot`)
     const hs = info.map(x => x.helicity)
     if (node.type === 'angle' || node.type === 'square') {
+      const flow = species && info.every(x => x.code !== undefined) ? vertexFlowProblem(info.map(x => x.code!)) : null
+      if (flow) add(node.id, 'error', flow, false)
       if (hs.every(h => h !== null)) {
         const hv = hs as number[]
         const sum = hv[0]! + hv[1]! + hv[2]!
         const txt = () => `(${hv.map(sign).join(',')})`
         const allSame = hv.every(h => h > 0) || hv.every(h => h < 0)
-        if (s !== null && s > 0 && allSame) addKind(node.id, `helicities ${txt()}: ${THEORIES[process!.theory].particles} have no three-point amplitude with all helicities equal`)
+        if (((s !== null && s > 0) || species) && allSame) addKind(node.id, `helicities ${txt()}: ${THEORIES[process!.theory].particles} have no three-point amplitude with all helicities equal`)
         else if (sum < 0 && node.type === 'square') addKind(node.id, `helicities ${txt()} sum to −${Math.abs(sum)} < 0: this is an angle vertex, not a square vertex`)
         else if (sum > 0 && node.type === 'angle') addKind(node.id, `helicities ${txt()} sum to +${sum} > 0: this is a square vertex, not an angle vertex`)
-        else if (sum === 0 && s !== 0 && s !== null) addKind(node.id, `helicities ${txt()} sum to 0: only scalars have such a vertex`)
+        else if (sum === 0 && s !== 0 && (s !== null || species)) addKind(node.id, `helicities ${txt()} sum to 0: only scalars have such a vertex`)
       }
     }
     else if (node.type === 'block') {

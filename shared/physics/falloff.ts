@@ -164,8 +164,9 @@ export interface FalloffRow {
 }
 
 /** Exponent and validity of every [i,j⟩ shift by the falloff table (docs/conventions.md), for the editor. */
-export function falloffTable(theory: TheoryName, helicities: number[], spin?: number): FalloffRow[] {
-  const p = processOf(theory, spin)
+export function falloffTable(theory: TheoryName, helicities: number[], spin?: number, species?: readonly string[]): FalloffRow[] {
+  // with species (qcd) the process carries the legs' codes, which the table rules read
+  const p = species ? processOf(theory, spin, helicities, species) : processOf(theory, spin)
   const n = helicities.length
   const rows: FalloffRow[] = []
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {

@@ -21,6 +21,8 @@ export const ProcessRequestSchema = z.object({
   theory: TheoryEnum,
   spin: z.number().optional(),
   helicities: z.array(z.number()).min(1).max(64),
+  /** Several species (theory qcd), one name per leg as in POST /api/evaluate; checked by the engine (422). */
+  species: z.array(z.string().max(16)).max(64).optional(),
 })
 
 /** POST /api/shifts: every [i,j⟩ shift with its falloff exponent and validity. */
@@ -57,6 +59,8 @@ export interface ShiftsResponse {
   spin?: number
   n: number
   helicities: number[]
+  /** Echoed when the request gave species per leg. */
+  species?: string[]
   /** The shift POST /api/evaluate uses when none is given. */
   defaultShift: [number, number]
   rows: ShiftRow[]

@@ -6,6 +6,7 @@
 import type { Process } from '../../physics/theories'
 import type { Process as GraphProcess } from '../../schemas/graph'
 import { helicityText } from '../types'
+import { codeOf, processSpecies } from '../species'
 import { channelText, engineProcess, liveChannels, type DrawnPart, type DrawingStructure } from './structure'
 
 export interface ChannelRef {
@@ -75,7 +76,7 @@ function cover(p: Process, parts: DrawnPart[], context: () => string, lineName: 
   const names = () => first.legs.map(l => legName(l, lineName))
   const sh = () => `[${names()[a]}, ${names()[b]}⟩`
   const out: Problem[] = []
-  const live = liveChannels(p, first.helicities, first.shift)
+  const live = liveChannels(p, first.helicities, first.shift, first.pdg)
   const chKey = (L: readonly number[], h: number) => `${[...L].sort((u, v) => u - v).join(',')}|${h}`
   const groups = new Map<string, typeof terms>()
   for (const t of terms) {
@@ -137,7 +138,8 @@ export function compareDrawing(process: GraphProcess, s: DrawingStructure, lineN
   const h = order.map(l => process.helicities[l - 1]!)
   const shift: [number, number] = [pos.get(s.shift[0])!, pos.get(s.shift[1])!]
   const sh = `[${s.shift[0]}, ${s.shift[1]}⟩`
-  const live = liveChannels(p, h, shift).map(c => ({ left: c.L.map(t => order[t]!).sort((a, b) => a - b), helicity: c.helicity }))
+  const species = processSpecies(process)
+  const live = liveChannels(p, h, shift, species ? order.map(l => codeOf(species[l - 1])) : undefined).map(c => ({ left: c.L.map(t => order[t]!).sort((a, b) => a - b), helicity: c.helicity }))
   const key = (left: number[], hh: number) => `${left.join(',')}|${hh}`
   const liveKeys = new Set(live.map(c => key(c.left, c.helicity)))
   const liveChannelsOnly = new Set(live.map(c => c.left.join(',')))

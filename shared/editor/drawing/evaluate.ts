@@ -4,7 +4,9 @@
 // kinematics (channelKinematics: z*, the split of P̂, −P̂ as (λ_P, −λ̃_P)), every Block is the
 // engine's sub-amplitude and every vertex its three-point amplitude, so a drawing of the engine's
 // own term tree gives the engine's value.
-import { channelKinematics, subAmplitudeValue } from '../../physics/bcfw'
+import { FERMION_EXCHANGE_SIGN, channelKinematics, subAmplitudeValue } from '../../physics/bcfw'
+import { isQuarkCode } from '../../physics/quarks'
+import { codeOf, processSpecies } from '../species'
 import { Complex, SingularError, complexField, parseRational, rationalField, type Field } from '../../physics/field'
 import { ddField, ddOf } from '../../physics/double-double'
 import { toDoubleDouble } from '../../physics/kinematics'
@@ -67,21 +69,28 @@ function parsersFor(arithmetic: 'float' | 'exact', theory: string): Parsers<unkn
   const sp = (s: unknown): Spinor<Complex> => [c((s as unknown[])[0]), c((s as unknown[])[1])]
   const kinC = (w: { lambda: unknown[], lambdaTilde: unknown[] }): Kin<Complex> => ({ lambda: w.lambda.map(sp), lambdaTilde: w.lambdaTilde.map(sp) })
   // The engine's float field: doubles for gluons, double-double for the rest (DEVELOPERS.md "Precision").
-  if (theory === 'gluon') return { F: complexField as Field<unknown>, num: w => c(w), kin: kinC as Parsers<unknown>['kin'] }
+  if (theory === 'gluon' || theory === 'qcd') return { F: complexField as Field<unknown>, num: w => c(w), kin: kinC as Parsers<unknown>['kin'] }
   return { F: ddField as Field<unknown>, num: w => ddOf(Number(w[0]), Number(w[1])), kin: w => toDoubleDouble(kinC(w)) as Kin<unknown> }
 }
 
 /** The value of a drawn part at the kinematics of its legs (in the part's leg order). */
 export function partValue<T>(F: Field<T>, p: Process, x: DrawnPart, k: Kin<T>): T {
-  if (x.kind === 'vertex') return x.zero ? F.zero : threePoint(F, p, k, x.helicities, x.vertexKind)
+  if (x.kind === 'vertex') return x.zero ? F.zero : threePoint(F, p, k, x.helicities, x.vertexKind, undefined, x.pdg)
   if (x.kind === 'block') {
-    if (x.zero || vanishes(p, x.helicities)) return F.zero
-    return x.helicities.length === 3 ? F.zero : subAmplitudeValue(F, p, k, x.helicities)
+    if (x.zero || vanishes(p, x.helicities, x.pdg)) return F.zero
+    return x.helicities.length === 3 ? F.zero : subAmplitudeValue(F, p, k, x.helicities, x.pdg)
   }
   const ck = channelKinematics(F, k, x.shift, x.L, x.R)
+  return termValue(F, p, x, ck)
+}
+
+/** A_L · A_R / P² of a drawn channel, with the recursion's −1 when a quark is exchanged (docs/conventions.md "Quarks"). */
+function termValue<T>(F: Field<T>, p: Process, x: Extract<DrawnPart, { kind: 'term' }>, ck: { kL: Kin<T>, kR: Kin<T>, P2: T }): T {
   const left = partValue(F, p, x.left, ck.kL)
   if (F.isZero(left)) return F.zero
-  return F.div(F.mul(left, partValue(F, p, x.right, ck.kR)), ck.P2)
+  const v = F.div(F.mul(left, partValue(F, p, x.right, ck.kR)), ck.P2)
+  const exchanged = x.left.pdg?.at(-1)
+  return exchanged !== undefined && isQuarkCode(exchanged) && FERMION_EXCHANGE_SIGN < 0 ? F.neg(v) : v
 }
 
 export interface DrawnValues<T> {
@@ -105,8 +114,7 @@ export function drawnValues<T>(F: Field<T>, process: GraphProcess, s: DrawingStr
     if (!t.plan || t.plan.kind !== 'term') { terms.push({ id: t.id, value: null, z: null, pole: null, singular: null }); continue }
     try {
       const ck = channelKinematics(F, k0, t.plan.shift, t.plan.L, t.plan.R)
-      const left = partValue(F, p, t.plan.left, ck.kL)
-      const v = F.isZero(left) ? F.zero : F.div(F.mul(left, partValue(F, p, t.plan.right, ck.kR)), ck.P2)
+      const v = termValue(F, p, t.plan, ck)
       sum = F.add(sum, v)
       terms.push({ id: t.id, value: v, z: ck.z, pole: ck.P2, singular: null })
     }
@@ -129,8 +137,8 @@ export function drawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }):
     return out
   }
   return {
-    nodes: (g.nodes ?? []).map(n => nodeOf(n.id, n.type, { x: 0, y: 0 }, pick(n.data, n.type === 'leg' ? ['label', 'helicity'] : n.type === 'block' ? ['helicities'] : []))),
-    edges: (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, data: pick(e.data, ['helicity', 'targetHelicity', 'line', 'external']) })),
+    nodes: (g.nodes ?? []).map(n => nodeOf(n.id, n.type, { x: 0, y: 0 }, pick(n.data, n.type === 'leg' ? ['label', 'helicity', 'species'] : n.type === 'block' ? ['helicities'] : []))),
+    edges: (g.edges ?? []).map(e => ({ id: e.id, source: e.source, target: e.target, sourceHandle: e.sourceHandle ?? null, targetHandle: e.targetHandle ?? null, data: pick(e.data, ['helicity', 'targetHelicity', 'line', 'external', 'species']) })),
   }
 }
 
@@ -190,14 +198,16 @@ export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph
   const p = engineProcess(proc)!
   const order = p.colourOrdered && proc.order?.length === n ? proc.order : Array.from({ length: n }, (_, t) => t + 1)
   const hOrdered = order.map(l => proc.helicities[l - 1]!)
+  const species = processSpecies(proc)
+  const codes = species ? order.map(l => codeOf(species[l - 1])) : undefined
   const pos = (l: number) => order.indexOf(l)
   const target = res.target?.value ? P.num(res.target.value) : null
   let verdict = decideVerdict({
     singular: !!singular,
     targetNone: res.target === null,
-    shiftValidByTable: isValidShift(p, hOrdered, pos(res.shift[0]), pos(res.shift[1])),
+    shiftValidByTable: isValidShift(p, hOrdered, pos(res.shift[0]), pos(res.shift[1]), codes),
     probedExponent: res.falloff ? res.falloff.exponent : null,
-    vanishing: vanishes(p, hOrdered),
+    vanishing: vanishes(p, hOrdered, codes),
     arithmetic: res.arithmetic,
     n,
     deviation: deviation ?? Infinity,

@@ -6,11 +6,13 @@
 // made from the engine's term tree reads back as exactly that tree. The three-point kind at a pole is
 // structural: the side holding the λ̃-shifted leg is an angle vertex, the other a square vertex.
 import type { Process as GraphProcess } from '../../schemas/graph'
-import { channels, sideSurvives } from '../../physics/bcfw'
+import { channels, internalSpecies, sideSurvives } from '../../physics/bcfw'
+import { GLUON_PDG, speciesOfPdg } from '../../physics/quarks'
 import { defaultShift, isValidShift, processOf, vanishes, type Process } from '../../physics/theories'
 import { threePointSurvives, type VertexKind } from '../../physics/three-point'
 import type { EditorEdge, EditorNode, LineData } from '../types'
 import { helicityText } from '../types'
+import { codeOf, processSpecies, speciesText } from '../species'
 
 /** A leg of a drawn sub-amplitude: an external label, or the Line (edge id) that joins it to the rest. */
 export type DrawnLeg = { label: number } | { edge: string }
@@ -18,15 +20,19 @@ export type DrawnLeg = { label: number } | { edge: string }
 interface Amp {
   legs: DrawnLeg[]
   helicities: number[]
+  /** Theory qcd: PDG codes of the legs (outgoing). */
+  pdg?: number[]
 }
 
 export type DrawnPart
-  = | { kind: 'vertex', node: string, legs: DrawnLeg[], helicities: number[], vertexKind: VertexKind, zero: boolean }
-    | { kind: 'block', node: string, legs: DrawnLeg[], helicities: number[], zero: boolean }
+  = | { kind: 'vertex', node: string, legs: DrawnLeg[], helicities: number[], vertexKind: VertexKind, zero: boolean, pdg?: number[] }
+    | { kind: 'block', node: string, legs: DrawnLeg[], helicities: number[], zero: boolean, pdg?: number[] }
     | {
       kind: 'term'
       legs: DrawnLeg[]
       helicities: number[]
+      /** Theory qcd: PDG codes of the legs; the Line is a quark when left.pdg ends in one. */
+      pdg?: number[]
       /** 0-based positions in `legs`. */
       shift: [number, number]
       /** Positions (in `legs`) of A_L's and A_R's external legs, in the engine's order. */
@@ -117,7 +123,8 @@ export function drawingShift(p: GraphProcess): [number, number] | null {
   const ep = engineProcess(p)
   if (!ep) return null
   const order = colourOrder(p, ep.colourOrdered)
-  const d = defaultShift(ep, order.map(l => p.helicities[l - 1]!))
+  const species = processSpecies(p)
+  const d = defaultShift(ep, order.map(l => p.helicities[l - 1]!), species ? order.map(l => codeOf(species[l - 1])) : undefined)
   return [order[d[0]]!, order[d[1]]!]
 }
 
@@ -127,12 +134,12 @@ export const channelLabel = (c: DrawnChannel): string => `${channelText(c.left)}
 const hsOf = (p: Process): number[] => (p.s === 0 ? [0] : [p.s, -p.s])
 
 /** The live (channel, internal helicity) pairs of an amplitude under a shift: the terms the recursion sums. */
-export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number]): readonly LiveChannel[] {
-  const key = `${p.theory}:${p.s}:${shift[0]}:${shift[1]}:${h.join(',')}`
+export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number], pdg?: readonly number[]): readonly LiveChannel[] {
+  const key = `${p.theory}:${p.s}:${shift[0]}:${shift[1]}:${h.join(',')}${pdg ? `|${pdg.join(',')}` : ''}`
   let out = liveCache.get(key)
   if (!out) {
     if (liveCache.size > 5000) liveCache.clear()
-    liveCache.set(key, (out = computeLive(p, h, shift)))
+    liveCache.set(key, (out = computeLive(p, h, shift, pdg)))
   }
   return out
 }
@@ -140,12 +147,17 @@ export function liveChannels(p: Process, h: readonly number[], shift: readonly [
 interface LiveChannel { L: readonly number[], R: readonly number[], helicity: number }
 const liveCache = new Map<string, readonly LiveChannel[]>()
 
-function computeLive(p: Process, h: readonly number[], shift: readonly [number, number]): LiveChannel[] {
+function computeLive(p: Process, h: readonly number[], shift: readonly [number, number], pdg?: readonly number[]): LiveChannel[] {
   const out: LiveChannel[] = []
-  if (vanishes(p, h)) return out
+  if (vanishes(p, h, pdg)) return out
   for (const { L, R } of channels(h.length, shift[0], shift[1], p.colourOrdered)) {
-    for (const x of hsOf(p)) {
-      if (sideSurvives(p, [...L.map(t => h[t]!), x], 'angle') && sideSurvives(p, [...R.map(t => h[t]!), -x], 'square')) out.push({ L, R, helicity: x })
+    // Theory qcd: the species exchanged (bcfw.ts internalSpecies); a quark carries ±½.
+    const x0 = pdg ? internalSpecies(pdg, L) : null
+    if (pdg && x0 === null) continue
+    const cL = pdg ? [...L.map(t => pdg[t]!), x0!] : undefined
+    const cR = pdg ? [...R.map(t => pdg[t]!), x0 === GLUON_PDG ? x0 : -x0!] : undefined
+    for (const x of pdg && x0 !== GLUON_PDG ? [0.5, -0.5] : hsOf(p)) {
+      if (sideSurvives(p, [...L.map(t => h[t]!), x], 'angle', cL) && sideSurvives(p, [...R.map(t => h[t]!), -x], 'square', cR)) out.push({ L, R, helicity: x })
     }
   }
   return out
@@ -162,7 +174,7 @@ function channelsByKey(n: number, sh: readonly [number, number], colourOrdered: 
   return m
 }
 
-interface Slot { leg: number | null, edge: string | null, to: string | null, helicity: number | null }
+interface Slot { leg: number | null, edge: string | null, to: string | null, helicity: number | null, code: number | null }
 
 interface Ctx {
   p: Process
@@ -197,20 +209,20 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
     const node = ctx.byId.get(id)!
     const legs = amp.legs
     if (node.type === 'block') {
-      const zero = vanishes(p, amp.helicities)
+      const zero = vanishes(p, amp.helicities, amp.pdg)
       const issues: DrawnIssue[] = []
-      if (legs.length === 3 && kind && !threePointSurvives(p, amp.helicities, kind)) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${kind === 'angle' ? 'an angle' : 'a square'} three-point amplitude survives, and helicities (${amp.helicities.map(helicityText).join(',')}) do not allow one` })
-      return { part: { kind: 'block', node: id, legs, helicities: amp.helicities, zero: zero || issues.length > 0 }, issues }
+      if (legs.length === 3 && kind && !threePointSurvives(p, amp.helicities, kind, amp.pdg)) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${kind === 'angle' ? 'an angle' : 'a square'} three-point amplitude survives, and helicities (${amp.helicities.map(helicityText).join(',')}) do not allow one` })
+      return { part: { kind: 'block', node: id, legs, helicities: amp.helicities, zero: zero || issues.length > 0, ...(amp.pdg ? { pdg: amp.pdg } : {}) }, issues }
     }
     const vk = kind ?? (node.type as VertexKind)
     const issues: DrawnIssue[] = []
     if (node.type !== vk) issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}: at the pole its ${vk === 'angle' ? 'square' : 'angle'} brackets vanish, so only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives here, not ${vk === 'angle' ? 'a square' : 'an angle'} vertex` })
-    else if (!threePointSurvives(p, amp.helicities, vk)) {
+    else if (!threePointSurvives(p, amp.helicities, vk, amp.pdg)) {
       const sum = amp.helicities.reduce((a, b) => a + b, 0)
       const total = sum === 0 ? '0' : `${sum > 0 ? '+' : '−'}${Math.abs(sum)}`
       issues.push({ id, on: 'node', level: 'error', message: `${whyOf()}, only ${vk === 'angle' ? 'an angle' : 'a square'} vertex survives, but helicities (${amp.helicities.map(helicityText).join(',')}) sum to ${total}: this term vanishes (flip the internal helicity)` })
     }
-    return { part: { kind: 'vertex', node: id, legs, helicities: amp.helicities, vertexKind: vk, zero: issues.length > 0 }, issues }
+    return { part: { kind: 'vertex', node: id, legs, helicities: amp.helicities, vertexKind: vk, zero: issues.length > 0, ...(amp.pdg ? { pdg: amp.pdg } : {}) }, issues }
   }
   // Several nodes: one channel term of this amplitude's own recursion.
   const inside = new Set(region)
@@ -248,14 +260,14 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
   const sides: ({ legs: number[], nodes: string[] } | undefined)[] = new Array(lines.length)
   const n = amp.legs.length
   // The given shift at the top; below, the default shift first, then the other valid ones.
-  const d = shift ?? defaultShift(p, amp.helicities)
+  const d = shift ?? defaultShift(p, amp.helicities, amp.pdg)
   let others: [number, number][] | null = null
   let best: Found | null = null
   for (let si = 0; ; si++) {
     if (si === 1) {
       if (shift) break
       others = []
-      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) if (a !== b && !(a === d[0] && b === d[1]) && isValidShift(p, amp.helicities, a, b)) others.push([a, b])
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) if (a !== b && !(a === d[0] && b === d[1]) && isValidShift(p, amp.helicities, a, b, amp.pdg)) others.push([a, b])
     }
     const sh = si === 0 ? d : others![si - 1]
     if (!sh) break
@@ -284,12 +296,14 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
       const edgeLeg: DrawnLeg = { edge: line.edge }
       const ampL: Amp = { legs: [...ch.L.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.L.map(u => amp.helicities[u]!), h] }
       const ampR: Amp = { legs: [...ch.R.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.R.map(u => amp.helicities[u]!), hr] }
+      const flowIssue = amp.pdg ? speciesAcross(ctx, amp.pdg, ch.L, ch.R, ampL, ampR, line.edge, leftEnd) : null
+      if (flowIssue === 'skip') continue
       const [si, sj] = sh
       const left = readAmp(ctx, ampL, leftNodes, 'angle', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[si]!)} (λ̃ shifted)`, null)
       const right = readAmp(ctx, ampR, rightNodes, 'square', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[sj]!)} (λ shifted)`, null)
-      const issues = left.issues.length || right.issues.length ? [...left.issues, ...right.issues] : left.issues
+      const issues = left.issues.length || right.issues.length || flowIssue ? [...(flowIssue ? [flowIssue] : []), ...left.issues, ...right.issues] : left.issues
       const found: Found = {
-        part: left.part && right.part ? { kind: 'term', legs: amp.legs, helicities: amp.helicities, shift: sh, L: [...ch.L], R: [...ch.R], line: line.edge, helicity: h, left: left.part, right: right.part } : null,
+        part: left.part && right.part ? { kind: 'term', legs: amp.legs, helicities: amp.helicities, ...(amp.pdg ? { pdg: amp.pdg } : {}), shift: sh, L: [...ch.L], R: [...ch.R], line: line.edge, helicity: h, left: left.part, right: right.part } : null,
         issues,
       }
       if (found.part && issues.length === 0) return found
@@ -306,6 +320,31 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
 }
 
 /**
+ * Theory qcd: sets the species the channel exchanges (the recursion's, bcfw.ts internalSpecies) on
+ * both sides; 'skip' when no single particle can be exchanged; a message on the Line when it is
+ * drawn carrying another species or with its fermion arrow reversed.
+ */
+function speciesAcross(ctx: Ctx, pdg: number[], L: readonly number[], R: readonly number[], ampL: Amp, ampR: Amp, edge: string, leftEnd: string): DrawnIssue | null | 'skip' {
+  const x = internalSpecies(pdg, L)
+  if (x === null) return 'skip'
+  ampL.pdg = [...L.map(u => pdg[u]!), x]
+  ampR.pdg = [...R.map(u => pdg[u]!), x === GLUON_PDG ? x : -x]
+  const drawn = ctx.slots.get(leftEnd)!.find(s => s.edge === edge)?.code ?? GLUON_PDG
+  if (drawn === x) return null
+  const name = ctx.lineName(edge)
+  const q = (c: number) => speciesText(speciesOfPdg(c))
+  const flow = (c: number) => `fermion flow from the ${c > 0 ? 'side of the shifted λ̃ leg to the other' : 'other side to the side of the shifted λ̃ leg'}`
+  const message = x !== GLUON_PDG && drawn === -x
+    ? `line ${name}: its fermion arrow points the wrong way: this channel exchanges ${q(x)} with ${flow(x)}`
+    : drawn === GLUON_PDG
+      ? `line ${name} is drawn as a gluon, but this channel exchanges a quark (${q(x)}, ${flow(x)})`
+      : x === GLUON_PDG
+        ? `line ${name} is drawn as a quark line (${q(drawn)}), but this channel exchanges a gluon`
+        : `line ${name} carries ${q(drawn)}, but this channel exchanges ${q(x)}`
+  return { id: edge, on: 'edge', level: 'error', message }
+}
+
+/**
  * Compiles the drawn terms of a canvas. Components that already carry an error (open slots, a loop,
  * missing legs, …) are listed with those problems and no plan; the shifted-legs rule applies to
  * every component, complete or not, so a node says so while it is being drawn.
@@ -316,6 +355,7 @@ export function compileStructure(input: StructureInput): DrawingStructure {
   const terms: DrawnTerm[] = []
   const p = process ? engineProcess(process) : null
   const shift = process ? drawingShift(process) : null
+  const species = processSpecies(process)
   const byId = new Map(nodes.map(n => [n.id, n]))
   const edgeById = new Map(edges.map(e => [e.id, e]))
   let anon = 0
@@ -333,6 +373,7 @@ export function compileStructure(input: StructureInput): DrawingStructure {
       edge: s.other?.kind === 'line' ? s.other.edgeId : null,
       to: s.other?.kind === 'line' ? s.other.nodeId : null,
       helicity: s.helicity,
+      code: s.code ?? null,
     })))
   }
   const ctx: Ctx | null = p ? { p, slots, byId, edgeById, lineName } : null
@@ -364,7 +405,7 @@ export function compileStructure(input: StructureInput): DrawingStructure {
       continue
     }
     if (term.problems.length) continue
-    const amp: Amp = { legs: order.map(l => ({ label: l })), helicities: order.map(l => process.helicities[l - 1]!) }
+    const amp: Amp = { legs: order.map(l => ({ label: l })), helicities: order.map(l => process.helicities[l - 1]!), ...(species ? { pdg: order.map(l => codeOf(species[l - 1])) } : {}) }
     const top: [number, number] = [pos.get(shift[0])!, pos.get(shift[1])!]
     const found = readAmp(ctx, amp, inner, null, () => '', top)
     issues.push(...found.issues)
@@ -387,7 +428,7 @@ export function compileStructure(input: StructureInput): DrawingStructure {
     }
     collect(part.left, term.leftNodeIds)
     collect(part.right, term.rightNodeIds)
-    term.live = liveChannels(ctx.p, amp.helicities, top).some(c => c.helicity === part.helicity && c.L.length === part.L.length && c.L.every((u, k) => u === part.L[k]))
+    term.live = liveChannels(ctx.p, amp.helicities, top, amp.pdg).some(c => c.helicity === part.helicity && c.L.length === part.L.length && c.L.every((u, k) => u === part.L[k]))
     term.plan = part
     term.valid = found.issues.length === 0
   }
