@@ -4,6 +4,7 @@
 // Aim: the drawn 8-gluon NMHV check costs < 2× the engine's. Run: node bench/run.mjs drawing [--quick]
 import { expandedGraph } from '#shared/editor/demo'
 import { checkDrawing, drawingGraph } from '#shared/editor/drawing/evaluate'
+import { packDrawingGraph } from '#shared/editor/drawing/handoff'
 import { validateGraph } from '#shared/editor/validate'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 import { evaluate } from '#shared/physics/index'
@@ -49,8 +50,8 @@ for (const c of cases) {
   // The worker tasks the check route hands off, structured-cloned as postMessage would.
   const plain = time(() => runTask(structuredClone({ kind: 'evaluate', req })))
   const tree = time(() => runTask(structuredClone({ kind: 'evaluate', req: { ...req, tree: true } })))
-  // As the check route hands it off: the graph without positions and layout data.
-  const drawn = time(() => runTask(structuredClone({ kind: 'checkDrawing', req, process, graph: drawingGraph(graph) })))
+  // As the check route hands it off: the graph packed (only what the compiler reads), cloned, unpacked in the worker.
+  const drawn = time(() => runTask(structuredClone({ kind: 'checkDrawing', req, process, graph: packDrawingGraph(graph) })))
   const res = evaluate(req)
   const slim = drawingGraph(graph)
   const compile = time(() => validateGraph(slim.nodes, slim.edges, process))
