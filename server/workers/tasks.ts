@@ -115,7 +115,7 @@ function dispatch(task: Task): unknown {
     case 'checkDrawing': {
       const t0 = performance.now()
       const res = task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)
-      const graph = 'v' in task.graph ? unpackDrawingGraph(task.graph) : task.graph
+      const graph = 'nums' in task.graph ? unpackDrawingGraph(task.graph) : task.graph
       const out = checkDrawing(res, task.process, graph)
       return { ...out, ms: round3(performance.now() - t0) }
     }
