@@ -207,8 +207,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   // Union-find over node indices (an id names its last node, as the Map above does).
   const uid = new Map<string, number>()
   for (let k = 0; k < nodesIn.length; k++) uid.set(nodesIn[k]!.id, k)
-  const parent = new Int32Array(nodesIn.length)
-  for (let k = 0; k < parent.length; k++) parent[k] = k
+  // A plain array: a small typed array costs more to allocate than this whole pass.
+  const parent: number[] = []
+  for (let k = 0; k < nodesIn.length; k++) parent.push(k)
   const find = (x: number): number => {
     let r = x
     while (parent[r] !== r) r = parent[r]!

@@ -125,7 +125,9 @@ export function unpackDrawingGraph(p: PackedGraph): { nodes: EditorNode[], edges
       case NUMS: {
         const len = num()
         if (!Number.isInteger(len) || len < 0 || at + len > nums.length) fail('a list runs past the numbers')
-        return Array.from(nums.subarray(at, (at += len)))
+        const out: number[] = []
+        for (let t = 0; t < len; t++) out.push(nums[at++]!)
+        return out
       }
       case NODE: {
         const k = num()

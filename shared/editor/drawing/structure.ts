@@ -167,6 +167,19 @@ function channelsByMask(n: number, sh: readonly [number, number], colourOrdered:
 
 interface Link { edge: string, to: string, rank: number }
 
+/** The amplitude's legs at `at`, then the channel's Line with helicity h. */
+function subAmp(amp: Amp, at: readonly number[], line: DrawnLeg, h: number): Amp {
+  const legs: DrawnLeg[] = []
+  const helicities: number[] = []
+  for (const u of at) {
+    legs.push(amp.legs[u]!)
+    helicities.push(amp.helicities[u]!)
+  }
+  legs.push(line)
+  helicities.push(h)
+  return { legs, helicities }
+}
+
 /** A node's Lines to other vertices or Blocks that hold the same Line at their end, with the Line's rank (once per node). */
 function linksOf(ctx: Ctx, id: string): Link[] {
   let out = ctx.links.get(id)
@@ -301,8 +314,8 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
       const hr = hAt(rightEnd)
       if (h === null || hr === null) continue
       const edgeLeg: DrawnLeg = { edge: line.edge }
-      const ampL: Amp = { legs: [...ch.L.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.L.map(u => amp.helicities[u]!), h] }
-      const ampR: Amp = { legs: [...ch.R.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.R.map(u => amp.helicities[u]!), hr] }
+      const ampL = subAmp(amp, ch.L, edgeLeg, h)
+      const ampR = subAmp(amp, ch.R, edgeLeg, hr)
       const [si, sj] = sh
       const left = readAmp(ctx, ampL, leftNodes, 'angle', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[si]!)} (λ̃ shifted)`, null)
       const right = readAmp(ctx, ampR, rightNodes, 'square', () => `this side of line ${ctx.lineName(line.edge)} holds the shifted ${legText(ctx, amp.legs[sj]!)} (λ shifted)`, null)
