@@ -119,7 +119,7 @@ export function drawnValues<T>(F: Field<T>, process: GraphProcess, s: DrawingStr
 }
 
 /**
- * What the compiler reads of a graph (ids, kinds, wiring, labels, helicities, line names): the rest
+ * What the compiler reads of a graph (ids, kinds, wiring, labels, helicities, line names; handoff.ts packs it): the rest
  * (positions, layout data, cached values) need not cross to a worker thread.
  */
 export function drawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }): { nodes: EditorNode[], edges: EditorEdge[] } {
