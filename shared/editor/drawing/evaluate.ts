@@ -149,8 +149,9 @@ export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph
   const proc: GraphProcess = { ...process, shift: res.shift }
   const v = validateGraph(graph.nodes, graph.edges, proc)
   const s = v.drawing
-  const edgeById = new Map(graph.edges.map(e => [e.id, e]))
-  const lineName = (e: string) => ((edgeById.get(e)?.data ?? {}) as LineData).line ?? 'a line'
+  // Built when a message names a line (a complete drawing names none).
+  let edgeById: Map<string, EditorEdge> | null = null
+  const lineName = (e: string) => (((edgeById ??= new Map(graph.edges.map(x => [x.id, x]))).get(e)?.data ?? {}) as LineData).line ?? 'a line'
   const comparison = compareDrawing(proc, s, lineName)
   const recursion = { value: res.value, deviation: res.deviation, verdict: res.verdict }
   const P = parsersFor(res.arithmetic, res.theory)
