@@ -165,6 +165,19 @@ function channelsByMask(n: number, sh: readonly [number, number], colourOrdered:
   return m
 }
 
+const shiftCache = new Map<string, readonly [number, number]>()
+
+/** The default shift of a sub-amplitude (cached: the same helicities recur in every term). */
+function subShift(p: Process, h: readonly number[]): [number, number] {
+  const k = `${p.theory}:${p.s}:${h.join(',')}`
+  let d = shiftCache.get(k)
+  if (!d) {
+    if (shiftCache.size > 5000) shiftCache.clear()
+    shiftCache.set(k, (d = defaultShift(p, h)))
+  }
+  return [d[0], d[1]]
+}
+
 interface Link { edge: string, to: string, rank: number }
 
 /** The amplitude's legs at `at`, then the channel's Line with helicity h. */
@@ -281,7 +294,7 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
   const n = amp.legs.length
   const all = n >= 31 ? -1 : (1 << n) - 1
   // The given shift at the top; below, the default shift first, then the other valid ones.
-  const d = shift ?? defaultShift(p, amp.helicities)
+  const d = shift ?? subShift(p, amp.helicities)
   let others: [number, number][] | null = null
   let best: Found | null = null
   for (let si = 0; ; si++) {
