@@ -43,6 +43,7 @@ import {
 } from '#shared/schemas/service'
 import { checkDrawing } from '#shared/editor/drawing/evaluate'
 import { checkLoopCutDrawing, type CompiledRing } from '#shared/editor/loop-cut-check'
+import { unpackDrawingGraph, type PackedGraph } from '#shared/editor/drawing/handoff'
 import type { Process as GraphProcess } from '#shared/schemas/graph'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
@@ -59,8 +60,8 @@ export type Task
     | { kind: 'loopCutDrawing'; req: unknown; rings: CompiledRing[] }
     | { kind: 'catalogue' }
     | { kind: 'generatePoints'; g: GenerateInput }
-  /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point. */
-    | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: { nodes: EditorNode[]; edges: EditorEdge[] } }
+  /** A check of a diagram's drawing: the process evaluated, then the drawn terms at the same point (the graph packed by packDrawingGraph, or as objects). */
+    | { kind: 'checkDrawing'; req: EvaluateRequestInput; order?: number[]; process: GraphProcess; graph: PackedGraph | { nodes: EditorNode[]; edges: EditorEdge[] } }
 
 export interface Failure {
   ok: false
@@ -123,7 +124,8 @@ function dispatch(task: Task): unknown {
     case 'checkDrawing': {
       const t0 = performance.now()
       const res = task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)
-      const out = checkDrawing(res, task.process, task.graph)
+      const graph = 'nums' in task.graph ? unpackDrawingGraph(task.graph) : task.graph
+      const out = checkDrawing(res, task.process, graph)
       return { ...out, ms: round3(performance.now() - t0) }
     }
   }

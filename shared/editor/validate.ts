@@ -7,7 +7,7 @@ import type { Process } from '../schemas/graph'
 import { THEORIES, spinOf } from '../physics/theories'
 import type { EditorEdge, EditorNode, LineData } from './types'
 import { handleIds, helicityText, sign } from './types'
-import { compileStructure, type DrawingStructure } from './drawing/structure'
+import { compileStructure, type DrawingStructure, type Slot } from './drawing/structure'
 import { codeAt, codeOf, processSpecies, speciesSpin, speciesText, vertexFlowProblem } from './species'
 
 export interface Issue {
@@ -129,6 +129,8 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   }
 
   const slots: Record<string, SlotInfo[]> = {}
+  // The same slots as the drawing compiler reads them.
+  const slotRows = new Map<string, Slot[]>()
   for (const node of nodesIn) {
     if (node.type === 'leg') {
       const d = node.data
@@ -145,19 +147,32 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       continue
     }
     const info: SlotInfo[] = []
+    const rows: Slot[] = []
     const own = handleIds(node)
+    const byHandle = atNode.get(node.id)
     for (const h of own) {
-      const list = at(node.id, h) ?? []
+      const list = byHandle?.get(h) ?? []
       const first = list[0]
       let other: SlotInfo['other'] = null
+      const helicity = first ? helicityAt(first, node.id, nodes) : null
+      const code = species && first ? codeAt(first, node.id, nodes) : null
       if (first) {
         const oid = first.source === node.id ? first.target : first.source
         const o = nodes.get(oid)!
-        other = o.type === 'leg' ? { kind: 'leg', label: o.data.label, nodeId: oid } : { kind: 'line', nodeId: oid, edgeId: first.id }
+        if (o.type === 'leg') {
+          other = { kind: 'leg', label: o.data.label, nodeId: oid }
+          rows.push({ leg: o.data.label, edge: null, to: null, helicity, code })
+        }
+        else {
+          other = { kind: 'line', nodeId: oid, edgeId: first.id }
+          rows.push({ leg: null, edge: first.id, to: oid, helicity, code })
+        }
       }
-      info.push({ handle: h, edges: list, helicity: first ? helicityAt(first, node.id, nodes) : null, other, ...(species && first ? { code: codeAt(first, node.id, nodes) } : {}) })
+      else rows.push({ leg: null, edge: null, to: null, helicity, code })
+      info.push({ handle: h, edges: list, helicity, other, ...(species && first ? { code: code! } : {}) })
     }
     slots[node.id] = info
+    slotRows.set(node.id, rows)
     // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
     for (const h of handlesOf.get(node.id) ?? []) if (!own.includes(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
     let open = 0
@@ -199,32 +214,37 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   }
 
   // Connected components: momentum routing closes on a tree holding every leg once.
-  const parent = new Map<string, string>(nodesIn.map(x => [x.id, x.id]))
-  const find = (x: string): string => {
+  // Union-find over node indices (an id names its last node, as the Map above does).
+  const uid = new Map<string, number>()
+  for (let k = 0; k < nodesIn.length; k++) uid.set(nodesIn[k]!.id, k)
+  // A plain array: a small typed array costs more to allocate than this whole pass.
+  const parent: number[] = []
+  for (let k = 0; k < nodesIn.length; k++) parent.push(k)
+  const find = (x: number): number => {
     let r = x
-    while (parent.get(r) !== r) r = parent.get(r)!
+    while (parent[r] !== r) r = parent[r]!
     // Full path compression: unions without rank otherwise build chains (quadratic on big canvases).
     for (let y = x; y !== r;) {
-      const up = parent.get(y)!
-      parent.set(y, r)
+      const up = parent[y]!
+      parent[y] = r
       y = up
     }
     return r
   }
   const validEdges = edges.filter(e => nodes.has(e.source) && nodes.has(e.target) && e.source !== e.target)
-  for (const e of validEdges) parent.set(find(e.source), find(e.target))
-  const groups = new Map<string, string[]>()
+  for (const e of validEdges) parent[find(uid.get(e.source)!)] = find(uid.get(e.target)!)
+  const groups = new Map<number, string[]>()
   for (const x of nodesIn) {
-    const r = find(x.id)
-    const g = groups.get(r) ?? []
-    g.push(x.id)
-    groups.set(r, g)
+    const r = find(uid.get(x.id)!)
+    const g = groups.get(r)
+    if (g) g.push(x.id)
+    else groups.set(r, [x.id])
   }
-  const edgeCount = new Map<string, number>()
+  const edgeCount = new Map<number, number>()
   // Internal lines per component, found in one pass (a filter per component was quadratic).
-  const linesByRoot = new Map<string, string[]>()
+  const linesByRoot = new Map<number, string[]>()
   for (const e of validEdges) {
-    const r = find(e.source)
+    const r = find(uid.get(e.source)!)
     edgeCount.set(r, (edgeCount.get(r) ?? 0) + 1)
     if (!isExternal(e, nodes)) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(e.id)
   }
@@ -246,11 +266,12 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
       seen.set(l, id)
     }
     if (process) {
-      const missing = Array.from({ length: n }, (_, t) => t + 1).filter(l => !seen.has(l))
+      const missing: number[] = []
+      for (let l = 1; l <= n; l++) if (!seen.has(l)) missing.push(l)
       if (missing.length) add(anchor, 'error', `momentum does not close: leg${missing.length > 1 ? 's' : ''} ${missing.join(', ')} of the process ${missing.length > 1 ? 'are' : 'is'} missing from this term`)
     }
   }
-  const drawing = compileStructure({ nodes: nodesIn, edges: validEdges, process, components, slots, errorIds: blocking })
+  const drawing = compileStructure({ nodes: nodesIn, byId: nodes, edges: validEdges, process, components, slots: slotRows, errorIds: blocking })
   for (const x of drawing.issues) {
     if (x.on === 'edge') { (edgeIssues[x.id] ??= []).push({ level: x.level, message: x.message }); continue }
     // The structural message says more than the helicity-sum one (which side of which line).
@@ -259,11 +280,16 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     ;(issues[x.id] ??= []).push({ level: x.level, message: x.message })
   }
   const compById = new Map(components.map(c => [c.id, c]))
+  // Ids with an error: most canvases have few, so a term's ids are not each looked up in the records.
+  const withError = new Set<string>()
+  for (const byId of [issues, edgeIssues]) for (const id in byId) if (byId[id]!.some(i => i.level === 'error')) withError.add(id)
   for (const t of drawing.terms) {
     const comp = compById.get(t.id)
     const msgs = new Set<string>()
-    for (const id of t.nodeIds) for (const i of issues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
-    for (const id of comp?.lineIds ?? []) for (const i of edgeIssues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
+    if (withError.size) {
+      for (const id of t.nodeIds) if (withError.has(id)) for (const i of issues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
+      for (const id of comp?.lineIds ?? []) if (withError.has(id)) for (const i of edgeIssues[id] ?? []) if (i.level === 'error') msgs.add(i.message)
+    }
     for (const m of t.problems) msgs.add(m)
     t.problems = [...msgs]
     t.valid = t.valid && t.plan !== null && msgs.size === 0

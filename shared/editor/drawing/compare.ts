@@ -53,6 +53,13 @@ export function partKey(x: DrawnPart): string {
   return k
 }
 
+/** A (channel, internal helicity) as one number: the bit mask of the channel's positions or labels (≤ 16 legs), then 2h (|h| ≤ 12). */
+function chKey(L: readonly number[], h: number): number {
+  let mask = 0
+  for (const u of L) mask |= 1 << u
+  return mask * 64 + 2 * h + 32
+}
+
 function times(k: number): string {
   return k === 2 ? 'twice' : `${k} times`
 }
@@ -77,8 +84,7 @@ function cover(p: Process, parts: DrawnPart[], context: () => string, lineName: 
   const sh = () => `[${names()[a]}, ${names()[b]}⟩`
   const out: Problem[] = []
   const live = liveChannels(p, first.helicities, first.shift, first.pdg)
-  const chKey = (L: readonly number[], h: number) => `${[...L].sort((u, v) => u - v).join(',')}|${h}`
-  const groups = new Map<string, typeof terms>()
+  const groups = new Map<number, typeof terms>()
   for (const t of terms) {
     const k = chKey(t.L, t.helicity)
     const g = groups.get(k) ?? []
@@ -89,9 +95,10 @@ function cover(p: Process, parts: DrawnPart[], context: () => string, lineName: 
   for (const c of live) {
     if (!groups.has(chKey(c.L, c.helicity))) out.push({ type: 'missing', message: `${whereOf()}: its term ${chName(c.L, c.helicity)} under ${sh()} is not drawn` })
   }
+  const liveKeys = new Set(live.map(c => chKey(c.L, c.helicity)))
   for (const [k, g] of groups) {
     const t0 = g[0]!
-    if (!live.some(c => chKey(c.L, c.helicity) === k)) {
+    if (!liveKeys.has(k)) {
       out.push({ type: 'foreign', message: `${whereOf()}: ${chName(t0.L, t0.helicity)} is not a term of its recursion under ${sh()} (it vanishes)` })
       continue
     }
@@ -140,10 +147,10 @@ export function compareDrawing(process: GraphProcess, s: DrawingStructure, lineN
   const sh = `[${s.shift[0]}, ${s.shift[1]}⟩`
   const species = processSpecies(process)
   const live = liveChannels(p, h, shift, species ? order.map(l => codeOf(species[l - 1])) : undefined).map(c => ({ left: c.L.map(t => order[t]!).sort((a, b) => a - b), helicity: c.helicity }))
-  const key = (left: number[], hh: number) => `${left.join(',')}|${hh}`
+  const key = chKey
   const liveKeys = new Set(live.map(c => key(c.left, c.helicity)))
-  const liveChannelsOnly = new Set(live.map(c => c.left.join(',')))
-  const groups = new Map<string, { left: number[], helicity: number, ids: string[], plans: DrawnPart[] }>()
+  const liveChannelsOnly = new Set(live.map(c => key(c.left, 0)))
+  const groups = new Map<number, { left: number[], helicity: number, ids: string[], plans: DrawnPart[] }>()
   for (const t of s.terms) {
     if (!t.channel || !t.plan) {
       cmp.invalid.push({ term: t.id, message: `a drawn term cannot be read as a channel term of ${sh}: ${t.problems[0] ?? 'see its nodes'}` })
@@ -166,7 +173,7 @@ export function compareDrawing(process: GraphProcess, s: DrawingStructure, lineN
   for (const g of groups.values()) {
     const k = key(g.left, g.helicity)
     if (!liveKeys.has(k)) {
-      if (liveChannelsOnly.has(g.left.join(',')) || liveKeys.has(key(g.left, -g.helicity))) {
+      if (liveChannelsOnly.has(key(g.left, 0)) || liveKeys.has(key(g.left, -g.helicity))) {
         cmp.wrongHelicity.push({ left: g.left, helicity: g.helicity, terms: g.ids, message: `channel ${channelText(g.left)} is drawn with internal helicity ${word(g.helicity)}, the wrong way round: its term has internal helicity ${word(-g.helicity)}` })
       }
       else {

@@ -127,7 +127,7 @@ export function drawnValues<T>(F: Field<T>, process: GraphProcess, s: DrawingStr
 }
 
 /**
- * What the compiler reads of a graph (ids, kinds, wiring, labels, helicities, line names): the rest
+ * What the compiler reads of a graph (ids, kinds, wiring, labels, helicities, line names; handoff.ts packs it): the rest
  * (positions, layout data, cached values) need not cross to a worker thread.
  */
 export function drawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }): { nodes: EditorNode[], edges: EditorEdge[] } {
@@ -157,8 +157,9 @@ export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph
   const proc: GraphProcess = { ...process, shift: res.shift }
   const v = validateGraph(graph.nodes, graph.edges, proc)
   const s = v.drawing
-  const edgeById = new Map(graph.edges.map(e => [e.id, e]))
-  const lineName = (e: string) => ((edgeById.get(e)?.data ?? {}) as LineData).line ?? 'a line'
+  // Built when a message names a line (a complete drawing names none).
+  let edgeById: Map<string, EditorEdge> | null = null
+  const lineName = (e: string) => (((edgeById ??= new Map(graph.edges.map(x => [x.id, x]))).get(e)?.data ?? {}) as LineData).line ?? 'a line'
   const comparison = compareDrawing(proc, s, lineName)
   const recursion = { value: res.value, deviation: res.deviation, verdict: res.verdict }
   const P = parsersFor(res.arithmetic, res.theory)

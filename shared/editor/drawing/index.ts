@@ -9,3 +9,4 @@
 export * from './structure'
 export * from './compare'
 export * from './evaluate'
+export * from './handoff'

@@ -93,10 +93,13 @@ export interface DrawingStructure {
 /** What validateGraph already knows about the canvas. */
 export interface StructureInput {
   nodes: EditorNode[]
+  /** The nodes by id (the last of a repeated id). */
+  byId: Map<string, EditorNode>
   edges: EditorEdge[]
   process?: GraphProcess
   components: { id: string, nodeIds: string[], legIds: string[], labels: number[], lineIds: string[], isTree: boolean }[]
-  slots: Record<string, { handle: string, edges: EditorEdge[], helicity: number | null, other: { kind: 'leg', label: number, nodeId: string } | { kind: 'line', nodeId: string, edgeId: string } | null }[]>
+  /** Each vertex's and Block's slots in handle order: the leg label or Line at it (validateGraph's slots, slimmed). */
+  slots: Map<string, Slot[]>
   /** Ids (nodes and edges) that already carry an error. */
   errorIds: Set<string>
 }
@@ -164,17 +167,58 @@ function computeLive(p: Process, h: readonly number[], shift: readonly [number, 
 }
 
 type ChannelList = ReturnType<typeof channels>
-const keyCache = new Map<string, Map<string, ChannelList[number]>>()
+const maskCache = new Map<number, Map<number, ChannelList[number]>>()
 
-/** The channels of a shift keyed by their sorted left positions (cached: the same few recur at every level). */
-function channelsByKey(n: number, sh: readonly [number, number], colourOrdered: boolean): Map<string, ChannelList[number]> {
-  const k = `${n}:${sh[0]}:${sh[1]}:${colourOrdered ? 1 : 0}`
-  let m = keyCache.get(k)
-  if (!m) keyCache.set(k, (m = new Map(channels(n, sh[0], sh[1], colourOrdered).map(c => [[...c.L].sort((u, v) => u - v).join(','), c]))))
+/** The channels of a shift keyed by the bit mask of their left positions (cached: the same few recur at every level). */
+function channelsByMask(n: number, sh: readonly [number, number], colourOrdered: boolean): Map<number, ChannelList[number]> {
+  const k = ((n * 32 + sh[0]) * 32 + sh[1]) * 2 + (colourOrdered ? 1 : 0)
+  let m = maskCache.get(k)
+  if (!m) maskCache.set(k, (m = new Map(channels(n, sh[0], sh[1], colourOrdered).map(c => [c.L.reduce((x, u) => x | (1 << u), 0), c]))))
   return m
 }
 
-interface Slot { leg: number | null, edge: string | null, to: string | null, helicity: number | null, code: number | null }
+const shiftCache = new Map<string, readonly [number, number]>()
+
+/** The default shift of a sub-amplitude (cached: the same helicities recur in every term). */
+function subShift(p: Process, h: readonly number[], pdg?: readonly number[]): [number, number] {
+  const k = `${p.theory}:${p.s}:${h.join(',')}${pdg ? `|${pdg.join(',')}` : ''}`
+  let d = shiftCache.get(k)
+  if (!d) {
+    if (shiftCache.size > 5000) shiftCache.clear()
+    shiftCache.set(k, (d = defaultShift(p, h, pdg ? [...pdg] : undefined)))
+  }
+  return [d[0], d[1]]
+}
+
+interface Link { edge: string, to: string, rank: number }
+
+/** The amplitude's legs at `at`, then the channel's Line with helicity h. */
+function subAmp(amp: Amp, at: readonly number[], line: DrawnLeg, h: number): Amp {
+  const legs: DrawnLeg[] = []
+  const helicities: number[] = []
+  for (const u of at) {
+    legs.push(amp.legs[u]!)
+    helicities.push(amp.helicities[u]!)
+  }
+  legs.push(line)
+  helicities.push(h)
+  return { legs, helicities }
+}
+
+/** A node's Lines to other vertices or Blocks that hold the same Line at their end, with the Line's rank (once per node). */
+function linksOf(ctx: Ctx, id: string): Link[] {
+  let out = ctx.links.get(id)
+  if (out) return out
+  out = []
+  for (const s of ctx.slots.get(id)!) {
+    if (s.edge && s.to && ctx.slots.get(s.to)?.some(o => o.edge === s.edge)) out.push({ edge: s.edge, to: s.to, rank: lineRank(ctx.edgeById.get(s.edge)) })
+  }
+  ctx.links.set(id, out)
+  return out
+}
+
+/** A slot of a vertex or Block: the leg label or the Line (edge id, node at its other end) it holds, and the helicity arriving. */
+export interface Slot { leg: number | null, edge: string | null, to: string | null, helicity: number | null, code: number | null }
 
 interface Ctx {
   p: Process
@@ -182,11 +226,10 @@ interface Ctx {
   byId: Map<string, EditorNode>
   edgeById: Map<string, EditorEdge>
   lineName: (edge: string) => string
+  links: Map<string, Link[]>
 }
 
 interface Found { part: DrawnPart | null, issues: DrawnIssue[] }
-
-const legKey = (l: DrawnLeg) => ('label' in l ? `l${l.label}` : `e${l.edge}`)
 
 function legText(ctx: Ctx, l: DrawnLeg): string {
   return 'label' in l ? `leg ${l.label}` : `line ${ctx.lineName(l.edge)}`
@@ -226,18 +269,21 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
   }
   // Several nodes: one channel term of this amplitude's own recursion.
   const inside = new Set(region)
-  const index = new Map<string, number>()
-  amp.legs.forEach((l, t) => index.set(legKey(l), t))
+  // Positions of the amplitude's legs: external labels and the Lines that leave the region.
+  const byLabel = new Map<number, number>()
+  const byEdge = new Map<string, number>()
+  amp.legs.forEach((l, t) => {
+    if ('label' in l) byLabel.set(l.label, t)
+    else byEdge.set(l.edge, t)
+  })
   const lines: { edge: string, a: string, b: string, rank: number }[] = []
   for (const id of region) {
-    for (const s of ctx.slots.get(id)!) {
-      if (s.edge && s.to && inside.has(s.to) && id < s.to && ctx.slots.get(s.to)?.some(o => o.edge === s.edge)) lines.push({ edge: s.edge, a: id, b: s.to, rank: lineRank(ctx.edgeById.get(s.edge)) })
-    }
+    for (const x of linksOf(ctx, id)) if (inside.has(x.to) && id < x.to) lines.push({ edge: x.edge, a: id, b: x.to, rank: x.rank })
   }
   lines.sort((x, y) => x.rank - y.rank)
-  // For each Line: the amplitude's legs and the nodes on its `a` side.
+  // For each Line: the amplitude's legs on its `a` side (a bit mask of positions; −1 when one repeats) and the nodes there.
   const sideOf = (line: { edge: string, a: string }) => {
-    const legs: number[] = []
+    let mask = 0
     const nodes: string[] = []
     const seen = new Set([line.a])
     const stack = [line.a]
@@ -250,17 +296,17 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
           if (!seen.has(s.to)) { seen.add(s.to); stack.push(s.to) }
           continue
         }
-        const k = s.leg !== null ? `l${s.leg}` : `e${s.edge}`
-        const t = index.get(k)
-        if (t !== undefined) legs.push(t)
+        const t = s.leg !== null ? byLabel.get(s.leg) : s.edge !== null ? byEdge.get(s.edge) : undefined
+        if (t !== undefined && mask !== -1) mask = mask & (1 << t) ? -1 : mask | (1 << t)
       }
     }
-    return { legs: legs.sort((u, v) => u - v), nodes }
+    return { mask, nodes }
   }
-  const sides: ({ legs: number[], nodes: string[] } | undefined)[] = new Array(lines.length)
+  const sides: ({ mask: number, nodes: string[] } | undefined)[] = new Array(lines.length)
   const n = amp.legs.length
+  const all = n >= 31 ? -1 : (1 << n) - 1
   // The given shift at the top; below, the default shift first, then the other valid ones.
-  const d = shift ?? defaultShift(p, amp.helicities, amp.pdg)
+  const d = shift ?? subShift(p, amp.helicities, amp.pdg)
   let others: [number, number][] | null = null
   let best: Found | null = null
   for (let si = 0; ; si++) {
@@ -271,16 +317,15 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
     }
     const sh = si === 0 ? d : others![si - 1]
     if (!sh) break
-    const byKey = channelsByKey(n, sh, p.colourOrdered)
+    const byMask = channelsByMask(n, sh, p.colourOrdered)
     for (let t = 0; t < lines.length; t++) {
       const line = lines[t]!
       const side = (sides[t] ??= sideOf(line))
-      let ch = byKey.get(side.legs.join(','))
+      if (side.mask === -1) continue
+      let ch = byMask.get(side.mask)
       let flip = false
       if (!ch) {
-        const other: number[] = []
-        for (let u = 0; u < n; u++) if (!side.legs.includes(u)) other.push(u)
-        ch = byKey.get(other.join(','))
+        ch = byMask.get(all & ~side.mask)
         flip = true
       }
       if (!ch) continue
@@ -294,8 +339,8 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
       const hr = hAt(rightEnd)
       if (h === null || hr === null) continue
       const edgeLeg: DrawnLeg = { edge: line.edge }
-      const ampL: Amp = { legs: [...ch.L.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.L.map(u => amp.helicities[u]!), h] }
-      const ampR: Amp = { legs: [...ch.R.map(u => amp.legs[u]!), edgeLeg], helicities: [...ch.R.map(u => amp.helicities[u]!), hr] }
+      const ampL = subAmp(amp, ch.L, edgeLeg, h)
+      const ampR = subAmp(amp, ch.R, edgeLeg, hr)
       const flowIssue = amp.pdg ? speciesAcross(ctx, amp.pdg, ch.L, ch.R, ampL, ampR, line.edge, leftEnd) : null
       if (flowIssue === 'skip') continue
       const [si, sj] = sh
@@ -350,13 +395,12 @@ function speciesAcross(ctx: Ctx, pdg: number[], L: readonly number[], R: readonl
  * every component, complete or not, so a node says so while it is being drawn.
  */
 export function compileStructure(input: StructureInput): DrawingStructure {
-  const { nodes, edges, process } = input
+  const { edges, process, byId, slots } = input
+  const species = processSpecies(process)
   const issues: DrawnIssue[] = []
   const terms: DrawnTerm[] = []
   const p = process ? engineProcess(process) : null
   const shift = process ? drawingShift(process) : null
-  const species = processSpecies(process)
-  const byId = new Map(nodes.map(n => [n.id, n]))
   const edgeById = new Map(edges.map(e => [e.id, e]))
   let anon = 0
   const anonNames = new Map<string, string>()
@@ -366,17 +410,7 @@ export function compileStructure(input: StructureInput): DrawingStructure {
     if (!anonNames.has(edge)) anonNames.set(edge, `#${++anon}`)
     return anonNames.get(edge)!
   }
-  const slots = new Map<string, Slot[]>()
-  for (const [id, list] of Object.entries(input.slots)) {
-    slots.set(id, list.map(s => ({
-      leg: s.other?.kind === 'leg' ? s.other.label : null,
-      edge: s.other?.kind === 'line' ? s.other.edgeId : null,
-      to: s.other?.kind === 'line' ? s.other.nodeId : null,
-      helicity: s.helicity,
-      code: s.code ?? null,
-    })))
-  }
-  const ctx: Ctx | null = p ? { p, slots, byId, edgeById, lineName } : null
+  const ctx: Ctx | null = p ? { p, slots, byId, edgeById, lineName, links: new Map() } : null
   const n = process?.helicities.length ?? 0
   const order = process && p ? colourOrder(process, p.colourOrdered) : []
   const pos = new Map(order.map((l, k) => [l, k]))

@@ -1,6 +1,7 @@
 import { DrawingCheckSchema } from '#shared/schemas/service'
 import type { EvaluateRequest } from '#shared/schemas/evaluate'
-import { drawingGraph, hasDrawnTerms, type CheckedResponse } from '#shared/editor/drawing/evaluate'
+import { hasDrawnTerms, type CheckedResponse } from '#shared/editor/drawing/evaluate'
+import { packDrawingGraph } from '#shared/editor/drawing/handoff'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
 // A check of what is drawn, from the graph in the body, that stores nothing: a viewer exploring an
@@ -29,7 +30,7 @@ export default defineEventHandler(async (event) => {
   const order = process.order ? { order: process.order } : {}
   try {
     const task = hasDrawnTerms(graph.nodes)
-      ? { kind: 'checkDrawing' as const, req, ...order, process, graph: drawingGraph(graph) }
+      ? { kind: 'checkDrawing' as const, req, ...order, process, graph: packDrawingGraph(graph) }
       : { kind: 'evaluate' as const, req, ...order }
     const { value } = await runInPool<CheckedResponse>(task, poolOptions(event))
     return value

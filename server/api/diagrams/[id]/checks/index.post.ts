@@ -1,6 +1,7 @@
 import { CheckRunSchema } from '#shared/schemas/service'
 import type { EvaluateRequest } from '#shared/schemas/evaluate'
-import { drawingGraph, hasDrawnTerms, type CheckedResponse } from '#shared/editor/drawing/evaluate'
+import { hasDrawnTerms, type CheckedResponse } from '#shared/editor/drawing/evaluate'
+import { packDrawingGraph } from '#shared/editor/drawing/handoff'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
 // Runs a check: the diagram's process (theory, spin, helicities, colour order, shift) at the
@@ -30,7 +31,7 @@ export default defineEventHandler(async (event) => {
   let result: CheckedResponse
   try {
     result = drawn
-      ? (await runInPool<CheckedResponse>({ kind: 'checkDrawing', req, ...order, process, graph: drawingGraph(graph) }, poolOptions(event))).value
+      ? (await runInPool<CheckedResponse>({ kind: 'checkDrawing', req, ...order, process, graph: packDrawingGraph(graph) }, poolOptions(event))).value
       : (await runInPool<CheckedResponse>({ kind: 'evaluate', req, ...order }, poolOptions(event))).value
   }
   catch (e) {
