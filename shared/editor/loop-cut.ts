@@ -6,7 +6,7 @@
 import { DIAGRAM_KINDS, type Process } from '../schemas/graph'
 import { LOOP_CUT_MAX_LEGS } from '../schemas/loop-cuts'
 import { allBoxes, type Box, type BoxKind } from '../physics/loop/boxes'
-import type { BlockData, EditorEdge, EditorNode, LegData, LineData } from './types'
+import type { BlockData, EditorEdge, EditorNode, LegNode, LineData } from './types'
 import { handleIds, helicityText, nodeOf } from './types'
 import { bestRotation } from './geometry'
 import type { Component, Issue, SlotInfo, Validation } from './validate'
@@ -104,7 +104,7 @@ export function validateLoopCut(nodesIn: EditorNode[], edges: EditorEdge[], proc
   const slots: Record<string, SlotInfo[]> = {}
   for (const node of nodesIn) {
     if (node.type === 'leg') {
-      const d = node.data as unknown as LegData
+      const d = node.data
       const list = at.get(`${node.id}|p`) ?? []
       if (list.length === 0) add(node.id, `leg ${d.label} is not attached: connect it to a corner`)
       if (list.length > 1) add(node.id, `leg ${d.label} is attached ${list.length} times: an external leg enters exactly one corner`)
@@ -121,7 +121,7 @@ export function validateLoopCut(nodesIn: EditorNode[], edges: EditorEdge[], proc
       if (e) {
         const oid = e.source === node.id ? e.target : e.source
         const o = nodes.get(oid)!
-        other = o.type === 'leg' ? { kind: 'leg', label: (o.data as unknown as LegData).label, nodeId: oid } : { kind: 'line', nodeId: oid, edgeId: e.id }
+        other = o.type === 'leg' ? { kind: 'leg', label: o.data.label, nodeId: oid } : { kind: 'line', nodeId: oid, edgeId: e.id }
       }
       return { handle: h, edges: list, helicity: e ? helicityAt(e, node.id, nodes) : null, other }
     })
@@ -141,10 +141,10 @@ export function validateLoopCut(nodesIn: EditorNode[], edges: EditorEdge[], proc
   let ringNo = 0
   for (const members of pieces.values()) {
     const cornerNodes = members.filter(x => x.type !== 'leg')
-    const legNodes = members.filter(x => x.type === 'leg')
+    const legNodes = members.filter((x): x is LegNode => x.type === 'leg')
     const id = members[0]!.id
     const lineIds = edges.filter(e => cornerNodes.some(c => c.id === e.source) && nodes.get(e.target)?.type !== 'leg' && nodes.get(e.source)?.type !== 'leg').map(e => e.id)
-    components.push({ id, nodeIds: members.map(x => x.id), legIds: legNodes.map(x => x.id), labels: legNodes.map(x => (x.data as unknown as LegData).label), lineIds, isTree: false })
+    components.push({ id, nodeIds: members.map(x => x.id), legIds: legNodes.map(x => x.id), labels: legNodes.map(x => x.data.label), lineIds, isTree: false })
     if (!cornerNodes.length) continue
     ringNo++
     const ring = readRing(cornerNodes, slots, nodes, add)
@@ -317,7 +317,8 @@ function blockLegRule(corners: DrawnRing['corners'], slots: Record<string, SlotI
     if (c.kind !== 'block') continue
     for (const s of slots[c.nodeId]!) {
       if (s.other?.kind !== 'leg') continue
-      const own = (nodes.get(c.nodeId)!.data as unknown as BlockData).helicities?.[Number(s.handle.slice(1))]
+      const nd = nodes.get(c.nodeId)!
+      const own = nd.type === 'block' ? nd.data.helicities?.[Number(s.handle.slice(1))] : undefined
       if (own !== undefined && s.helicity !== null && own !== s.helicity) add(c.nodeId, `slot ${s.handle} of this Block is ${helicityText(own)} but leg ${s.other.label} is ${helicityText(s.helicity)}`)
     }
   }

@@ -5,7 +5,7 @@ import type { Process } from '../schemas/graph'
 import { GLUON_PDG, MAX_FLAVOUR, checkQcdSpecies, isQuarkCode, pdgOfSpecies, speciesOfPdg } from '../physics/quarks'
 import { PhysicsError } from '../physics/errors'
 import { THEORIES, isValidShift, processOf } from '../physics/theories'
-import type { EditorEdge, EditorNode, LegData, LineData } from './types'
+import type { EditorEdge, EditorNode, LineData } from './types'
 
 // The colour order (process.ts has the same; imported from there it would be a cycle via validate.ts).
 function orderOf(p: Process): number[] {
@@ -53,7 +53,7 @@ export const antiCode = (c: number): number => (c === GLUON_PDG ? c : -c)
 export function codeAt(edge: EditorEdge, nodeId: string, nodes: Map<string, EditorNode>): number {
   const otherId = edge.source === nodeId ? edge.target : edge.source
   const other = nodes.get(otherId)
-  if (other?.type === 'leg') return codeOf((other.data as unknown as LegData).species)
+  if (other?.type === 'leg') return codeOf(other.data.species)
   const c = codeOf(((edge.data ?? {}) as LineData).species)
   return edge.source === nodeId ? c : antiCode(c)
 }
@@ -66,7 +66,7 @@ export function fermionFlow(edge: EditorEdge, nodes: Map<string, EditorNode>): '
   const src = nodes.get(edge.source)
   if (!src) return null
   // Code leaving the source node's side into the edge: for a leg source, the vertex end carries the leg's species outward.
-  const c = src.type === 'leg' ? antiCode(codeOf((src.data as unknown as LegData).species)) : codeAt(edge, edge.source, nodes)
+  const c = src.type === 'leg' ? antiCode(codeOf(src.data.species)) : codeAt(edge, edge.source, nodes)
   if (!isQuarkCode(c)) return null
   return c > 0 ? 'forward' : 'backward'
 }
