@@ -60,7 +60,7 @@ function orient(e: EditorEdge, byId: Map<string, EditorNode>): [string, string] 
  * they join: dagre places them by rank only, so two legs often cross on their way in. Their rows
  * are exchanged so the upper slot gets the upper leg.
  */
-function untangleLegs(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, local: Map<string, { x: number, y: number }>) {
+function untangleLegs(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, local: Map<string, { x: number, y: number }>, stub?: Stub) {
   const inside = new Set(ids)
   const degree = new Map<string, number>()
   for (const e of edges) {
@@ -81,6 +81,13 @@ function untangleLegs(ids: string[], edges: EditorEdge[], byId: Map<string, Edit
     g.push({ leg: legId, slotY: h.y })
     groups.set(key, g)
   }
+  // The top-level Line's way out takes its slot's row like a leg, so it crosses no leg either.
+  const stubHub = stub && byId.get(stub.hub)
+  const stubSlot = stubHub && handleLayout(stubHub).find(x => x.id === stub!.handle)
+  if (stubSlot && local.has(STUB_ID)) {
+    const key = `${stub!.hub}:${stubSlot.side}`
+    groups.set(key, [...(groups.get(key) ?? []), { leg: STUB_ID, slotY: stubSlot.y }])
+  }
   for (const g of groups.values()) {
     if (g.length < 2) continue
     const rows = g.map(x => ({ ...local.get(x.leg)! })).sort((a, b) => a.y - b.y)
@@ -89,7 +96,7 @@ function untangleLegs(ids: string[], edges: EditorEdge[], byId: Map<string, Edit
   }
 }
 
-type Local = { pos: Map<string, { x: number, y: number }>, w: number, h: number }
+type Local = { pos: Map<string, { x: number, y: number }>, w: number, h: number, stubY?: number }
 
 // dagre's result depends only on the node sizes and the oriented edges in insertion order, so a
 // shape met before (every re-layout of a canvas: the next expansion step, undo, a re-expand) is not
@@ -98,8 +105,18 @@ type Local = { pos: Map<string, { x: number, y: number }>, w: number, h: number 
 const shapes = new Map<string, { x: number, y: number, width: number, height: number }[]>()
 const SHAPES_KEPT = 500
 
-/** The dagre layout (centres and sizes, in the order of ids) of one group's shape. */
-function dagreShape(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number) {
+/**
+ * Where one side of a term meets the other: the node the top-level Line leaves from and whether
+ * that Line runs out to the right (left side) or in from the left (right side).
+ */
+type Stub = { hub: string, handle: string | null | undefined, out: boolean }
+const STUB_ID = '\u0000stub'
+// A stand-in for the other side, as tall as a leg, so a leg in the Line's rank is set beside the
+// Line instead of on it.
+const STUB = { width: 2, height: 30 }
+
+/** The dagre layout (centres and sizes, in the order of ids; the stub last) of one group's shape. */
+function dagreShape(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number, stub?: Stub) {
   const index = new Map(ids.map((id, k) => [id, k]))
   const sizes = ids.map(id => nodeSize(byId.get(id)!))
   const pairs: [number, number][] = []
@@ -107,6 +124,10 @@ function dagreShape(ids: string[], edges: EditorEdge[], byId: Map<string, Editor
     if (!index.has(e.source) || !index.has(e.target) || e.source === e.target) continue
     const [a, b] = orient(e, byId)
     pairs.push([index.get(a)!, index.get(b)!])
+  }
+  if (stub && index.has(stub.hub)) {
+    sizes.push(STUB)
+    pairs.push(stub.out ? [index.get(stub.hub)!, ids.length] : [ids.length, index.get(stub.hub)!])
   }
   const key = `${nodesep},${ranksep}|${sizes.map(z => `${z.width}x${z.height}`).join(',')}|${pairs.map(([a, b]) => `${a}>${b}`).join(',')}`
   const hit = shapes.get(key)
@@ -118,7 +139,7 @@ function dagreShape(ids: string[], edges: EditorEdge[], byId: Map<string, Editor
   for (const [a, b] of pairs) g.setEdge(String(a), String(b))
   // No incremental re-layout state: each call lays out a fresh graph (and is faster without it).
   layout(g, { useDynamic: false })
-  const out = ids.map((_, k) => {
+  const out = sizes.map((_, k) => {
     const p = g.node(String(k)) as { x: number, y: number, width: number, height: number }
     return { x: p.x, y: p.y, width: p.width, height: p.height }
   })
@@ -128,8 +149,8 @@ function dagreShape(ids: string[], edges: EditorEdge[], byId: Map<string, Editor
 }
 
 /** One group of nodes laid out left to right by dagre, with top-left positions from (0, 0). */
-function layoutGroup(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number): Local {
-  const placed = dagreShape(ids, edges, byId, nodesep, ranksep)
+function layoutGroup(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number, stub?: Stub): Local {
+  const placed = dagreShape(ids, edges, byId, nodesep, ranksep, stub)
   let minX = Infinity
   let minY = Infinity
   let maxX = -Infinity
@@ -144,9 +165,14 @@ function layoutGroup(ids: string[], edges: EditorEdge[], byId: Map<string, Edito
     maxX = Math.max(maxX, tl.x + p.width)
     maxY = Math.max(maxY, tl.y + p.height)
   })
-  untangleLegs(ids, edges, byId, local)
+  // The stub only reserves room; it is not drawn and does not widen the group.
+  const s = placed[ids.length]
+  if (s) local.set(STUB_ID, { x: s.x - s.width / 2, y: s.y - s.height / 2 })
+  untangleLegs(ids, edges, byId, local, stub)
+  const stubY = s && local.get(STUB_ID)!.y + s.height / 2 - minY
+  local.delete(STUB_ID)
   for (const [id, p] of local) local.set(id, { x: p.x - minX, y: p.y - minY })
-  return { pos: local, w: maxX - minX, h: maxY - minY }
+  return { pos: local, w: maxX - minX, h: maxY - minY, ...(stubY !== undefined ? { stubY } : {}) }
 }
 
 /**
@@ -171,6 +197,15 @@ function sidesOf(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNod
   return L.length && R.length && L.length + R.length === ids.length ? [L, R] : null
 }
 
+/** The top-level Line's ends [left hub, right hub, their handles]: the one edge joining the sides. */
+function topLine(sides: [string[], string[]], edges: EditorEdge[]) {
+  const L = new Set(sides[0])
+  const R = new Set(sides[1])
+  const e = edges.find(x => (L.has(x.source) && R.has(x.target)) || (R.has(x.source) && L.has(x.target)))
+  if (!e) return undefined
+  return L.has(e.source) ? [e.source, e.target, e.sourceHandle, e.targetHandle] as const : [e.target, e.source, e.targetHandle, e.sourceHandle] as const
+}
+
 /** Top-left positions for every node. */
 export function layoutPositions(nodes: EditorNode[], edges: EditorEdge[], opts: LayoutOptions = {}): Map<string, { x: number, y: number }> {
   const { maxRowWidth = 1500, gap = 70, nodesep = 28, ranksep = 78, origin = { x: 0, y: 0 } } = opts
@@ -184,12 +219,16 @@ export function layoutPositions(nodes: EditorNode[], edges: EditorEdge[], opts: 
     const sides = sidesOf(ids, edges, byId)
     let local: Local
     if (sides) {
-      const L = layoutGroup(sides[0], edges, byId, nodesep, ranksep)
-      const R = layoutGroup(sides[1], edges, byId, nodesep, ranksep)
-      const h = Math.max(L.h, R.h)
+      const line = topLine(sides, edges)
+      const L = layoutGroup(sides[0], edges, byId, nodesep, ranksep, line && { hub: line[0], handle: line[2], out: true })
+      const R = layoutGroup(sides[1], edges, byId, nodesep, ranksep, line && { hub: line[1], handle: line[3], out: false })
+      // The two ends of the top-level Line at one height (else the sides centred on each other).
+      const dy = L.stubY !== undefined && R.stubY !== undefined ? L.stubY - R.stubY : (L.h - R.h) / 2
+      const top = Math.min(0, dy)
+      const h = Math.max(L.h, R.h + dy) - top
       const pos = new Map<string, { x: number, y: number }>()
-      for (const [id, p] of L.pos) pos.set(id, { x: p.x, y: p.y + (h - L.h) / 2 })
-      for (const [id, p] of R.pos) pos.set(id, { x: p.x + L.w + ranksep, y: p.y + (h - R.h) / 2 })
+      for (const [id, p] of L.pos) pos.set(id, { x: p.x, y: p.y - top })
+      for (const [id, p] of R.pos) pos.set(id, { x: p.x + L.w + ranksep, y: p.y + dy - top })
       local = { pos, w: L.w + ranksep + R.w, h }
     }
     else local = layoutGroup(ids, edges, byId, nodesep, ranksep)
