@@ -113,7 +113,7 @@ type Stub = { hub: string, handle: string | null | undefined, out: boolean }
 const STUB_ID = '\u0000stub'
 // A stand-in for the other side, as tall as a leg, so a leg in the Line's rank is set beside the
 // Line instead of on it.
-const STUB = { width: 2, height: 30 }
+const STUB = { width: 2, height: 44 }
 
 /** The dagre layout (centres and sizes, in the order of ids; the stub last) of one group's shape. */
 function dagreShape(ids: string[], edges: EditorEdge[], byId: Map<string, EditorNode>, nodesep: number, ranksep: number, stub?: Stub) {
