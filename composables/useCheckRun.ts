@@ -14,7 +14,7 @@ import { useEditorStore } from '~~/stores/editor'
 import { processSpecies } from '#shared/editor/species'
 import { errMessage, type Say } from './useEditorNotice'
 
-export interface StoredCheck { id: number, kind?: string, status?: string, batchId?: number | null, result: EvaluateResponse | null, diagramVersion: number | null, summary?: { target?: string | null } | null }
+export interface StoredCheck { id: number, kind?: string, status?: string, result: EvaluateResponse | null, diagramVersion: number | null, summary?: { target?: string | null } | null }
 
 interface Ctx {
   diagramId: number
@@ -31,7 +31,7 @@ async function measureFalloff(p: Process, res: EvaluateResponse, step: (s: strin
   const order = orderOf(p)
   const pos = (l: number) => order.indexOf(l)
   step('falloff: the shifted point at growing z')
-  const base = await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: evaluateRequest({ ...p, shift: res.shift }, { kinematics: { kind: 'rational', seed: 'falloff' }, target: 'none', arithmetic: 'exact' }) })
+  const base = await $fetch('/api/evaluate', { method: 'POST', body: evaluateRequest({ ...p, shift: res.shift }, { kinematics: { kind: 'rational', seed: 'falloff' }, target: 'none', arithmetic: 'exact' }) })
   tick()
   const hOrd = order.map(l => p.helicities[l - 1]!)
   // Several species (qcd): the species in the colour order, for the process and every request.
@@ -45,7 +45,7 @@ async function measureFalloff(p: Process, res: EvaluateResponse, step: (s: strin
   for (const z of FALLOFF_Z) {
     step(`falloff: A(z) at z = 1e${z.toString().length - 1}`)
     const shifted = shiftExact(lam, lamT, i, j, z)
-    const r = await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: hOrd, ...spOrd, kinematics: { kind: 'exact-spinors', ...shifted }, shift: [alt[0] + 1, alt[1] + 1], arithmetic: 'exact', target: 'none' } })
+    const r = await $fetch('/api/evaluate', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: hOrd, ...spOrd, kinematics: { kind: 'exact-spinors', ...shifted }, shift: [alt[0] + 1, alt[1] + 1], arithmetic: 'exact', target: 'none' } })
     tick()
     if (!r.value) throw new Error(`A(z) is singular at z = ${z}`)
     const y = log10Abs(r.value)
@@ -88,7 +88,7 @@ export function useCheckRun(ctx: Ctx) {
       if (!(await ctx.save('saved to check the drawing'))) throw new Error('the drawing could not be saved, so it was not checked')
     }
     if (ctx.canEdit.value && JSON.stringify(p) === ctx.savedProcess.value) {
-      const check = await $fetch<{ id: number, result: EvaluateResponse }>(`/api/diagrams/${ctx.diagramId}/checks`, { method: 'POST', body: { ...body, probeFalloff: false, tree: false } })
+      const check = await $fetch(`/api/diagrams/${ctx.diagramId}/checks`, { method: 'POST', body: { ...body, probeFalloff: false, tree: false } })
       storedAs.value = check.id
       checksToken.value++
       return check.result
@@ -96,12 +96,14 @@ export function useCheckRun(ctx: Ctx) {
     if (!ctx.canEdit.value && drawn) {
       // A viewer checks the canvas as it is (Blocks opened while exploring included); nothing is stored.
       notStored.value = 'not stored: viewers run checks without storing them; this is a check of what is drawn'
-      return await $fetch<EvaluateResponse>(`/api/diagrams/${ctx.diagramId}/check-drawing`, { method: 'POST', body: { ...body, graph: store.toGraph() } })
+      const drawing = await $fetch(`/api/diagrams/${ctx.diagramId}/check-drawing`, { method: 'POST', body: { ...body, graph: store.toGraph() } })
+      return drawing
     }
     notStored.value = ctx.canEdit.value
       ? 'not stored: save the diagram (Ctrl+S) to store checks of this process'
       : 'not stored: viewers run checks without storing them'
-    return toLabels(await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: evaluateRequest(p, { ...body }) }), p)
+    const res = await $fetch('/api/evaluate', { method: 'POST', body: evaluateRequest(p, { ...body }) })
+    return toLabels(res, p)
   }
 
   async function runCheck() {
@@ -143,7 +145,7 @@ export function useCheckRun(ctx: Ctx) {
       try {
         const order = orderOf(p)
         const sp = processSpecies(p)
-        const cs = await $fetch<CrossShiftResponse>('/api/cross-shift', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: order.map(l => p!.helicities[l - 1]!), ...(sp ? { species: order.map(l => sp[l - 1]!) } : {}), kinematics: kin.kinematics, arithmetic: s.arithmetic } })
+        const cs = await $fetch('/api/cross-shift', { method: 'POST', body: { theory: p.theory, ...(p.theory === 'spin' ? { spin: p.spin } : {}), helicities: order.map(l => p!.helicities[l - 1]!), ...(sp ? { species: order.map(l => sp[l - 1]!) } : {}), kinematics: kin.kinematics, arithmetic: s.arithmetic } })
         cross.value = { ...cs, rows: cs.rows.map(r => ({ ...r, shift: [order[r.shift[0] - 1]!, order[r.shift[1] - 1]!] as [number, number] })) }
       }
       catch (e) {
@@ -161,11 +163,11 @@ export function useCheckRun(ctx: Ctx) {
 
   async function openCheck(id: number) {
     try {
-      const c = await $fetch<StoredCheck>(`/api/checks/${id}`)
+      const c = await $fetch(`/api/checks/${id}`)
       clear()
       if (!c.result) {
         // A batch check keeps its results on its batch page.
-        if (c.kind === 'batch' || c.batchId) { batchCheck.value = c; return }
+        if (c.kind === 'batch') { batchCheck.value = c; return }
         say(`check #${id} has no result${c.status ? ` (${c.status})` : ''}`, 'error')
         return
       }

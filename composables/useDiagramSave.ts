@@ -5,7 +5,6 @@ import { GraphSchema } from '#shared/schemas/graph'
 import { useEditorStore, type DiagramDoc } from '~~/stores/editor'
 import { errMessage, type Say } from './useEditorNotice'
 
-export interface DiagramRes extends DiagramDoc { role: 'owner' | 'editor' | 'viewer' }
 interface Revision { version: number, title: string, graph: unknown }
 
 export function useDiagramSave(diagramId: number, canEdit: Ref<boolean>, say: Say, flushDraft: () => void) {
@@ -20,9 +19,9 @@ export function useDiagramSave(diagramId: number, canEdit: Ref<boolean>, say: Sa
   const inSync = computed(() => !store.dirty && JSON.stringify(store.toGraph()) === savedJson.value)
 
   async function put(version: number, note?: string) {
-    return await $fetch<DiagramRes>(`/api/diagrams/${diagramId}`, { method: 'PUT', body: { title: store.title, graph: store.toGraph(), version, ...(note ? { note } : {}) } })
+    return await $fetch(`/api/diagrams/${diagramId}`, { method: 'PUT', body: { title: store.title, graph: store.toGraph(), version, ...(note ? { note } : {}) } })
   }
-  function took(saved: DiagramRes) {
+  function took(saved: DiagramDoc) {
     store.markSaved(saved)
     savedJson.value = JSON.stringify(saved.graph)
     conflict.value = null
@@ -52,7 +51,7 @@ export function useDiagramSave(diagramId: number, canEdit: Ref<boolean>, say: Sa
   /** 409: their version replaces the canvas as one undoable step, so mine is still one Ctrl+Z away. */
   async function reloadTheirs() {
     try {
-      const theirs = await $fetch<DiagramRes>(`/api/diagrams/${diagramId}`)
+      const theirs = await $fetch(`/api/diagrams/${diagramId}`)
       flushDraft()
       store.replaceGraph(theirs.graph, theirs.title)
       took(theirs)
@@ -64,7 +63,7 @@ export function useDiagramSave(diagramId: number, canEdit: Ref<boolean>, say: Sa
   }
   async function keepMine() {
     try {
-      const theirs = await $fetch<DiagramRes>(`/api/diagrams/${diagramId}`)
+      const theirs = await $fetch(`/api/diagrams/${diagramId}`)
       const saved = await put(theirs.version, `kept over v${theirs.version} after a conflict`)
       took(saved)
       say(`Your version is saved as version ${saved.version}; version ${theirs.version} stays in the revisions.`)

@@ -11,7 +11,7 @@ export function useExpansion(say: Say, busy: Ref<boolean>) {
   const store = useEditorStore()
   async function fetchTree(seed: string): Promise<EvaluateResponse> {
     const p = store.process!
-    const res = await $fetch<EvaluateResponse>('/api/evaluate', { method: 'POST', body: evaluateRequest(p, { kinematics: { kind: 'random', seed }, target: 'none', tree: true }) })
+    const res = await $fetch('/api/evaluate', { method: 'POST', body: evaluateRequest(p, { kinematics: { kind: 'random', seed }, target: 'none', tree: true }) })
     return toLabels(res, p)
   }
   /** A saved expansion needs its tree again after a reload (to open its Blocks). */

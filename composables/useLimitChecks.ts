@@ -18,7 +18,8 @@ export function useLimitChecks() {
     running.value = name
     error.value = ''
     try {
-      result.value = await $fetch<LimitCheckResponse>('/api/limit-checks', { method: 'POST', body })
+      const res = await $fetch('/api/limit-checks', { method: 'POST', body })
+      result.value = res
     }
     catch (e) {
       result.value = null

@@ -1,6 +1,5 @@
 // A loop-cut diagram's check: the canvas as drawn (saved or not) to POST /api/diagrams/:id/check-loop-cut;
 // the result goes to the store, which marks it stale once the canvas changes.
-import type { LoopCutDrawingResult } from '#shared/editor/loop-cut-check'
 import { useEditorStore } from '~~/stores/editor'
 import { errMessage, type Say } from './useEditorNotice'
 
@@ -19,7 +18,7 @@ export function useLoopCutCheck(diagramId: number, say: Say, busy: Ref<boolean>)
     busy.value = true
     try {
       const s = settings.value
-      const res = await $fetch<LoopCutDrawingResult>(`/api/diagrams/${diagramId}/check-loop-cut`, {
+      const res = await $fetch(`/api/diagrams/${diagramId}/check-loop-cut`, {
         method: 'POST',
         body: { graph: store.toGraph(), arithmetic: s.arithmetic, corners: s.corners, kinematics: { kind: s.arithmetic === 'exact' ? 'rational' : 'random', seed: s.seed } },
       })

@@ -4,6 +4,7 @@ import { integer, real, sqliteTable, text, primaryKey, index, uniqueIndex } from
 import type { Graph } from '../shared/schemas/graph'
 import type { PointData } from '../shared/pointsets/types'
 import type { CheckedResponse } from '../shared/editor/drawing/evaluate'
+import type { CheckRequest, CheckSummary } from '../shared/schemas/service'
 
 const now = sql`(unixepoch() * 1000)`
 const createdAt = () => integer('created_at', { mode: 'timestamp_ms' }).notNull().default(now)
@@ -97,10 +98,10 @@ export const checks = sqliteTable('checks', {
   pointSetId: integer('point_set_id').references(() => pointSets.id, { onDelete: 'set null' }),
   kind: text('kind', { enum: ['single', 'batch'] }).notNull().default('single'),
   status: text('status', { enum: ['queued', 'running', 'done', 'failed', 'cancelled'] }).notNull().default('done'),
-  request: text('request', { mode: 'json' }).notNull().$type<Record<string, unknown>>(),
+  request: text('request', { mode: 'json' }).notNull().$type<CheckRequest>(),
   // A single check's response (batch checks keep theirs per point in check_points).
   result: text('result', { mode: 'json' }).$type<CheckedResponse>(),
-  summary: text('summary', { mode: 'json' }).$type<Record<string, unknown>>(),
+  summary: text('summary', { mode: 'json' }).$type<CheckSummary>(),
   verdict: text('verdict'),
   engineVersion: text('engine_version').notNull(),
   arithmetic: text('arithmetic', { enum: ['float', 'exact'] }).notNull(),

@@ -1,4 +1,4 @@
-import { EvaluateRequestSchema } from '#shared/schemas/evaluate'
+import { EvaluateRequestSchema, type EvaluateResponse } from '#shared/schemas/evaluate'
 
 // Stateless; writes nothing, so read-scope tokens may call it. Limits are checked here before any
 // work; the evaluation itself runs in the worker pool within the request's time budget.
@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
       'x-evaluation-thread': String(thread),
       'server-timing': `engine;dur=${ms}, pool;dur=${(performance.now() - t0).toFixed(3)}`,
     })
-    return value
+    return jsonText<EvaluateResponse>(value)
   }
   catch (e) {
     throw evaluationHttpError(e)

@@ -10,7 +10,7 @@ import { evaluateRequest } from '#shared/editor/process'
 import { floatTolerance } from '#shared/physics/verdict'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 
-const PROCESS: Process = { theory: 'gluon', helicities: [-1, -1, 1, 1, 1], shift: [1, 2] }
+const PROCESS = { theory: 'gluon', helicities: [-1, -1, 1, 1, 1], shift: [1, 2] } satisfies Process
 
 async function build() {
   const float = await evaluateInPool(evaluateRequest(PROCESS, { kinematics: { kind: 'random', seed: STRUCTURE_SEED }, target: 'auto', tree: true }))

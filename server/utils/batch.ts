@@ -8,6 +8,7 @@ import { ENGINE_VERSION } from '#shared/physics/index'
 import type { EvaluateRequestInput } from '#shared/schemas/evaluate'
 import type { BatchValue } from '../workers/tasks'
 import type { Process } from '#shared/schemas/graph'
+import type { BatchCheckSummary } from '#shared/schemas/service'
 import { VERDICTS, type BatchProgressView, type PointData, type Verdict } from '#shared/pointsets'
 import { checkOrder, effectiveOrder, inOrder, shiftInOrder } from '#shared/physics/colour-order'
 import { isColourOrdered, pdgOf } from '#shared/physics/theories'
@@ -99,7 +100,7 @@ export function checkPlan(plan: BatchPlan, set: typeof tables.pointSets.$inferSe
 /** Overall verdict of a batch: the first verdict that occurs in this order. */
 const OVERALL: Verdict[] = ['disagrees', 'boundary term suspected', 'agrees', 'singular point', 'not evaluated']
 
-export async function batchSummary(checkId: number) {
+export async function batchSummary(checkId: number): Promise<BatchCheckSummary> {
   const db = useDB()
   const cp = tables.checkPoints
   const counts = zeroCounts()
@@ -127,7 +128,7 @@ export async function batchSummary(checkId: number) {
 function progressOf(row: CheckRow, l?: Live): BatchProgress {
   const elapsedMs = l?.startedAt ? performance.now() - l.startedAt : row.durationMs
   const rate = elapsedMs && row.done ? row.done / (elapsedMs / 1000) : null
-  const counts = l?.counts ?? ((row.summary as { counts?: Record<Verdict, number> } | null)?.counts) ?? zeroCounts()
+  const counts = l?.counts ?? row.summary?.counts ?? zeroCounts()
   return {
     id: row.id,
     status: row.status,
@@ -137,7 +138,7 @@ function progressOf(row: CheckRow, l?: Live): BatchProgress {
     etaSeconds: rate && !TERMINAL.has(row.status) ? Math.round(((row.total - row.done) / rate) * 10) / 10 : TERMINAL.has(row.status) ? 0 : null,
     elapsedMs: elapsedMs === null || elapsedMs === undefined ? null : Math.round(elapsedMs),
     counts,
-    ...((row.summary as { message?: string } | null)?.message ? { message: (row.summary as { message: string }).message } : {}),
+    ...(row.summary?.message ? { message: row.summary.message } : {}),
   }
 }
 
@@ -171,7 +172,6 @@ export async function settleOrphanBatches(): Promise<number> {
 export async function batchView(row: CheckRow) {
   const r = await settleOrphan(row)
   const l = live.get(r.id)
-  const request = r.request as Record<string, unknown>
   return {
     id: r.id,
     projectId: r.projectId,
@@ -184,7 +184,7 @@ export async function batchView(row: CheckRow) {
     total: r.total,
     verdict: r.verdict,
     summary: r.summary,
-    request,
+    request: r.request,
     engineVersion: r.engineVersion,
     arithmetic: r.arithmetic,
     durationMs: r.durationMs,

@@ -7,6 +7,7 @@ import { formatPath } from '#shared/schemas/common'
 import type { EvaluateRequest, EvaluateResponse } from '#shared/schemas/evaluate'
 import { ProcessSchema, type Process } from '#shared/schemas/graph'
 import type { DrawingResult } from '#shared/editor/drawing/evaluate'
+import type { SingleCheckSummary } from '#shared/schemas/service'
 
 /**
  * The limits and the shift, checked on the request thread before anything is queued, so an
@@ -58,6 +59,15 @@ export function clientSignal(event: H3Event): AbortSignal {
   return ac.signal
 }
 
+/**
+ * JSON text a worker made from a T, sent on unparsed (no second parse and stringify on the request
+ * thread): the route's return type is the T that a typed fetch receives.
+ */
+export function jsonText<T>(text: string): T
+export function jsonText(text: string): unknown {
+  return text
+}
+
 /** The pool options of a route: the request's budget and its cancellation. */
 export function poolOptions(event: H3Event) {
   return { timeoutMs: requestBudget(event), signal: clientSignal(event) }
@@ -88,7 +98,7 @@ export const processField = (field: string) => (PROCESS_FIELDS.test(field) ? `gr
 
 type CheckRow = typeof tables.checks.$inferSelect
 
-export function checkSummary(req: EvaluateRequest, process: Process, result: EvaluateResponse & { drawing?: DrawingResult }) {
+export function checkSummary(req: EvaluateRequest, process: Process, result: EvaluateResponse & { drawing?: DrawingResult }): SingleCheckSummary {
   const kin = req.kinematics
   return {
     theory: process.theory,

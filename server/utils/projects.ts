@@ -1,7 +1,7 @@
 import { and, asc, eq } from 'drizzle-orm'
 import { pruneDeep } from '#shared/schemas/json-bounds'
 import type { ProjectRole } from '#shared/types/db'
-import type { Graph } from '#shared/schemas/graph'
+import type { Graph, GraphView } from '#shared/schemas/graph'
 
 export function projectView(project: typeof tables.projects.$inferSelect, role: ProjectRole) {
   return {
@@ -16,7 +16,7 @@ export function projectView(project: typeof tables.projects.$inferSelect, role: 
 }
 
 /** A stored graph as sent to the editor: values nested too deep to render are cut (the row is kept). */
-function openableGraph(graph: Graph): { graph: Graph, warnings?: string[] } {
+function openableGraph(graph: Graph): { graph: GraphView, warnings?: string[] } {
   const { value, cut } = pruneDeep(graph)
   // pruneDeep cuts only below the nesting limit: the graph's shape above it stays.
   return cut.length ? { graph: value as Graph, warnings: cut.map(path => `graph.${path}: nested too deep to open; cut from this view (saving replaces it)`) } : { graph }

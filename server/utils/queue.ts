@@ -163,7 +163,10 @@ export async function queueOverview() {
       pointsPerSecond: Math.round(recent.reduce((a, r) => a + r.points, 0) / 60 * 10) / 10,
       perWorker: [...perWorker].map(([worker, v]) => ({ worker, ...v, evalMs: Math.round(v.evalMs) })),
     },
-    failed: failed.map(j => ({ id: j.id!, checkId: j.data.checkId, chunk: j.data.chunk, points: j.data.to - j.data.from, attempts: j.attemptsMade, error: j.failedReason, failedAt: j.finishedOn ?? null })),
+    failed: failed.map((j) => {
+      const d: ChunkJob = j.data
+      return { id: j.id!, checkId: d.checkId, chunk: d.chunk, points: d.to - d.from, attempts: j.attemptsMade, error: j.failedReason, failedAt: j.finishedOn ?? null }
+    }),
   }
 }
 

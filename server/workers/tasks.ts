@@ -316,8 +316,8 @@ function catalogue() {
     limits: LIMITS,
     kinematics: KinematicsSchema.options.map((o) => ({ kind: o.shape.kind.value, ...KINEMATICS_INFO[o.shape.kind.value] })),
     arithmetics: [
-      { name: 'float', description: 'complex doubles; agreement within a relative tolerance', tolerance: Object.fromEntries(Array.from({ length: 9 }, (_, k) => [k + 4, floatTolerance(k + 4)])) },
-      { name: 'exact', description: 'exact rationals; agreement means equality', tolerance: null },
+      { name: 'float' as const, description: 'complex doubles; agreement within a relative tolerance', tolerance: Object.fromEntries(Array.from({ length: 9 }, (_, k) => [k + 4, floatTolerance(k + 4)])) },
+      { name: 'exact' as const, description: 'exact rationals; agreement means equality', tolerance: null },
     ],
     verdicts: VERDICTS,
     formula: { syntax: FORMULA_SYNTAX, maxLength: FORMULA_MAX_LENGTH, maxExponent: FORMULA_MAX_EXPONENT, example: '<1 2>^4/(<1 2><2 3><3 4><4 5><5 1>)' },

@@ -72,6 +72,7 @@ export function scalarFactorisation(n: number, seed: number | string = 'factoris
 export function crossShift<T>(F: Field<T>, p: Process, k: Kin<T>, h: number[], tolerance = 1e-9): CrossShiftResult<T> {
   if ((F as unknown) === complexField && p.theory !== 'gluon') {
     // gravitons, spin s and the cubic scalar in doubles: evaluate in double-double (see toDoubleDouble), report doubles
+    // T is Complex here (F is complexField): TypeScript cannot narrow a type parameter by a value.
     const r = crossShift(ddField, p, toDoubleDouble(k as unknown as Kin<Complex>), h, tolerance)
     const rows = r.rows.map((x) => ({ ...x, value: x.value === null ? null : (fromDoubleDouble(x.value) as unknown as T) }))
     return { ...r, rows }

@@ -50,6 +50,8 @@ export interface Field<T> {
   abs(a: T): number
   equals(a: T, b: T): boolean
   toWire(a: T): WireNumber
+  /** √a in the field, or null where it is not in it (exact: not a rational square); absent: not offered. */
+  sqrt?(a: T): T | null
   /**
    * Float fields: a quantity the evaluation divides by counts as zero when |x| is below this
    * fraction of the size of the terms it was formed from (a rounding-level remainder of an exact
@@ -122,6 +124,7 @@ export const complexField: Field<Complex> = {
   abs: (a) => Math.sqrt(a.re * a.re + a.im * a.im),
   equals: (a, b) => a.re === b.re && a.im === b.im,
   toWire: (a) => [a.re, a.im],
+  sqrt: (a) => a.sqrt(),
   zeroTolerance: DOUBLE_ZERO_TOLERANCE,
 }
 
@@ -155,6 +158,26 @@ export const rationalField: Field<Fraction> = {
   abs: (a) => Math.abs(a.valueOf()),
   equals: (a, b) => a.equals(b),
   toWire: (a) => [fractionString(a), '0'],
+  sqrt: (a) => {
+    if (a.s < 0n) return null
+    const p = isqrt(a.n)
+    const q = isqrt(a.d)
+    return p * p === a.n && q * q === a.d ? new Fraction(p, q) : null
+  },
+}
+
+function isqrt(n: bigint): bigint {
+  if (n < 2n) return n
+  let x = BigInt(Math.floor(Math.sqrt(Number(n))))
+  // Newton from the double estimate, then settle exactly.
+  for (;;) {
+    const y = (x + n / x) >> 1n
+    if (y >= x) break
+    x = y
+  }
+  while (x * x > n) x--
+  while ((x + 1n) * (x + 1n) <= n) x++
+  return x
 }
 
 /** Parses an exact input: an integer or "p/q" string, reduced or not. */

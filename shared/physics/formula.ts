@@ -6,7 +6,7 @@
 // The mathjs tree is then compiled into closures over Field<T>, so exact mode stays exact
 // (decimals become exact rationals), and rendered to LaTeX for KaTeX.
 import { create, parseDependencies } from 'mathjs'
-import type { MathNode, ConstantNode, FunctionNode, OperatorNode, ParenthesisNode } from 'mathjs'
+import type { BigNumber, MathNode, ConstantNode, FunctionNode, OperatorNode, ParenthesisNode } from 'mathjs'
 import type { Field } from './field'
 import { SingularError } from './field'
 import type { Kin } from './spinors'
@@ -275,21 +275,18 @@ function fromDigits<T>(F: Field<T>, digits: string): T {
   return neg ? F.neg(acc) : acc
 }
 
-interface Decimalish {
-  toFraction(): [{ toFixed(): string }, { toFixed(): string }]
-  isInteger(): boolean
-  toNumber(): number
-}
+// Numbers parse as BigNumber (the instance is created with number: 'BigNumber'); an empty formula is a constant without a value.
+type Constant = ConstantNode<BigNumber | undefined>
 
 function argLegs(node: FunctionNode): number[] {
-  return node.args.map((a) => (a as ConstantNode).value as unknown as Decimalish).map((d) => d.toNumber() - 1)
+  return node.args.map((a) => (a as ConstantNode<BigNumber>).value).map((d) => d.toNumber() - 1)
 }
 
 /** Walks the mathjs tree in source order, compiling to closures; `opAt` yields operator positions. */
 function compile(node: MathNode, opAt: () => number): Eval {
   switch (node.type) {
     case 'ConstantNode': {
-      const v = (node as ConstantNode).value as unknown as Decimalish | undefined
+      const v = (node as Constant).value
       if (v === undefined) fail('the formula is empty', 1)
       const [num, den] = v.toFraction().map((d) => d.toFixed())
       return (F) => (den === '1' ? fromDigits(F, num!) : F.div(fromDigits(F, num!), fromDigits(F, den!)))
@@ -397,10 +394,10 @@ function compile(node: MathNode, opAt: () => number): Eval {
 function degreeOf(node: MathNode): number {
   switch (node.type) {
     case 'ConstantNode': {
-      const v = (node as ConstantNode).value as unknown as Decimalish | undefined
+      const v = (node as Constant).value
       if (v === undefined) return 0
       const [num, den] = v.toFraction()
-      const digits = num.toFixed().length + den.toFixed().length
+      const digits = num!.toFixed().length + den!.toFixed().length
       return Math.ceil(digits / 20)
     }
     case 'ParenthesisNode':
@@ -442,7 +439,7 @@ function exponentOf(node: MathNode, at: number): number {
     }
     else break
   }
-  const v = x.type === 'ConstantNode' ? ((x as ConstantNode).value as unknown as Decimalish) : null
+  const v = x.type === 'ConstantNode' ? (x as Constant).value : null
   if (!v || !v.isInteger()) fail('an exponent must be an integer', at + 1)
   const e = sign * v.toNumber()
   if (Math.abs(e) > FORMULA_MAX_EXPONENT) fail(`the exponent ${e} is too large (at most ${FORMULA_MAX_EXPONENT} in size)`, at + 1)

@@ -82,4 +82,12 @@ export type GraphNode = z.infer<typeof GraphNodeSchema>
 export type GraphEdge = z.infer<typeof GraphEdgeSchema>
 export type Process = z.infer<typeof ProcessSchema>
 
+/** T without its index signature: the declared fields only. */
+type Declared<T> = { [K in keyof T as string extends K ? never : number extends K ? never : K]: T[K] }
+/**
+ * The graph as a route returns it: nodes and edges with their declared fields (extras pass through
+ * untyped). A typed fetch cannot carry an index signature, which would hide every named field.
+ */
+export type GraphView = Omit<Graph, 'nodes' | 'edges'> & { nodes: Declared<GraphNode>[], edges: Declared<GraphEdge>[] }
+
 export const emptyGraph = (): Graph => ({ schemaVersion: GRAPH_SCHEMA_VERSION, nodes: [], edges: [] })

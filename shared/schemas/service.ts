@@ -2,9 +2,9 @@
 // EvaluateRequestSchema): stored checks, the shift table and the cross-shift check. Used by the
 // routes, the pages and the API docs page.
 import { z } from 'zod'
-import { EvaluateRequestSchema, KinematicsSchema, TheoryEnum } from './evaluate'
+import { EvaluateRequestSchema, KinematicsSchema, TheoryEnum, type EvaluateRequest, type EvaluateRequestInput, type EvaluateResponse, type Verdict, type WireComplex } from './evaluate'
 import { MEASURE_LIMITS, type TheoryName } from '../physics/theories'
-import { GraphSchema } from './graph'
+import { GraphSchema, type Process } from './graph'
 
 /**
  * The largest n for which every shift's falloff is measured exactly (`measure: true`; the theory
@@ -43,6 +43,53 @@ export const CheckRunSchema = EvaluateRequestSchema.pick({ kinematics: true, tar
 export type ShiftsRequest = z.output<typeof ShiftsRequestSchema>
 export type CrossShiftRequest = z.output<typeof CrossShiftRequestSchema>
 export type CheckRun = z.output<typeof CheckRunSchema>
+
+/**
+ * A stored check's request (column checks.request): a single check's evaluation request with the
+ * diagram's colour order, or a batch's plan (kind 'batch'). Partial: readers take what is there.
+ */
+export type CheckRequest = Partial<EvaluateRequest> & {
+  order?: number[]
+  kind?: 'batch'
+  pointSetId?: number
+  pointSetName?: string
+  process?: Process
+  target?: EvaluateRequestInput['target']
+  chunk?: number
+}
+
+/** A single check's figures beside its verdict (checkSummary on the server). */
+export interface SingleCheckSummary {
+  theory: TheoryName
+  spin?: number
+  n: number
+  helicities: number[]
+  order?: number[]
+  shift: [number, number]
+  target: string | null
+  kinematics: EvaluateRequest['kinematics']['kind']
+  seed?: number | string
+  value: WireComplex | null
+  deviation: number | null
+  falloff: EvaluateResponse['falloff']
+  warnings: number
+  engineMs: number
+  drawing?: { terms: number, complete: boolean, message?: string }
+}
+
+/** A batch's tally over its stored points (batchSummary on the server). */
+export interface BatchCheckSummary {
+  counts: Record<Verdict, number>
+  evaluated: number
+  median: number | null
+  worst: { idx: number, deviation: number | null, minInvariant: number | null } | null
+  smallestMinInvariant: number | null
+  verdict: Verdict | null
+  message?: string
+}
+
+/** Column checks.summary: either kind's fields, each optional (a reader checks what it needs). */
+export type CheckSummary = Partial<SingleCheckSummary & BatchCheckSummary>
 
 export interface ShiftRow {
   /** 1-based [i, j⟩. */

@@ -2,7 +2,7 @@
 // assembled by hand, a save conflict that loses nothing, exports, and the empty and read-only views.
 import { beforeAll, describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
-import { demoProject, glue, newDiagram, openBrowser, openEditor, runCheck, shot, signInBrowser, signedInBrowser } from '../helpers/browser'
+import { demoProject, glue, newDiagram, openEditor, runCheck, shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 
 describe('diagram editor', () => {
@@ -170,10 +170,10 @@ describe('diagram editor', () => {
     expect(errors).toEqual([])
   })
 
-  it('a viewer gets a read-only editor, told why, with no save', async () => {
-    const b = await openBrowser()
-    try {
-      await signInBrowser(b.page, demo.viewer, demo.password)
+  describe('as a viewer', () => {
+    const b = signedInBrowser(demo.viewer, demo.password)
+
+    it('a viewer gets a read-only editor, told why, with no save', async () => {
       const d = project.diagrams.find(x => x.title.startsWith('Bad shift'))!
       await openEditor(b.page, project.id, d.id)
       await expect.poll(() => b.page.locator('[data-test=read-only]').textContent()).toContain('viewer')
@@ -182,9 +182,6 @@ describe('diagram editor', () => {
       await expect.poll(() => b.page.locator('[data-test=results] [data-test=verdict]').first().textContent()).toBe('boundary term suspected')
       await shot(b.page, 'editor-viewer-bad-shift')
       expect(b.errors).toEqual([])
-    }
-    finally {
-      await b.close()
-    }
+    })
   })
 })

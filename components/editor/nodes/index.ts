@@ -11,6 +11,7 @@ import LineEdge from '../edges/LineEdge.vue'
 
 export type { LegData, VertexData, BlockData, LineData } from '#shared/editor/types'
 
+// Boundary: Vue Flow types node components by its own NodeProps; ours declare the graph's data types.
 export const nodeTypes = markRaw({
   leg: LegNode,
   angle: AngleVertexNode,

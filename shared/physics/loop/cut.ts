@@ -5,8 +5,6 @@
 // ℓ = ℓ₀ + τ v with v spanning their null space, and ℓ² = 0 is a quadratic in τ. Its root is a
 // square root: exact only where the discriminant is a rational square (every box with a
 // three-point corner next to … at rational points; four-mass and three-mass generally not).
-import type Complex from 'complex.js'
-import Fraction from 'fraction.js'
 import { SingularError, negligible, type Field } from '../field'
 import { PhysicsError } from '../errors'
 import { splitRankOne } from '../bcfw'
@@ -24,27 +22,8 @@ export interface CutSolution<T> {
 
 /** √x in the field, or null when it is not in the field (exact: not a rational square). */
 export function fieldSqrt<T>(F: Field<T>, x: T): T | null {
-  if (F.kind === 'float') return (x as unknown as Complex).sqrt() as unknown as T
-  const f = x as unknown as Fraction
-  if (f.s < 0n) return null
-  const a = isqrt(f.n)
-  const b = isqrt(f.d)
-  if (a * a !== f.n || b * b !== f.d) return null
-  return new Fraction(a, b) as unknown as T
-}
-
-function isqrt(n: bigint): bigint {
-  if (n < 2n) return n
-  let x = BigInt(Math.floor(Math.sqrt(Number(n))))
-  // Newton from the double estimate, then settle exactly.
-  for (;;) {
-    const y = (x + n / x) >> 1n
-    if (y >= x) break
-    x = y
-  }
-  while (x * x > n) x--
-  while ((x + 1n) * (x + 1n) <= n) x++
-  return x
+  if (!F.sqrt) throw new PhysicsError('arithmetic', `the ${F.kind} arithmetic here has no square root for the cut solutions`)
+  return F.sqrt(x)
 }
 
 /** The row r with r·(L00, L01, L10, L11) = 2ℓ·K (docs/conventions.md "Momenta and spinors"). */

@@ -145,6 +145,7 @@ export function berendsGiele<T>(F: Field<T>, k: Kin<T>, helicities: number[], op
 export function withDoubleDouble<T>(F: Field<T>, k: Kin<T>, precision: 'double' | 'double-double' | undefined, run: <U>(G: Field<U>, k: Kin<U>) => U): T {
   if ((F as unknown) === complexField && precision !== 'double') {
     const n = k.lambda.length
+    // T is Complex here (F is complexField): TypeScript cannot narrow a type parameter by a value.
     const kc = k as unknown as Kin<Complex>
     const toDD = (s: Spinor<Complex>): Spinor<DD> => [ddOf(s[0].re, s[0].im), ddOf(s[1].re, s[1].im)]
     let kd: Kin<DD> = { lambda: kc.lambda.map(toDD), lambdaTilde: kc.lambdaTilde.map(toDD) }

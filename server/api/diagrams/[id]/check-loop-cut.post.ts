@@ -16,8 +16,8 @@ export default defineEventHandler(async (event) => {
   const process = graph.process ?? saved.process
   const problem = loopCutProcessProblem(process)
   if (problem) throw fieldError(422, problem.field, problem.message)
-  const nodes = graph.nodes as unknown as EditorNode[]
-  const edges = graph.edges as unknown as EditorEdge[]
+  const nodes = graph.nodes as EditorNode[]
+  const edges: EditorEdge[] = graph.edges
   const v = validateLoopCut(nodes, edges, process)
   // the first thing wrong, named by its place in the graph: Lines first (a corner's complaint may follow from one)
   for (const [i, e] of edges.entries()) {

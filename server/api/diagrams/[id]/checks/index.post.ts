@@ -59,5 +59,6 @@ export default defineEventHandler(async (event) => {
   }).returning().get()
   await audit(project.id, user.id, 'check.run', 'check', row.id, { diagramId: diagram.id, diagramVersion: diagram.version, title: diagram.title, verdict: result.verdict })
   setResponseStatus(event, 201)
-  return checkView(row, user.name)
+  // The result as evaluated (the row holds the same), typed as never null.
+  return { ...checkView(row, user.name), result }
 })

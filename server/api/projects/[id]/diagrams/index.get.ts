@@ -29,8 +29,8 @@ export default defineEventHandler(async (event) => {
   // The list carries the process (for a summary line), not the whole canvas.
   return rows.map(({ graph, ...d }) => ({
     ...d,
-    process: (graph as { process?: unknown }).process ?? null,
-    nodes: ((graph as { nodes?: unknown[] }).nodes ?? []).length,
+    process: graph.process ?? null,
+    nodes: (graph.nodes ?? []).length,
     latestCheck: byDiagram.get(d.id) ?? null,
   }))
 })
