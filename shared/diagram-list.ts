@@ -4,6 +4,8 @@ export interface DiagramListItem {
   id: number
   title: string
   version: number
+  /** 'tree' (BCFW channel terms) or 'loop-cut' (rings of quadruple cuts). */
+  kind: 'tree' | 'loop-cut'
   updatedAt: string
   updatedByName: string | null
   process: { theory: string, helicities: number[], shift?: number[] } | null

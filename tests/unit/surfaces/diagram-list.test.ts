@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { filterDiagrams, sortDiagrams, type DiagramListItem } from '#shared/diagram-list'
 
 const item = (id: number, title: string, updatedAt: string, theory: string | null, verdict: string | null, checkedAt = updatedAt): DiagramListItem => ({
-  id, title, version: 1, updatedAt, updatedByName: 'Ada Example',
+  id, title, version: 1, kind: 'tree', updatedAt, updatedByName: 'Ada Example',
   process: theory ? { theory, helicities: [-1, -1, 1, 1] } : null,
   latestCheck: verdict ? { id: id * 10, kind: 'single', verdict, createdAt: checkedAt } : null,
 })
