@@ -45,18 +45,20 @@ export function useLoopCutCheck(ctx: Ctx) {
       const s = settings.value
       const body = { arithmetic: s.arithmetic, corners: s.corners, kinematics: { kind: s.arithmetic === 'exact' ? 'rational' as const : 'random' as const, seed: s.seed } }
       let res: LoopCutDrawingResult
+      let stored: number | null = null
       if (ctx.canEdit.value) {
         if (!ctx.inSync.value && !(await ctx.save('saved to check the drawing'))) throw new Error('the drawing could not be saved, so it was not checked')
         const check = await $fetch<{ id: number, result: LoopCutDrawingResult }>(`/api/diagrams/${diagramId}/checks`, { method: 'POST', body })
         res = check.result
         storedAs.value = check.id
+        stored = check.id
         ctx.checksToken.value++
       }
       else {
         res = await $fetch<LoopCutDrawingResult>(`/api/diagrams/${diagramId}/check-loop-cut`, { method: 'POST', body: { ...body, graph: store.toGraph() } })
         notStored.value = 'not stored: viewers run checks without storing them; this is a check of what is drawn'
       }
-      ranWith.value = { diagram: { id: diagramId, title: store.title, version: store.version }, ...body }
+      ranWith.value = { diagram: { id: diagramId, title: store.title, version: store.version }, ...(stored ? { check: stored } : {}), ...body }
       store.setLoopResult(res)
       open.value = true
     }

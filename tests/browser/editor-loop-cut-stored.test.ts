@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs'
 import Papa from 'papaparse'
 import { beforeAll, describe, expect, it } from 'vitest'
-import type { Download, Page } from 'playwright-core'
+import type { Page } from 'playwright-core'
 import { openEditor, shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn, type Client } from '../helpers/api'
 import { boxRings } from '#shared/editor/loop-cut'
@@ -34,7 +34,7 @@ async function runLoopCheck(page: Page) {
   await page.waitForSelector('[data-test=evaluate-quick]:not([disabled])', { timeout: 90_000 })
 }
 async function downloaded(page: Page, button: string): Promise<{ name: string, text: string }> {
-  const [d]: [Download, void] = await Promise.all([page.waitForEvent('download'), page.click(button)])
+  const [d] = await Promise.all([page.waitForEvent('download'), page.click(button)])
   return { name: d.suggestedFilename(), text: readFileSync((await d.path())!, 'utf8') }
 }
 const squash = (s: string | null) => (s ?? '').replace(/\s+/g, ' ').trim()
@@ -94,7 +94,7 @@ describe('a loop-cut diagram\'s stored check', () => {
     const json = await downloaded(page, '[data-test=loop-result] [data-test=loop-export-json]')
     expect(json.name).toBe('five-gluons-every-box-boxes.json')
     const doc = JSON.parse(json.text)
-    expect(doc).toMatchObject({ format: 'polewright-loop-cut-check', formatVersion: 1, request: { diagram: { id: diagram.id }, arithmetic: 'float', corners: 'closed', kinematics: { kind: 'random', seed: 4 } } })
+    expect(doc).toMatchObject({ format: 'polewright-loop-cut-check', formatVersion: 1, request: { diagram: { id: diagram.id }, check: checkId, arithmetic: 'float', corners: 'closed', kinematics: { kind: 'random', seed: 4 } } })
     expect(doc.result).toEqual(stored.result)
 
     // the Stored tab lists it; opening it shows it in the drawer
@@ -117,6 +117,22 @@ describe('a loop-cut diagram\'s stored check', () => {
     expect(await treeRow.locator('[data-test=diagram-kind]').textContent()).toBe('tree')
     expect(await treeRow.locator('td').nth(3).textContent()).toContain('never checked')
     await shot(page, 'loop-cut-project-list')
+    await page.selectOption('select[name=diagram-kind-filter]', 'loop-cut')
+    await expect.poll(() => page.locator('[data-test=diagram-list] tr[data-diagram]').count()).toBe(1)
+    expect(await page.locator('[data-test=diagram-list] tr[data-diagram]').getAttribute('data-diagram')).toBe(String(diagram.id))
+    await page.selectOption('select[name=diagram-kind-filter]', 'tree')
+    await expect.poll(() => page.locator('[data-test=diagram-list] tr[data-diagram]').getAttribute('data-diagram')).toBe(String(tree.id))
+
+    // the project's checks: a loop cut has no shift; its result is the sum over the boxes
+    await page.goto(`/projects/${project.id}/checks`)
+    await page.waitForLoadState('networkidle')
+    const check = page.locator(`[data-test=checks-table] tr[data-check="${checkId}"]`)
+    const cellsOf = async () => (await check.locator('td').allTextContents()).map(squash)
+    expect((await cellsOf()).slice(1, 9)).toEqual(['Five gluons, every box v2', 'gluon −−+++', 'loop cut', 'N = 4 box coefficients', 'float', '1 · seed 4', 'agrees', expect.stringMatching(/^\d\.\de−\d+$/)])
+    await check.locator('[data-test=open-result]').click()
+    const sumRe = Number(stored.result.sum[0]).toPrecision(8).replace(/-/g, '−')
+    await expect.poll(async () => squash(await page.locator('[data-test=check-detail]').textContent())).toContain(`value ${sumRe}`)
+    await shot(page, 'loop-cut-project-checks')
     expect(errors).toEqual([])
   })
 })

@@ -32,6 +32,11 @@ describe('diagram list sort and filter', () => {
     expect(filterDiagrams(list, { verdict: 'none', theory: '' }).map(d => d.id)).toEqual([3])
     expect(filterDiagrams(list, { verdict: 'agrees', theory: 'graviton' })).toEqual([])
   })
+  it('filters by kind: tree or loop cut', () => {
+    const mixed = [...list, { ...list[0]!, id: 5, kind: 'loop-cut' as const }]
+    expect(filterDiagrams(mixed, { verdict: '', theory: '', kind: 'loop-cut' }).map(d => d.id)).toEqual([5])
+    expect(filterDiagrams(mixed, { verdict: '', theory: '', kind: 'tree' }).map(d => d.id)).toEqual([1, 2, 3, 4])
+  })
   it('does not reorder its input', () => {
     const before = list.map(d => d.id)
     sortDiagrams(list, 'title')
