@@ -49,6 +49,8 @@ describe('EditorProcess on a loop-cut diagram', () => {
   it('without a process the start button sets −−++ with no shift, and no pick-the-shift button', async () => {
     const { wrapper, store } = await mountLoop(undefined)
     expect(wrapper.find('[data-test=pick-shift]').exists()).toBe(false)
+    expect(wrapper.text()).not.toContain('shift')
+    expect(wrapper.find('[data-test=loop-start-hint]').text()).toContain('generate the boxes')
     await wrapper.find('[data-test=process-start]').trigger('click')
     expect(plainCopy(store.process)).toEqual({ theory: 'gluon', helicities: [-1, -1, 1, 1] })
     expect(wrapper.find('[data-test=shift-button]').exists()).toBe(false)
