@@ -97,6 +97,14 @@ describe('a loop-cut diagram\'s stored check', () => {
     expect(doc).toMatchObject({ format: 'polewright-loop-cut-check', formatVersion: 1, request: { diagram: { id: diagram.id }, check: checkId, arithmetic: 'float', corners: 'closed', kinematics: { kind: 'random', seed: 4 } } })
     expect(doc.result).toEqual(stored.result)
 
+    // the header's Export menu offers the box table, not the tree's term table; the same file
+    await page.click('[data-test=export]')
+    const menu = page.locator('[data-test=export] + div')
+    expect(await menu.locator('button').allTextContents()).toEqual(['Diagram (JSON)', 'Canvas as PNG', 'Canvas as SVG', 'Box table (CSV)', 'Box table (JSON)', 'Import a diagram (JSON)…'])
+    await shot(page, 'loop-cut-export-menu')
+    const fromMenu = await downloaded(page, '[data-test=export] + div button:has-text("Box table (CSV)")')
+    expect(fromMenu).toEqual(csv)
+
     // the Stored tab lists it; opening it shows it in the drawer
     await page.click('[data-test=tab-checks]')
     const item = page.locator(`[data-test=check-${checkId}]`)
