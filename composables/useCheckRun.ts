@@ -14,6 +14,10 @@ import { useEditorStore } from '~~/stores/editor'
 import { processSpecies } from '#shared/editor/species'
 import { errMessage, type Say } from './useEditorNotice'
 
+function isLoopCutResult<T extends object>(r: T): r is Extract<T, { kind: 'loop-cut' }> {
+  return 'kind' in r && r.kind === 'loop-cut'
+}
+
 export interface StoredCheck { id: number, kind?: string, status?: string, result: EvaluateResponse | null, diagramVersion: number | null, summary?: { target?: string | null } | null }
 
 interface Ctx {
@@ -91,6 +95,8 @@ export function useCheckRun(ctx: Ctx) {
       const check = await $fetch(`/api/diagrams/${ctx.diagramId}/checks`, { method: 'POST', body: { ...body, probeFalloff: false, tree: false } })
       storedAs.value = check.id
       checksToken.value++
+      // a tree diagram's check; a loop cut's goes through useLoopCutCheck
+      if (!check.result || isLoopCutResult(check.result)) throw new Error('this diagram is a loop cut: its check has no tree result')
       return check.result
     }
     if (!ctx.canEdit.value && drawn) {
@@ -165,9 +171,9 @@ export function useCheckRun(ctx: Ctx) {
     try {
       const c = await $fetch(`/api/checks/${id}`)
       clear()
-      if (!c.result) {
+      if (!c.result || isLoopCutResult(c.result)) {
         // A batch check keeps its results on its batch page.
-        if (c.kind === 'batch') { batchCheck.value = c; return }
+        if (c.kind === 'batch') { batchCheck.value = { ...c, result: null }; return }
         say(`check #${id} has no result${c.status ? ` (${c.status})` : ''}`, 'error')
         return
       }

@@ -1,7 +1,8 @@
-// Exports of the diagram (JSON to import again, SVG, PNG, the term table as CSV or LaTeX) and the
-// JSON import, which replaces the canvas as one undoable step.
+// Exports of the diagram (JSON to import again, SVG, PNG, the term table as CSV or LaTeX, a loop
+// cut's box table as CSV or JSON) and the JSON import, which replaces the canvas as one undoable step.
 import { GraphSchema } from '#shared/schemas/graph'
 import { canvasSvg, exportCaption, termsCsv, termsLatex } from '#shared/editor/exports'
+import { loopDrawingCsv, loopDrawingJson } from '#shared/physics/loop/exports'
 import { useEditorStore } from '~~/stores/editor'
 import type { Say } from './useEditorNotice'
 
@@ -68,6 +69,13 @@ export function useDiagramExport(say: Say) {
     if (kind === 'csv') download(`${fileBase.value}-terms.csv`, new Blob([termsCsv(r, p)], { type: 'text/csv' }))
     else download(`${fileBase.value}-terms.tex`, new Blob([termsLatex(r, p)], { type: 'application/x-tex' }))
   }
+  /** A loop cut's box table, with what the check ran on (JSON). */
+  function exportLoopTable(kind: 'csv' | 'json', request?: Record<string, unknown> | null) {
+    const r = store.loopResult
+    if (!r) return
+    if (kind === 'csv') download(`${fileBase.value}-boxes.csv`, new Blob([loopDrawingCsv(r)], { type: 'text/csv' }))
+    else download(`${fileBase.value}-boxes.json`, new Blob([loopDrawingJson(r, request ?? undefined)], { type: 'application/json' }))
+  }
   async function importFile(input: HTMLInputElement) {
     const file = input.files?.[0]
     if (!file) return
@@ -89,5 +97,5 @@ export function useDiagramExport(say: Say) {
       input.value = ''
     }
   }
-  return { exportJson, exportSvg, exportPng, exportTable, importFile }
+  return { exportJson, exportSvg, exportPng, exportTable, exportLoopTable, importFile }
 }

@@ -5,6 +5,7 @@ import type { Graph } from '../shared/schemas/graph'
 import type { PointData } from '../shared/pointsets/types'
 import type { CheckedResponse } from '../shared/editor/drawing/evaluate'
 import type { CheckRequest, CheckSummary } from '../shared/schemas/service'
+import type { LoopCutDrawingResult } from '../shared/editor/loop-cut-check'
 
 const now = sql`(unixepoch() * 1000)`
 const createdAt = () => integer('created_at', { mode: 'timestamp_ms' }).notNull().default(now)
@@ -99,8 +100,9 @@ export const checks = sqliteTable('checks', {
   kind: text('kind', { enum: ['single', 'batch'] }).notNull().default('single'),
   status: text('status', { enum: ['queued', 'running', 'done', 'failed', 'cancelled'] }).notNull().default('done'),
   request: text('request', { mode: 'json' }).notNull().$type<CheckRequest>(),
-  // A single check's response (batch checks keep theirs per point in check_points).
-  result: text('result', { mode: 'json' }).$type<CheckedResponse>(),
+  // A single check's response (batch checks keep theirs per point in check_points); a loop-cut
+  // diagram's check keeps its box table (kind 'loop-cut' in the result).
+  result: text('result', { mode: 'json' }).$type<CheckedResponse | LoopCutDrawingResult>(),
   summary: text('summary', { mode: 'json' }).$type<CheckSummary>(),
   verdict: text('verdict'),
   engineVersion: text('engine_version').notNull(),

@@ -4,6 +4,8 @@ export interface DiagramListItem {
   id: number
   title: string
   version: number
+  /** 'tree' (BCFW channel terms) or 'loop-cut' (rings of quadruple cuts). */
+  kind: 'tree' | 'loop-cut'
   updatedAt: string
   updatedByName: string | null
   process: { theory: string, helicities: number[], shift?: number[] } | null
@@ -11,8 +13,8 @@ export interface DiagramListItem {
 }
 
 export type DiagramSort = 'updated' | 'title' | 'verdict' | 'checked'
-/** '' = any; 'none' = never checked. */
-export interface DiagramFilter { verdict: string, theory: string }
+/** '' = any; 'none' = never checked; kind 'tree' | 'loop-cut'. */
+export interface DiagramFilter { verdict: string, theory: string, kind?: string }
 
 // Worst first, so "sort by verdict" shows what needs attention at the top.
 const VERDICT_RANK: Record<string, number> = { 'disagrees': 0, 'boundary term suspected': 1, 'singular point': 2, 'not evaluated': 3, 'agrees': 4 }
@@ -20,6 +22,7 @@ const VERDICT_RANK: Record<string, number> = { 'disagrees': 0, 'boundary term su
 export function filterDiagrams<T extends DiagramListItem>(items: T[], f: DiagramFilter): T[] {
   return items.filter((d) => {
     if (f.theory && d.process?.theory !== f.theory) return false
+    if (f.kind && d.kind !== f.kind) return false
     if (f.verdict === 'none') return !d.latestCheck
     if (f.verdict && d.latestCheck?.verdict !== f.verdict) return false
     return true

@@ -226,7 +226,7 @@ export const API_SECTIONS: ApiSection[] = [
     intro: 'A check is a stored evaluation of a diagram\'s process with its provenance: request, result, verdict, engine version, arithmetic, seed, duration, who ran it and when, and the diagram version.',
     routes: [
       {
-        id: 'check-run', method: 'POST', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'editor', summary: 'Evaluates the diagram\'s process (theory, spin, helicities, colour order, shift) at the point given and stores the check. When the saved graph has drawn terms (vertices or Blocks), the check evaluates the drawing: each connected component is one term whose top-level Line must separate a channel of the shift, and the verdict is about the drawn sum against the target — an incomplete or wrong drawing never agrees.',
+        id: 'check-run', method: 'POST', path: '/api/diagrams/:id/checks', params: { id: 1 }, access: 'editor', summary: 'Evaluates the diagram\'s process (theory, spin, helicities, colour order, shift) at the point given and stores the check. When the saved graph has drawn terms (vertices or Blocks), the check evaluates the drawing: each connected component is one term whose top-level Line must separate a channel of the shift, and the verdict is about the drawn sum against the target — an incomplete or wrong drawing never agrees. On a loop-cut diagram the body is that of check-loop-cut without `graph`: the saved rings are checked as check-loop-cut does and stored, `result` being its box table.',
         schema: CheckRunSchema,
         query: [{ name: 'budgetMs', meaning: 'a smaller time budget for this request, in ms' }],
         examples: [

@@ -9,3 +9,7 @@ export const LoopCutDrawingCheckSchema = LoopCutRequestSchema.pick({ arithmetic:
   graph: GraphSchema.optional(),
 })
 export type LoopCutDrawingCheck = z.output<typeof LoopCutDrawingCheckSchema>
+
+/** POST /api/diagrams/:id/checks on a loop-cut diagram: the saved rings, checked and stored. */
+export const LoopCutCheckRunSchema = LoopCutDrawingCheckSchema.omit({ graph: true })
+export type LoopCutCheckRun = z.output<typeof LoopCutCheckRunSchema>

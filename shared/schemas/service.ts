@@ -48,13 +48,16 @@ export type CheckRun = z.output<typeof CheckRunSchema>
  * A stored check's request (column checks.request): a single check's evaluation request with the
  * diagram's colour order, or a batch's plan (kind 'batch'). Partial: readers take what is there.
  */
-export type CheckRequest = Partial<EvaluateRequest> & {
+export type CheckRequest = Partial<Omit<EvaluateRequest, 'target'>> & {
   order?: number[]
-  kind?: 'batch'
+  /** 'loop-cut': a loop-cut diagram's stored check (its settings: corners, arithmetic, kinematics). */
+  kind?: 'batch' | 'loop-cut'
+  corners?: string
   pointSetId?: number
   pointSetName?: string
   process?: Process
-  target?: EvaluateRequestInput['target']
+  /** A tree target, or 'n4-mhv' (the box coefficients of a loop-cut check). */
+  target?: EvaluateRequestInput['target'] | 'n4-mhv'
   chunk?: number
 }
 
@@ -88,8 +91,17 @@ export interface BatchCheckSummary {
   message?: string
 }
 
-/** Column checks.summary: either kind's fields, each optional (a reader checks what it needs). */
-export type CheckSummary = Partial<SingleCheckSummary & BatchCheckSummary>
+/** A loop-cut diagram's check (loopCutCheckColumns on the server), beside the single-check fields. */
+export interface LoopCutCheckSummary {
+  kind: 'loop-cut'
+  corners: string
+  rings: number
+  boxes: number
+  missing: number
+}
+
+/** Column checks.summary: any kind's fields, each optional (a reader checks what it needs). */
+export type CheckSummary = Partial<Omit<SingleCheckSummary & BatchCheckSummary, 'counts'> & LoopCutCheckSummary> & { counts?: Partial<Record<Verdict, number>> }
 
 export interface ShiftRow {
   /** 1-based [i, j⟩. */

@@ -10,14 +10,14 @@ import { useEditorStore } from '~~/stores/editor'
 export type Role = 'owner' | 'editor' | 'viewer'
 
 /** A fresh editor store holding one diagram; components mounted next use the same one. */
-export function editorWith(opts: { process?: Process, nodes?: EditorNode[], edges?: EditorEdge[], role?: Role } = {}): ReturnType<typeof useEditorStore> {
+export function editorWith(opts: { process?: Process, nodes?: EditorNode[], edges?: EditorEdge[], role?: Role, kind?: 'loop-cut' } = {}): ReturnType<typeof useEditorStore> {
   const pinia = useNuxtApp().$pinia as Pinia
   setActivePinia(pinia)
   // The previous test's store goes, state and all: the next useEditorStore() builds a new one.
   useEditorStore().$dispose()
   delete pinia.state.value.editor
   const store = useEditorStore()
-  const graph: Graph = { schemaVersion: 1, ...(opts.process ? { process: opts.process } : {}), nodes: opts.nodes ?? [], edges: opts.edges ?? [] } as Graph
+  const graph: Graph = { schemaVersion: 1, ...(opts.kind ? { kind: opts.kind } : {}), ...(opts.process ? { process: opts.process } : {}), nodes: opts.nodes ?? [], edges: opts.edges ?? [] } as Graph
   store.load({ id: 7, projectId: 3, title: 'Test diagram', version: 1, role: opts.role ?? 'editor', graph })
   return store
 }

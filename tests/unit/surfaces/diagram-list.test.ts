@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { filterDiagrams, sortDiagrams, type DiagramListItem } from '#shared/diagram-list'
 
 const item = (id: number, title: string, updatedAt: string, theory: string | null, verdict: string | null, checkedAt = updatedAt): DiagramListItem => ({
-  id, title, version: 1, updatedAt, updatedByName: 'Ada Example',
+  id, title, version: 1, kind: 'tree', updatedAt, updatedByName: 'Ada Example',
   process: theory ? { theory, helicities: [-1, -1, 1, 1] } : null,
   latestCheck: verdict ? { id: id * 10, kind: 'single', verdict, createdAt: checkedAt } : null,
 })
@@ -31,6 +31,11 @@ describe('diagram list sort and filter', () => {
     expect(filterDiagrams(list, { verdict: 'disagrees', theory: '' }).map(d => d.id)).toEqual([2])
     expect(filterDiagrams(list, { verdict: 'none', theory: '' }).map(d => d.id)).toEqual([3])
     expect(filterDiagrams(list, { verdict: 'agrees', theory: 'graviton' })).toEqual([])
+  })
+  it('filters by kind: tree or loop cut', () => {
+    const mixed = [...list, { ...list[0]!, id: 5, kind: 'loop-cut' as const }]
+    expect(filterDiagrams(mixed, { verdict: '', theory: '', kind: 'loop-cut' }).map(d => d.id)).toEqual([5])
+    expect(filterDiagrams(mixed, { verdict: '', theory: '', kind: 'tree' }).map(d => d.id)).toEqual([1, 2, 3, 4])
   })
   it('does not reorder its input', () => {
     const before = list.map(d => d.id)

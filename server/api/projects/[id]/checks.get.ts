@@ -48,6 +48,8 @@ export default defineEventHandler(async (event) => {
       ...r,
       pointSetName: r.pointSetName ?? (typeof req.pointSetName === 'string' ? req.pointSetName : null),
       process: proc.theory && Array.isArray(proc.helicities) ? { theory: proc.theory, helicities: proc.helicities } : null,
+      // a loop-cut diagram's check: boxes are cut, no shift
+      loopCut: sum?.kind === 'loop-cut',
       shift: shiftOf(sum, req),
       target: targetOf(sum, req),
       // A single check's deviation; a batch's worst one over its points.

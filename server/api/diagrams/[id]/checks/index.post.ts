@@ -1,4 +1,6 @@
 import { CheckRunSchema } from '#shared/schemas/service'
+import { LoopCutCheckRunSchema } from '#shared/schemas/loop-cut-drawing'
+import { diagramKindOf } from '#shared/editor/loop-cut'
 import type { EvaluateRequest } from '#shared/schemas/evaluate'
 import { hasDrawnTerms, type CheckedResponse } from '#shared/editor/drawing/evaluate'
 import { packDrawingGraph } from '#shared/editor/drawing/handoff'
@@ -8,11 +10,23 @@ import type { EditorEdge, EditorNode } from '#shared/editor/types'
 // point in the body, stored with its provenance (engine version, arithmetic, seed, duration, who).
 // A diagram whose graph has drawn terms is checked as drawn: the value, deviation and verdict are
 // the drawing's residue sum against the target, with the comparison in `result.drawing`.
+// A loop-cut diagram's saved rings are checked as POST /api/diagrams/:id/check-loop-cut does, and stored.
 export default defineEventHandler(async (event) => {
   const id = routeId(event)
   const { diagram, user, project } = await requireDiagramRole(event, id, 'editor')
+  if (diagramKindOf(diagram.graph) === 'loop-cut') {
+    const settings = await readValid(event, LoopCutCheckRunSchema)
+    const t0 = performance.now()
+    const columns = loopCutCheckColumns(await checkLoopCutGraph(event, diagram.graph, undefined, settings))
+    const row = await useDB().insert(tables.checks).values({
+      projectId: project.id, diagramId: diagram.id, diagramVersion: diagram.version, kind: 'single', status: 'done', ...columns,
+      durationMs: Math.round((performance.now() - t0) * 1000) / 1000, done: 1, total: 1, createdBy: user.id,
+    }).returning().get()
+    await audit(project.id, user.id, 'check.run', 'check', row.id, { diagramId: diagram.id, diagramVersion: diagram.version, title: diagram.title, verdict: row.verdict, kind: 'loop-cut' })
+    setResponseStatus(event, 201)
+    return checkView(row, user.name)
+  }
   const body = await readValid(event, CheckRunSchema)
-  refuseLoopCut(diagram.graph)
   const process = diagramProcess(diagram.graph)
   const req: EvaluateRequest = {
     ...body,

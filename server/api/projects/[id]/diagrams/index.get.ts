@@ -1,4 +1,5 @@
 import { desc, eq, sql } from 'drizzle-orm'
+import { diagramKindOf } from '#shared/editor/loop-cut'
 
 export default defineEventHandler(async (event) => {
   const { project } = await requireProjectRole(event, routeId(event), 'viewer')
@@ -26,9 +27,10 @@ export default defineEventHandler(async (event) => {
     createdAt: sql<number>`max(${c.createdAt})`,
   }).from(c).where(sql`${c.projectId} = ${project.id} and ${c.diagramId} is not null and ${c.verdict} is not null`).groupBy(c.diagramId)
   const byDiagram = new Map(latest.map(l => [l.diagramId, { id: l.id, kind: l.kind, verdict: l.verdict, diagramVersion: l.diagramVersion, createdAt: new Date(Number(l.createdAt)) }]))
-  // The list carries the process (for a summary line), not the whole canvas.
+  // The list carries the kind and the process (for a summary line), not the whole canvas.
   return rows.map(({ graph, ...d }) => ({
     ...d,
+    kind: diagramKindOf(graph),
     process: graph.process ?? null,
     nodes: (graph.nodes ?? []).length,
     latestCheck: byDiagram.get(d.id) ?? null,
