@@ -7,16 +7,13 @@ import { evaluateRequest, orderOf, processFromCanvas, toLabels } from '#shared/e
 import { defaultEvalSettings, kinematicsOf, type EvalSettings } from '#shared/editor/kinematics'
 import { FALLOFF_Z, falloffFit, log10Abs, shiftExact, type FalloffPoints } from '#shared/editor/falloff'
 import { hasDrawnTerms } from '#shared/editor/drawing/evaluate'
+import { isLoopCutResult } from '#shared/editor/loop-cut-check'
 import { alternativeShift } from '#shared/physics/falloff'
 import { processOf } from '#shared/physics/theories'
 import type { Process } from '#shared/schemas/graph'
 import { useEditorStore } from '~~/stores/editor'
 import { processSpecies } from '#shared/editor/species'
 import { errMessage, type Say } from './useEditorNotice'
-
-function isLoopCutResult<T extends object>(r: T): r is Extract<T, { kind: 'loop-cut' }> {
-  return 'kind' in r && r.kind === 'loop-cut'
-}
 
 export interface StoredCheck { id: number, kind?: string, status?: string, result: EvaluateResponse | null, diagramVersion: number | null, summary?: { target?: string | null } | null }
 

@@ -2,7 +2,7 @@
 // (a new revision), then POST /api/diagrams/:id/checks checks the saved rings and keeps the row.
 // A viewer checks the canvas as drawn with POST /api/diagrams/:id/check-loop-cut, nothing stored.
 // The result goes to the store, which marks it stale once the canvas changes.
-import type { LoopCutDrawingResult } from '#shared/editor/loop-cut-check'
+import { isLoopCutResult, type LoopCutDrawingResult } from '#shared/editor/loop-cut-check'
 import { useEditorStore } from '~~/stores/editor'
 import { errMessage, type Say } from './useEditorNotice'
 
@@ -20,8 +20,6 @@ interface Ctx {
   /** Bumped when a check is stored, so the Stored tab reloads. */
   checksToken: Ref<number>
 }
-
-interface StoredLoopCheck { id: number, diagramVersion: number | null, result: LoopCutDrawingResult | { kind?: undefined } | null }
 
 export function useLoopCutCheck(ctx: Ctx) {
   const { diagramId, say, busy } = ctx
@@ -48,14 +46,16 @@ export function useLoopCutCheck(ctx: Ctx) {
       let stored: number | null = null
       if (ctx.canEdit.value) {
         if (!ctx.inSync.value && !(await ctx.save('saved to check the drawing'))) throw new Error('the drawing could not be saved, so it was not checked')
-        const check = await $fetch<{ id: number, result: LoopCutDrawingResult }>(`/api/diagrams/${diagramId}/checks`, { method: 'POST', body })
+        const check = await $fetch(`/api/diagrams/${diagramId}/checks`, { method: 'POST', body })
+        if (!check.result || !isLoopCutResult(check.result)) throw new Error('the server answered with a tree check: reload the diagram')
         res = check.result
         storedAs.value = check.id
         stored = check.id
         ctx.checksToken.value++
       }
       else {
-        res = await $fetch<LoopCutDrawingResult>(`/api/diagrams/${diagramId}/check-loop-cut`, { method: 'POST', body: { ...body, graph: store.toGraph() } })
+        const drawn = await $fetch(`/api/diagrams/${diagramId}/check-loop-cut`, { method: 'POST', body: { ...body, graph: store.toGraph() } })
+        res = drawn
         notStored.value = 'not stored: viewers run checks without storing them; this is a check of what is drawn'
       }
       ranWith.value = { diagram: { id: diagramId, title: store.title, version: store.version }, ...(stored ? { check: stored } : {}), ...body }
@@ -72,8 +72,8 @@ export function useLoopCutCheck(ctx: Ctx) {
   /** A stored loop-cut check opened from the Stored tab. */
   async function openStored(id: number) {
     try {
-      const c = await $fetch<StoredLoopCheck>(`/api/checks/${id}`)
-      if (c.result?.kind !== 'loop-cut') { say(`check #${id} is not a loop-cut check`, 'error'); return }
+      const c = await $fetch(`/api/checks/${id}`)
+      if (!c.result || !isLoopCutResult(c.result)) { say(`check #${id} is not a loop-cut check`, 'error'); return }
       store.setLoopResult(c.result)
       storedAs.value = c.id
       notStored.value = ''

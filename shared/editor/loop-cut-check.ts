@@ -55,6 +55,11 @@ export interface DrawnBoxResult {
   note?: string
 }
 
+/** A stored check's result is a loop cut's box table (else a tree check's response). */
+export function isLoopCutResult<T extends object>(r: T): r is Extract<T, { kind: 'loop-cut' }> {
+  return 'kind' in r && r.kind === 'loop-cut'
+}
+
 export interface LoopCutDrawingResult {
   kind: 'loop-cut'
   n: number
