@@ -174,7 +174,7 @@ export function useCheckRun(ctx: Ctx) {
         say(`check #${id} has no result${c.status ? ` (${c.status})` : ''}`, 'error')
         return
       }
-      store.setResult(c.result)
+      store.setResult(c.result, c.diagramVersion)
       storedAs.value = c.id
       resultsOpen.value = true
       say(`Showing stored check #${id} (diagram v${c.diagramVersion}).`)

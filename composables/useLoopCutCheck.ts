@@ -74,7 +74,7 @@ export function useLoopCutCheck(ctx: Ctx) {
     try {
       const c = await $fetch(`/api/checks/${id}`)
       if (!c.result || !isLoopCutResult(c.result)) { say(`check #${id} is not a loop-cut check`, 'error'); return }
-      store.setLoopResult(c.result)
+      store.setLoopResult(c.result, c.diagramVersion)
       storedAs.value = c.id
       notStored.value = ''
       ranWith.value = { diagram: { id: diagramId, title: store.title, version: c.diagramVersion }, check: c.id }

@@ -472,17 +472,30 @@ export const useEditorStore = defineStore('editor', () => {
     e: edges.value.map(e => [e.source, e.sourceHandle, e.target, e.targetHandle, (e.data as LineData | undefined)?.helicity, (e.data as LineData | undefined)?.targetHelicity]),
   })
   const resultFor = ref<string | null>(null)
-  /** A result computed before the canvas or the process last changed. */
-  const resultStale = computed(() => !!result.value && resultFor.value !== computationKey())
-  const loopResultStale = computed(() => !!loopResult.value && loopResultFor.value !== computationKey())
-  function setLoopResult(r: LoopCutDrawingResult | null) {
+  // The diagram version a stored check was run on (null: run on this canvas).
+  const resultVersion = ref<number | null>(null)
+  const loopResultVersion = ref<number | null>(null)
+  /** Why a result no longer describes the canvas ('' while it does). */
+  function staleWhy(has: boolean, key: string | null, from: number | null) {
+    if (!has) return ''
+    if (from !== null && from !== version.value) return `stale: this stored check was run on v${from}; the canvas shows v${version.value} — run the check again`
+    return key !== computationKey() ? 'stale: the canvas or the process changed after this run — run the check again' : ''
+  }
+  const resultStaleWhy = computed(() => staleWhy(!!result.value, resultFor.value, resultVersion.value))
+  const loopResultStaleWhy = computed(() => staleWhy(!!loopResult.value, loopResultFor.value, loopResultVersion.value))
+  /** A result computed before the canvas or the process last changed, or a stored one of another version. */
+  const resultStale = computed(() => !!resultStaleWhy.value)
+  const loopResultStale = computed(() => !!loopResultStaleWhy.value)
+  function setLoopResult(r: LoopCutDrawingResult | null, fromVersion: number | null = null) {
     loopResult.value = r
     loopResultFor.value = r ? computationKey() : null
+    loopResultVersion.value = r ? fromVersion : null
   }
-  function setResult(r: EvaluateResponse | null) {
+  function setResult(r: EvaluateResponse | null, fromVersion: number | null = null) {
     result.value = r
     resultKey.value = r && process.value ? processKey(process.value) : null
     resultFor.value = r ? computationKey() : null
+    resultVersion.value = r ? fromVersion : null
   }
 
   // ---- selection ----
@@ -511,7 +524,7 @@ export const useEditorStore = defineStore('editor', () => {
   return {
     diagramId, projectId, title, version, role, process, kind, settings, nodes, edges, expansion, tree, selection, selectedEdges,
     undoStack, redoStack, canUndo, canRedo, result, resultKey, highlightTerm, shiftPick, pickingShift, fitToken, lastLayoutMs,
-    readOnly, validation, nodeById, resultStale, focusTerm, dimmed, expansionStale, termComponents, highlighted, dirty,
+    readOnly, validation, nodeById, resultStale, resultStaleWhy, loopResultStaleWhy, focusTerm, dimmed, expansionStale, termComponents, highlighted, dirty,
     toGraph, load, markSaved, commit, undo, redo, setProcess, setShift, setTitle, pickLeg,
     addNode, connect, updateNodeData, setNodeType, updateEdgeData, flipLine, moveNodes, removeIds, removeSelected, clearCanvas, tidy,
     applyExpansion, setTree, canExpand, expandBlock, collapsiblePath, collapseAt, expandAll, specOfNode,
