@@ -147,6 +147,21 @@ export function hasDrawnTerms(nodes: { type: string }[]): boolean {
   return nodes.some(n => n.type !== 'leg')
 }
 
+/** What a drawing compiles to before any point: its structure and its comparison with the recursion (read-only: a cache may hand it to many checks). */
+export interface CompiledDrawing {
+  structure: DrawingStructure
+  comparison: DrawingComparison
+}
+
+/** Validates and compiles a drawing for `proc` (the process with the shift the check uses) and compares it with the recursion. */
+export function compileDrawing(proc: GraphProcess, graph: { nodes: EditorNode[], edges: EditorEdge[] }): CompiledDrawing {
+  const structure = validateGraph(graph.nodes, graph.edges, proc).drawing
+  // Built when a message names a line (a complete drawing names none).
+  let edgeById: Map<string, EditorEdge> | null = null
+  const lineName = (e: string) => (((edgeById ??= new Map(graph.edges.map(x => [x.id, x]))).get(e)?.data ?? {}) as LineData).line ?? 'a line'
+  return { structure, comparison: compareDrawing(proc, structure, lineName) }
+}
+
 /**
  * A check of the drawing: `res` is the engine's answer for the process (its full recursion, the
  * target, the point used — in the diagram's labels), `graph` the canvas. The value, deviation and
@@ -155,12 +170,13 @@ export function hasDrawnTerms(nodes: { type: string }[]): boolean {
  */
 export function checkDrawing(res: EvaluateResponse, process: GraphProcess, graph: { nodes: EditorNode[], edges: EditorEdge[] }): CheckedResponse {
   const proc: GraphProcess = { ...process, shift: res.shift }
-  const v = validateGraph(graph.nodes, graph.edges, proc)
-  const s = v.drawing
-  // Built when a message names a line (a complete drawing names none).
-  let edgeById: Map<string, EditorEdge> | null = null
-  const lineName = (e: string) => (((edgeById ??= new Map(graph.edges.map(x => [x.id, x]))).get(e)?.data ?? {}) as LineData).line ?? 'a line'
-  const comparison = compareDrawing(proc, s, lineName)
+  return checkCompiled(res, proc, compileDrawing(proc, graph))
+}
+
+/** checkDrawing from a compiled drawing (`proc` carries the check's shift); `compiled` is left as it is. */
+export function checkCompiled(res: EvaluateResponse, proc: GraphProcess, compiled: CompiledDrawing): CheckedResponse {
+  const s = compiled.structure
+  const comparison: DrawingComparison = { ...compiled.comparison, messages: [...compiled.comparison.messages] }
   const recursion = { value: res.value, deviation: res.deviation, verdict: res.verdict }
   const P = parsersFor(res.arithmetic, res.theory)
   const F = P.F
