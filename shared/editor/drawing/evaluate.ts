@@ -155,7 +155,7 @@ export interface CompiledDrawing {
 
 /** Validates and compiles a drawing for `proc` (the process with the shift the check uses) and compares it with the recursion. */
 export function compileDrawing(proc: GraphProcess, graph: { nodes: EditorNode[], edges: EditorEdge[] }): CompiledDrawing {
-  const structure = validateGraph(graph.nodes, graph.edges, proc).drawing
+  const structure = validateGraph(graph.nodes, graph.edges, proc, { slots: false }).drawing
   // Built when a message names a line (a complete drawing names none).
   let edgeById: Map<string, EditorEdge> | null = null
   const lineName = (e: string) => (((edgeById ??= new Map(graph.edges.map(x => [x.id, x]))).get(e)?.data ?? {}) as LineData).line ?? 'a line'

@@ -429,7 +429,8 @@ export function compileStructure(input: StructureInput): DrawingStructure {
   const terms: DrawnTerm[] = []
   const p = process ? engineProcess(process) : null
   const shift = process ? drawingShift(process) : null
-  const edgeById = new Map(edges.map(e => [e.id, e]))
+  const edgeById = new Map<string, EditorEdge>()
+  for (const e of edges) edgeById.set(e.id, e)
   let anon = 0
   const anonNames = new Map<string, string>()
   const lineName = (edge: string) => {

@@ -13,6 +13,7 @@ import type { Process } from '#shared/schemas/graph'
 import type { EvaluateRequestInput } from '#shared/schemas/evaluate'
 import { DRAWING_CACHE_SIZE, checkPackedDrawing, clearDrawingCache, compilePacked } from '../../../server/workers/drawing-cache'
 import { runTask } from '../../../server/workers/tasks'
+import { validateGraph } from '#shared/editor/validate'
 import { flipped } from '../../helpers/drawing'
 
 type G = { nodes: EditorNode[], edges: EditorEdge[] }
@@ -107,5 +108,30 @@ describe('compiled drawings kept by the worker', () => {
     const objects = strip(runTask({ kind: 'checkDrawing', req, process: p8, graph: drawingGraph(g8) }))
     expect(strip(runTask({ kind: 'checkDrawing', req, process: p8, graph: sent(g8) }))).toEqual(objects)
     expect(strip(runTask({ kind: 'checkDrawing', req, process: p8, graph: sent(g8) }))).toEqual(objects)
+  })
+
+  it('the check\'s validation (no slot records) finds what the editor\'s does, on whole and broken canvases', () => {
+    const res = resOf(p8)
+    const proc = { ...p8, shift: res.shift }
+    const line = lineOf(checkDrawing(res, p8, g8))
+    // Whole, a flipped Line, a leg off its slot, a Line to a slot the vertex lacks.
+    const broken: G[] = [
+      g8,
+      flipped(g8, line),
+      { nodes: g8.nodes, edges: g8.edges.filter((_, t) => t !== 0) },
+      { nodes: g8.nodes, edges: g8.edges.map((e, t) => (t === 1 ? { ...e, targetHandle: 'h7' } : e)) },
+    ]
+    // Quarks: codes at every slot, and a quark Line drawn as a gluon.
+    const pq: Process = { theory: 'qcd', helicities: [-0.5, 0.5, -1, 1, 1], species: ['qbar1', 'q1', 'g', 'g', 'g'], shift: [3, 1] }
+    const gq = expandedGraph(pq, true) as G
+    const gluonLine: G = { nodes: gq.nodes, edges: gq.edges.map(e => (e.data?.species ? { ...e, data: { ...e.data, species: undefined } } : e)) }
+    const all: [Process, G][] = [...broken.map(g => [proc, g] as [Process, G]), [pq, gq], [pq, gluonLine]]
+    for (const [pr, g] of all) {
+      const full = validateGraph(g.nodes, g.edges, pr)
+      const lean = validateGraph(g.nodes, g.edges, pr, { slots: false })
+      expect(lean.slots).toEqual({})
+      expect({ ...lean, slots: full.slots }).toEqual(full)
+    }
+    expect(validateGraph(gluonLine.nodes, gluonLine.edges, pq).errorCount).toBeGreaterThan(0)
   })
 })
