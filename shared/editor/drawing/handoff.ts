@@ -34,7 +34,6 @@ const TRUE = 4
 const FALSE = 5
 const OTHER = 6
 const NUMS = 7
-const NODE = 8
 
 const numbersOnly = (v: unknown[]) => {
   for (let t = 0; t < v.length; t++) if (typeof v[t] !== 'number') return false
@@ -74,7 +73,6 @@ export function packDrawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[]
     }
     else { nums[n++] = OTHER; nums[n++] = other.length; other.push(v) }
   }
-  const index = new Map<string, number>()
   for (let k = 0; k < nodesIn.length; k++) {
     const nd = nodesIn[k]!
     room(16)
@@ -85,19 +83,14 @@ export function packDrawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[]
     put(nd.id)
     if (nd.type === 'leg') { put(d.label); put(d.helicity); put(d.species) }
     else if (nd.type === 'block') put(d.helicities)
-    if (!index.has(nd.id)) index.set(nd.id, k)
-  }
-  const end = (id: string) => {
-    const k = index.get(id)
-    if (k === undefined) put(id)
-    else { nums[n++] = NODE; nums[n++] = k }
   }
   for (const e of edgesIn) {
     room(32)
     const d = (e.data ?? {}) as Record<string, unknown>
     put(e.id)
-    end(e.source)
-    end(e.target)
+    // Ends as strings: an index of node ids cost more to build than the longer text costs to copy.
+    put(e.source)
+    put(e.target)
     put(e.sourceHandle ?? null)
     put(e.targetHandle ?? null)
     put(d.helicity)
@@ -145,10 +138,6 @@ export function unpackDrawingGraph(p: PackedGraph): { nodes: EditorNode[], edges
         const out: number[] = []
         for (let t = 0; t < len; t++) out.push(nums[at++]!)
         return out
-      }
-      case NODE: {
-        const k = num()
-        return Number.isInteger(k) && k >= 0 && k < p.nodeCount && nodes[k] ? nodes[k].id : fail('no such node')
       }
       default: return fail(`unknown value tag ${tag}`)
     }

@@ -110,10 +110,17 @@ export function engineProcess(p: GraphProcess): Process | null {
   return processOf(p.theory, p.spin)
 }
 
+/** 1..n (a loop: Array.from over an array-like costs more than a drawn term). */
+export function labelsUpTo(n: number): number[] {
+  const out: number[] = []
+  for (let t = 0; t < n; t++) out.push(t + 1)
+  return out
+}
+
 /** Colour order (labels) of a process: `order` when it is a permutation, else 1..n. */
 function colourOrder(p: GraphProcess, colourOrdered: boolean): number[] {
   const n = p.helicities.length
-  const id = Array.from({ length: n }, (_, t) => t + 1)
+  const id = labelsUpTo(n)
   if (!colourOrdered || !p.order || p.order.length !== n) return id
   const seen = new Set(p.order)
   return seen.size === n && p.order.every(l => Number.isInteger(l) && l >= 1 && l <= n) ? p.order : id

@@ -5,7 +5,8 @@
 // which drawing.test.ts checks against Parke–Taylor / Berends–Giele.
 import { beforeEach, describe, expect, it } from 'vitest'
 import { expandedGraph } from '#shared/editor/demo'
-import { checkDrawing, compileDrawing, drawingGraph, packDrawingGraph, type CheckedResponse } from '#shared/editor/drawing'
+import { checkDrawing, compileDrawing, drawingGraph, drawnValues, packDrawingGraph, sharedParts, type CheckedResponse } from '#shared/editor/drawing'
+import { Complex, complexField } from '#shared/physics/field'
 import { evaluateRequest, toLabels } from '#shared/editor/process'
 import type { EditorEdge, EditorNode } from '#shared/editor/types'
 import { evaluate } from '#shared/physics/index'
@@ -133,5 +134,39 @@ describe('compiled drawings kept by the worker', () => {
       expect({ ...lean, slots: full.slots }).toEqual(full)
     }
     expect(validateGraph(gluonLine.nodes, gluonLine.edges, pq).errorCount).toBeGreaterThan(0)
+  })
+
+  it('components sharing a channel evaluate it once, to the same values as each alone; a term drawn twice still counts twice', () => {
+    // 8-gluon NMHV under [1,2⟩ fully expanded: ten components, several per channel.
+    const p: Process = { theory: 'gluon', helicities: [-1, 1, -1, 1, 1, -1, 1, 1], shift: [1, 2] }
+    const g = expandedGraph(p, true) as G
+    const res = resOf(p)
+    const proc = { ...p, shift: res.shift }
+    const { structure, shared } = compileDrawing(proc, g)
+    expect(shared).not.toBeNull()
+    expect(shared!.cks).toBeLessThan([...shared!.ids.values()].filter(x => x.ck >= 0).length)
+    const c = (x: unknown) => new Complex((x as number[])[0]!, (x as number[])[1]!)
+    const kin = { lambda: res.kinematics.lambda.map(s => [c(s[0]), c(s[1])]), lambdaTilde: res.kinematics.lambdaTilde.map(s => [c(s[0]), c(s[1])]) } as never
+    const once = drawnValues(complexField, proc, structure, kin, shared)
+    const each = drawnValues(complexField, proc, structure, kin, null)
+    expect(once).toEqual(each)
+    expect(checkDrawing(res, p, g).verdict).toBe('agrees')
+    // The same term drawn twice: shared, and summed twice.
+    const v = compileDrawing(proc, g8)
+    const ids = new Set(v.structure.terms[0]!.nodeIds)
+    const copy: G = {
+      nodes: [...g8.nodes, ...g8.nodes.filter(n => ids.has(n.id)).map(n => ({ ...n, id: `${n.id}x` }))],
+      edges: [...g8.edges, ...g8.edges.filter(e => ids.has(e.source)).map(e => ({ ...e, id: `${e.id}x`, source: `${e.source}x`, target: `${e.target}x` }))],
+    }
+    const res8 = resOf(p8)
+    const twice = compileDrawing({ ...p8, shift: res8.shift }, copy)
+    expect(twice.shared).not.toBeNull()
+    const r = checkDrawing(res8, p8, copy)
+    expect(r.verdict).not.toBe('agrees')
+    expect(r.drawing!.comparison.duplicated.length).toBe(1)
+    const values = r.drawing!.terms.map(t => t.value!)
+    const sum = values.reduce((a, x) => [Number(a[0]) + Number(x[0]), Number(a[1]) + Number(x[1])], [0, 0])
+    expect(Math.hypot(Number(r.drawing!.sum![0]) - sum[0], Number(r.drawing!.sum![1]) - sum[1])).toBeLessThan(1e-12 * Math.hypot(sum[0], sum[1]))
+    expect(values[0]).toEqual(values.at(-1))
   })
 })
