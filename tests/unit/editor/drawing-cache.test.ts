@@ -144,6 +144,7 @@ describe('compiled drawings kept by the worker', () => {
     const proc = { ...p, shift: res.shift }
     const { structure, shared } = compileDrawing(proc, g)
     expect(shared).not.toBeNull()
+    expect(sharedParts(structure)).toEqual(shared)
     expect(shared!.cks).toBeLessThan([...shared!.ids.values()].filter(x => x.ck >= 0).length)
     const c = (x: unknown) => new Complex((x as number[])[0]!, (x as number[])[1]!)
     const kin = { lambda: res.kinematics.lambda.map(s => [c(s[0]), c(s[1])]), lambdaTilde: res.kinematics.lambdaTilde.map(s => [c(s[0]), c(s[1])]) } as never
