@@ -125,9 +125,11 @@ function dispatch(task: Task): unknown {
     case 'checkDrawing': {
       const t0 = performance.now()
       const res = task.order ? evaluateInOrder(task.req, task.order) : evaluate(task.req)
-      // A packed graph is compiled once per drawing and process (cache.ts): a check run again skips it.
+      // A packed graph is compiled once per drawing and process (drawing-cache.ts): a check run again skips it.
       const out = 'nums' in task.graph ? checkPackedDrawing(res, task.process, task.graph) : checkDrawing(res, task.process, task.graph)
-      return { ...out, ms: round3(performance.now() - t0) }
+      // A fresh object: set its time rather than copy it.
+      out.ms = round3(performance.now() - t0)
+      return out
     }
   }
 }

@@ -284,6 +284,7 @@ export function checkCompiled(res: EvaluateResponse, proc: GraphProcess, compile
   let singular: string | null = res.value === null && res.verdict === 'singular point' ? (res.warnings.find(w => w.startsWith('singular point')) ?? 'singular point') : null
   let deviation: number | null = null
   let sum: unknown = null
+  const target = res.target?.value ? P.num(res.target.value) : null
   if (!singular) {
     const dv = drawnValues(F, proc, s, P.kin(res.kinematics), compiled.shared)
     sum = dv.sum
@@ -306,7 +307,6 @@ export function checkCompiled(res: EvaluateResponse, proc: GraphProcess, compile
     })
     const singularTerm = dv.terms.find(x => x.singular)
     if (singularTerm) comparison.messages.push(`a drawn term meets a singular point: ${singularTerm.singular}`)
-    const target = res.target?.value ? P.num(res.target.value) : null
     if (target !== null) deviation = deviationOf(F, dv.sum, target, dv.terms.filter(x => x.value !== null).map(x => x.value!))
     if (F.kind === 'float' && !Number.isFinite(F.abs(dv.sum))) singular = 'a non-finite drawn sum'
   }
@@ -316,7 +316,6 @@ export function checkCompiled(res: EvaluateResponse, proc: GraphProcess, compile
   const species = processSpecies(proc)
   const codes = species ? order.map(l => codeOf(species[l - 1])) : undefined
   const pos = (l: number) => order.indexOf(l)
-  const target = res.target?.value ? P.num(res.target.value) : null
   let verdict = decideVerdict({
     singular: !!singular,
     targetNone: res.target === null,
