@@ -55,7 +55,9 @@ export function partKeyer(): (x: DrawnPart) => string {
     if (x.kind === 'block') return 'B'
     let k = keys.get(x)
     if (k === undefined) {
-      const full = `T${x.shift[0]},${x.shift[1]}{${x.L.join(',')}}${x.helicity}(${key(x.left)})(${key(x.right)})`
+      let mask = 0
+      for (const u of x.L) mask |= 1 << u
+      const full = `T${x.shift[0]},${x.shift[1]},${mask},${x.helicity}(${key(x.left)})(${key(x.right)})`
       k = ids.get(full)
       if (k === undefined) ids.set(full, (k = `#${ids.size}`))
       keys.set(x, k)
@@ -79,6 +81,14 @@ function chKey(L: readonly number[], h: number): number {
   return mask * 64 + 2 * h + 32
 }
 
+// The keys of a live-channel list (liveChannels hands out the same list for the same amplitude).
+const liveKeySets = new WeakMap<readonly { L: readonly number[], helicity: number }[], Set<number>>()
+function liveKeysOf(live: readonly { L: readonly number[], helicity: number }[]): Set<number> {
+  let k = liveKeySets.get(live)
+  if (!k) liveKeySets.set(live, (k = new Set(live.map(c => chKey(c.L, c.helicity)))))
+  return k
+}
+
 function times(k: number): string {
   return k === 2 ? 'twice' : `${k} times`
 }
@@ -96,9 +106,9 @@ function cover(cx: Cx, parts: DrawnPart[], context: () => string): Problem[] {
   }
   if (parts.some(x => x.kind !== 'term')) return [{ type: 'duplicated', message: `${whereOf()} is drawn both as one ${parts.find(x => x.kind !== 'term')!.kind === 'block' ? 'Block' : 'vertex'} and expanded: it is counted more than once` }]
   const terms = parts as Extract<DrawnPart, { kind: 'term' }>[]
-  const shifts = new Set(terms.map(t => t.shift.join(',')))
   const first = terms[0]!
-  if (shifts.size > 1) return [{ type: 'duplicated', message: `${whereOf()} is expanded under ${shifts.size} different shifts: expand it under one` }]
+  const shifts = terms.length === 1 ? null : new Set(terms.map(t => t.shift.join(',')))
+  if (shifts && shifts.size > 1) return [{ type: 'duplicated', message: `${whereOf()} is expanded under ${shifts.size} different shifts: expand it under one` }]
   const [a, b] = first.shift
   const names = () => first.legs.map(l => legName(l, lineName))
   const sh = () => `[${names()[a]}, ${names()[b]}⟩`
@@ -115,7 +125,7 @@ function cover(cx: Cx, parts: DrawnPart[], context: () => string): Problem[] {
   for (const c of live) {
     if (!groups.has(chKey(c.L, c.helicity))) out.push({ type: 'missing', message: `${whereOf()}: its term ${chName(c.L, c.helicity)} under ${sh()} is not drawn` })
   }
-  const liveKeys = new Set(live.map(c => chKey(c.L, c.helicity)))
+  const liveKeys = liveKeysOf(live)
   for (const [k, g] of groups) {
     const t0 = g[0]!
     if (!liveKeys.has(k)) {

@@ -315,7 +315,16 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
   for (const id of region) {
     for (const x of linksOf(ctx, id)) if (inside.has(x.to) && id < x.to) lines.push({ edge: x.edge, a: id, b: x.to, rank: x.rank })
   }
-  lines.sort((x, y) => x.rank - y.rank)
+  // Stable insertion sort: a region has a few Lines, often in order already (sort with a comparator costs more).
+  for (let t = 1; t < lines.length; t++) {
+    const x = lines[t]!
+    let u = t - 1
+    while (u >= 0 && lines[u]!.rank > x.rank) {
+      lines[u + 1] = lines[u]!
+      u--
+    }
+    lines[u + 1] = x
+  }
   // For each Line: the amplitude's legs on its `a` side (a bit mask of positions; −1 when one repeats) and the nodes there.
   const sideOf = (line: { edge: string, a: string }) => {
     let mask = 0
