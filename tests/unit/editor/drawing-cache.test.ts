@@ -147,7 +147,8 @@ describe('compiled drawings kept by the worker', () => {
     expect(sharedParts(structure)).toEqual(shared)
     expect(shared!.cks).toBeLessThan([...shared!.ids.values()].filter(x => x.ck >= 0).length)
     const c = (x: unknown) => new Complex((x as number[])[0]!, (x as number[])[1]!)
-    const kin = { lambda: res.kinematics.lambda.map(s => [c(s[0]), c(s[1])]), lambdaTilde: res.kinematics.lambdaTilde.map(s => [c(s[0]), c(s[1])]) } as never
+    const sp = (s: unknown) => [c((s as unknown[])[0]), c((s as unknown[])[1])]
+    const kin = { lambda: res.kinematics.lambda.map(sp), lambdaTilde: res.kinematics.lambdaTilde.map(sp) } as never
     const once = drawnValues(complexField, proc, structure, kin, shared)
     const each = drawnValues(complexField, proc, structure, kin, null)
     expect(once).toEqual(each)
@@ -166,7 +167,7 @@ describe('compiled drawings kept by the worker', () => {
     expect(r.verdict).not.toBe('agrees')
     expect(r.drawing!.comparison.duplicated.length).toBe(1)
     const values = r.drawing!.terms.map(t => t.value!)
-    const sum = values.reduce((a, x) => [Number(a[0]) + Number(x[0]), Number(a[1]) + Number(x[1])], [0, 0])
+    const sum = values.reduce<[number, number]>((a, x) => [a[0] + Number(x[0]), a[1] + Number(x[1])], [0, 0])
     expect(Math.hypot(Number(r.drawing!.sum![0]) - sum[0], Number(r.drawing!.sum![1]) - sum[1])).toBeLessThan(1e-12 * Math.hypot(sum[0], sum[1]))
     expect(values[0]).toEqual(values.at(-1))
   })
