@@ -121,16 +121,24 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     hs.push(h)
   }
   const at = (id: string, h: string) => atNode.get(id)?.get(h)
+  // Edges between two different existing nodes, with their ends' indices and whether a leg is at an end.
+  const validEdges: EditorEdge[] = []
+  const ends: number[] = []
+  const externalAt: boolean[] = []
   for (const e of edges) {
-    if (!nodes.has(e.source) || !nodes.has(e.target)) continue
+    const a = nodes.get(e.source)
+    const b = nodes.get(e.target)
+    if (!a || !b) continue
     if (e.source === e.target) { add(e.source, 'error', 'a line from this node back to itself: glue two different nodes'); continue }
+    const external = a.type === 'leg' || b.type === 'leg'
+    validEdges.push(e)
+    ends.push(uid.get(e.source)!, uid.get(e.target)!)
+    externalAt.push(external)
     attach(e.source, e.sourceHandle, e)
     attach(e.target, e.targetHandle, e)
-    const a = nodes.get(e.source)!
-    const b = nodes.get(e.target)!
     if (a.type === 'leg' && b.type === 'leg') addEdge(e.id, 'error', 'two legs joined directly: attach legs to a vertex or a block')
     const d = (e.data ?? {}) as LineData
-    if (!isExternal(e, nodes) && d.helicity !== undefined) {
+    if (!external && d.helicity !== undefined) {
       if (d.targetHelicity !== undefined && d.targetHelicity !== -d.helicity) {
         const msg = `line ${d.line ?? ''} joins ${sign(d.helicity)} to ${sign(d.targetHelicity)}: an internal line joins opposite helicities`.replace('  ', ' ')
         addEdge(e.id, 'error', msg, false)
@@ -250,8 +258,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     }
     return r
   }
-  const validEdges = edges.filter(e => nodes.has(e.source) && nodes.has(e.target) && e.source !== e.target)
-  for (const e of validEdges) parent[find(uid.get(e.source)!)] = find(uid.get(e.target)!)
+  for (let t = 0; t < validEdges.length; t++) parent[find(ends[2 * t]!)] = find(ends[2 * t + 1]!)
   const groups = new Map<number, string[]>()
   for (const x of nodesIn) {
     const r = find(uid.get(x.id)!)
@@ -262,10 +269,10 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const edgeCount = new Map<number, number>()
   // Internal lines per component, found in one pass (a filter per component was quadratic).
   const linesByRoot = new Map<number, string[]>()
-  for (const e of validEdges) {
-    const r = find(uid.get(e.source)!)
+  for (let t = 0; t < validEdges.length; t++) {
+    const r = find(ends[2 * t]!)
     edgeCount.set(r, (edgeCount.get(r) ?? 0) + 1)
-    if (!isExternal(e, nodes)) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(e.id)
+    if (!externalAt[t]) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(validEdges[t]!.id)
   }
   const components: Component[] = []
   for (const [root, ids] of groups) {

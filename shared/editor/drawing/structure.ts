@@ -467,8 +467,13 @@ export function compileStructure(input: StructureInput): DrawingStructure {
     // Both shifted legs on one vertex or Block: no line of this term can separate them.
     if (shift) {
       for (const id of inner) {
-        const legs = (slots.get(id) ?? []).map(s => s.leg)
-        if (legs.includes(shift[0]) && legs.includes(shift[1])) {
+        let i = false
+        let j = false
+        for (const x of slots.get(id) ?? []) {
+          if (x.leg === shift[0]) i = true
+          else if (x.leg === shift[1]) j = true
+        }
+        if (i && j) {
           const what = byId.get(id)!.type === 'block' ? 'Block' : 'vertex'
           const message = `both shifted legs ${shift[0]} and ${shift[1]} of [${shift[0]}, ${shift[1]}⟩ sit on this ${what}: a term's top-level line must separate them`
           issues.push({ id, on: 'node', level: 'error', message })
