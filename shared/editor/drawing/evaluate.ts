@@ -76,9 +76,10 @@ function parsersFor(arithmetic: 'float' | 'exact', theory: string): Parsers<unkn
 /**
  * Which channel kinematics and part values several drawn components share: components of one
  * channel (an expanded sub-amplitude distributes over them) cut the same channels at the same point
- * and often hold the same side. Ids: a channel at given kinematics (the kinematics named by the
- * channel above it), a part at given kinematics (its structure, helicities, codes, zero flags), so
- * each is evaluated once. Null when nothing is shared (each part evaluated as it stands).
+ * and often hold the same side. Ids: a channel at given kinematics (named by the channel above
+ * it), a part at given kinematics (its kind, zero flag, and for a channel its cut and sides), so
+ * each is evaluated once. Parts with no id (the only component of their channel) and a null result
+ * (nothing shared) are evaluated as they stand.
  */
 export interface SharedParts {
   ids: Map<DrawnPart, { ck: number, val: number }>
@@ -112,8 +113,9 @@ export function sharedParts(s: DrawingStructure): SharedParts | null {
     return mask
   }
   // `kin` numbers the kinematics and, with them, the helicities and codes of the amplitude read
-  // there (the process's at the top: 0; a side of a numbered channel with its internal helicity
-  // below), so a part's id needs only its kind and zero flag or, for a channel, its cut and sides.
+  // there (the process's at the top: 0; below, a side of a numbered channel with the helicity at
+  // its end of the Line; codes follow from the channel), so a part's id needs only its kind and
+  // zero flag or, for a channel, its cut, helicity and sides.
   const hel = (h: number) => Math.round(2 * h) + 64
   const walk = (x: DrawnPart, kin: number): number => {
     let ck = -1
@@ -121,9 +123,10 @@ export function sharedParts(s: DrawingStructure): SharedParts | null {
     if (x.kind === 'term') {
       const c = intern(ckIds, ((kin * 32 + x.shift[0]) * 32 + x.shift[1]) * 65536 + maskOf(x.L), () => ckIds.size)
       ck = c
-      const side = (r: 0 | 1) => ((c + 1) * 256 + hel(x.helicity)) * 2 + r
-      const l = walk(x.left, side(0))
-      const r = walk(x.right, side(1))
+      // Each side named with the helicity at its own end of the Line (a Line drawn + to + has two).
+      const side = (y: DrawnPart, r: 0 | 1) => ((c + 1) * 256 + hel(y.helicities.at(-1)!)) * 2 + r
+      const l = walk(x.left, side(x.left, 0))
+      const r = walk(x.right, side(x.right, 1))
       val = intern(termIds, ((c * 256 + hel(x.helicity)) * 65536 + l) * 65536 + r, () => vals++)
     }
     else val = intern(leafIds, (kin * 3 + (x.kind === 'block' ? 2 : x.vertexKind === 'angle' ? 0 : 1)) * 2 + (x.zero ? 1 : 0), () => vals++)

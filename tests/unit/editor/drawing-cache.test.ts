@@ -153,6 +153,15 @@ describe('compiled drawings kept by the worker', () => {
     const each = drawnValues(complexField, proc, structure, kin, null)
     expect(once).toEqual(each)
     expect(checkDrawing(res, p, g).verdict).toBe('agrees')
+    // Every Line in turn drawn joining a helicity to itself (a kept error: its two sides differ from a
+    // consistent drawing's), the rest as they were: shared and unshared evaluations still agree.
+    for (const e of g.edges) {
+      const d = e.data as { helicity?: number, external?: boolean }
+      if (d.external || d.helicity === undefined) continue
+      const odd: G = { nodes: g.nodes, edges: g.edges.map(x => (x === e ? { ...x, data: { ...x.data, targetHelicity: d.helicity } } : x)) }
+      const c2 = compileDrawing(proc, odd)
+      expect(drawnValues(complexField, proc, c2.structure, kin, c2.shared)).toEqual(drawnValues(complexField, proc, c2.structure, kin, null))
+    }
     // The same term drawn twice: shared, and summed twice.
     const v = compileDrawing(proc, g8)
     const ids = new Set(v.structure.terms[0]!.nodeIds)
