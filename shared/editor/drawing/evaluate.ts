@@ -65,7 +65,13 @@ function parsersFor(arithmetic: 'float' | 'exact', theory: string): Parsers<unkn
     const sp = (s: unknown): Spinor<unknown> => [parseRational(String((s as string[])[0])), parseRational(String((s as string[])[1]))]
     return { F: rationalField as Field<unknown>, num: w => parseRational(String(w[0])), kin: w => ({ lambda: w.lambda.map(sp), lambdaTilde: w.lambdaTilde.map(sp) }) }
   }
-  const c = (x: unknown) => new Complex((x as number[])[0]!, (x as number[])[1]!)
+  // Built on the prototype, as the engine's field does: complex.js's constructor parses its arguments.
+  const c = (x: unknown) => {
+    const z = Object.create(Complex.prototype) as Complex
+    z.re = (x as number[])[0]!
+    z.im = (x as number[])[1]!
+    return z
+  }
   const sp = (s: unknown): Spinor<Complex> => [c((s as unknown[])[0]), c((s as unknown[])[1])]
   const kinC = (w: { lambda: unknown[], lambdaTilde: unknown[] }): Kin<Complex> => ({ lambda: w.lambda.map(sp), lambdaTilde: w.lambdaTilde.map(sp) })
   // The engine's float field: doubles for gluons, double-double for the rest (DEVELOPERS.md "Precision").
