@@ -67,8 +67,21 @@ export function isExternal(edge: EditorEdge, nodes: Map<string, EditorNode>): bo
   return nodes.get(edge.source)?.type === 'leg' || nodes.get(edge.target)?.type === 'leg'
 }
 
-export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], process?: Process): Validation {
-  const nodes = new Map(nodesIn.map(n => [n.id, n]))
+export interface ValidateOptions {
+  /** false: leave `slots` empty (a check reads only the drawing; the canvas and inspector read slots). */
+  slots?: boolean
+}
+
+export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], process?: Process, opts: ValidateOptions = {}): Validation {
+  const wantSlots = opts.slots !== false
+  // By id, and the index of each id (an id names its last node, as a Map built from the list does).
+  const nodes = new Map<string, EditorNode>()
+  const uid = new Map<string, number>()
+  for (let k = 0; k < nodesIn.length; k++) {
+    const nd = nodesIn[k]!
+    nodes.set(nd.id, nd)
+    uid.set(nd.id, k)
+  }
   const issues: Record<string, Issue[]> = {}
   const edgeIssues: Record<string, Issue[]> = {}
   // Errors that keep a component from being read as a term (open slots, loops, missing legs, …);
@@ -108,16 +121,24 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     hs.push(h)
   }
   const at = (id: string, h: string) => atNode.get(id)?.get(h)
+  // Edges between two different existing nodes, with their ends' indices and whether a leg is at an end.
+  const validEdges: EditorEdge[] = []
+  const ends: number[] = []
+  const externalAt: boolean[] = []
   for (const e of edges) {
-    if (!nodes.has(e.source) || !nodes.has(e.target)) continue
+    const a = nodes.get(e.source)
+    const b = nodes.get(e.target)
+    if (!a || !b) continue
     if (e.source === e.target) { add(e.source, 'error', 'a line from this node back to itself: glue two different nodes'); continue }
+    const external = a.type === 'leg' || b.type === 'leg'
+    validEdges.push(e)
+    ends.push(uid.get(e.source)!, uid.get(e.target)!)
+    externalAt.push(external)
     attach(e.source, e.sourceHandle, e)
     attach(e.target, e.targetHandle, e)
-    const a = nodes.get(e.source)!
-    const b = nodes.get(e.target)!
     if (a.type === 'leg' && b.type === 'leg') addEdge(e.id, 'error', 'two legs joined directly: attach legs to a vertex or a block')
     const d = (e.data ?? {}) as LineData
-    if (!isExternal(e, nodes) && d.helicity !== undefined) {
+    if (!external && d.helicity !== undefined) {
       if (d.targetHelicity !== undefined && d.targetHelicity !== -d.helicity) {
         const msg = `line ${d.line ?? ''} joins ${sign(d.helicity)} to ${sign(d.targetHelicity)}: an internal line joins opposite helicities`.replace('  ', ' ')
         addEdge(e.id, 'error', msg, false)
@@ -150,43 +171,51 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     const rows: Slot[] = []
     const own = handleIds(node)
     const byHandle = atNode.get(node.id)
-    for (const h of own) {
-      const list = byHandle?.get(h) ?? []
-      const first = list[0]
-      let other: SlotInfo['other'] = null
+    const total = own.length
+    const hs: (number | null)[] = new Array(total)
+    // Theory qcd: the codes at the slots, null when one is open.
+    let codes: number[] | null = species ? [] : null
+    let open = 0
+    let crowded: { handle: string, count: number }[] | null = null
+    for (let t = 0; t < total; t++) {
+      const h = own[t]!
+      const list = byHandle?.get(h)
+      const first = list?.[0]
       const helicity = first ? helicityAt(first, node.id, nodes) : null
       const code = species && first ? codeAt(first, node.id, nodes) : null
+      hs[t] = helicity
+      if (codes) {
+        if (code === null) codes = null
+        else codes.push(code)
+      }
+      let other: SlotInfo['other'] = null
       if (first) {
+        if (list!.length > 1) (crowded ??= []).push({ handle: h, count: list!.length })
         const oid = first.source === node.id ? first.target : first.source
         const o = nodes.get(oid)!
         if (o.type === 'leg') {
-          other = { kind: 'leg', label: o.data.label, nodeId: oid }
+          if (wantSlots) other = { kind: 'leg', label: o.data.label, nodeId: oid }
           rows.push({ leg: o.data.label, edge: null, to: null, helicity, code })
         }
         else {
-          other = { kind: 'line', nodeId: oid, edgeId: first.id }
+          if (wantSlots) other = { kind: 'line', nodeId: oid, edgeId: first.id }
           rows.push({ leg: null, edge: first.id, to: oid, helicity, code })
         }
       }
-      else rows.push({ leg: null, edge: null, to: null, helicity, code })
-      info.push({ handle: h, edges: list, helicity, other, ...(species && first ? { code: code! } : {}) })
+      else {
+        open++
+        rows.push({ leg: null, edge: null, to: null, helicity, code })
+      }
+      if (wantSlots) info.push({ handle: h, edges: list ?? [], helicity, other, ...(species && first ? { code: code! } : {}) })
     }
-    slots[node.id] = info
+    if (wantSlots) slots[node.id] = info
     slotRows.set(node.id, rows)
     // A connection to a slot the node does not have (a Block with fewer legs, a stale handle).
     for (const h of handlesOf.get(node.id) ?? []) if (!own.includes(h ?? '')) add(node.id, 'error', `a connection to slot ${h ?? '(none)'}, which this ${node.type === 'block' ? 'Block' : 'vertex'} does not have: reconnect it`)
-    let open = 0
-    const crowded: SlotInfo[] = []
-    for (const x of info) {
-      if (x.edges.length === 0) open++
-      else if (x.edges.length > 1) crowded.push(x)
-    }
-    const total = info.length
     if (open) add(node.id, 'error', `${total - open} of ${total} ${node.type === 'block' ? 'legs' : 'slots'} connected: every slot takes one leg or line`)
-    for (const c of crowded) add(node.id, 'error', `slot ${Number(c.handle.slice(1)) + 1} has ${c.edges.length} connections: one leg or line per slot`)
-    const hs = info.map(x => x.helicity)
+    for (const c of crowded ?? []) add(node.id, 'error', `slot ${Number(c.handle.slice(1)) + 1} has ${c.count} connections: one leg or line per slot`)
     if (node.type === 'angle' || node.type === 'square') {
-      const flow = species && info.every(x => x.code !== undefined) ? vertexFlowProblem(info.map(x => x.code!)) : null
+      const flow = codes ? vertexFlowProblem(codes) : null
       if (flow) add(node.id, 'error', flow, false)
       if (hs.every(h => h !== null)) {
         const hv = hs as number[]
@@ -201,9 +230,9 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     }
     else if (node.type === 'block') {
       const want = node.data.helicities ?? []
-      info.forEach((x, t) => {
-        if (x.helicity !== null && want[t] !== undefined && x.helicity !== want[t])
-          add(node.id, 'error', `slot ${t + 1} expects ${helicityText(want[t]!)} but receives ${helicityText(x.helicity)}`, false)
+      hs.forEach((x, t) => {
+        if (x !== null && want[t] !== undefined && x !== want[t])
+          add(node.id, 'error', `slot ${t + 1} expects ${helicityText(want[t]!)} but receives ${helicityText(x)}`, false)
       })
       if (want.length < 4) add(node.id, 'warning', `a block of ${want.length} legs: use a vertex for three-point amplitudes`)
       if (s !== null && s > 0 && want.length >= 4) {
@@ -215,8 +244,6 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
 
   // Connected components: momentum routing closes on a tree holding every leg once.
   // Union-find over node indices (an id names its last node, as the Map above does).
-  const uid = new Map<string, number>()
-  for (let k = 0; k < nodesIn.length; k++) uid.set(nodesIn[k]!.id, k)
   // A plain array: a small typed array costs more to allocate than this whole pass.
   const parent: number[] = []
   for (let k = 0; k < nodesIn.length; k++) parent.push(k)
@@ -231,8 +258,7 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
     }
     return r
   }
-  const validEdges = edges.filter(e => nodes.has(e.source) && nodes.has(e.target) && e.source !== e.target)
-  for (const e of validEdges) parent[find(uid.get(e.source)!)] = find(uid.get(e.target)!)
+  for (let t = 0; t < validEdges.length; t++) parent[find(ends[2 * t]!)] = find(ends[2 * t + 1]!)
   const groups = new Map<number, string[]>()
   for (const x of nodesIn) {
     const r = find(uid.get(x.id)!)
@@ -243,10 +269,10 @@ export function validateGraph(nodesIn: EditorNode[], edges: EditorEdge[], proces
   const edgeCount = new Map<number, number>()
   // Internal lines per component, found in one pass (a filter per component was quadratic).
   const linesByRoot = new Map<number, string[]>()
-  for (const e of validEdges) {
-    const r = find(uid.get(e.source)!)
+  for (let t = 0; t < validEdges.length; t++) {
+    const r = find(ends[2 * t]!)
     edgeCount.set(r, (edgeCount.get(r) ?? 0) + 1)
-    if (!isExternal(e, nodes)) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(e.id)
+    if (!externalAt[t]) (linesByRoot.get(r) ?? linesByRoot.set(r, []).get(r)!).push(validEdges[t]!.id)
   }
   const components: Component[] = []
   for (const [root, ids] of groups) {

@@ -70,4 +70,31 @@ describe('checks of a drawing', () => {
     expect(res.body.verdict).toBe('agrees')
     expect(res.body.result.drawing).toBeUndefined()
   })
+
+  it('checked again and again through the pool (compiled drawings kept per thread), then edited: each answer is the drawing\'s own', async () => {
+    const d = await diagramWith(full)
+    const post = (graph: Graph, seed: number) => r.viewer.post(`/api/diagrams/${d.id}/check-drawing`, { kinematics: { kind: 'random', seed }, graph })
+    const sums: unknown[] = []
+    // Enough runs that every pool thread sees the canvas at least twice, at new points.
+    for (let k = 0; k < 6; k++) {
+      const res = await post(full, 10 + (k % 3))
+      expect(res.status, JSON.stringify(res.body)).toBe(200)
+      expect(res.body.verdict).toBe('agrees')
+      expect(res.body.drawing.comparison.complete).toBe(true)
+      sums.push(res.body.drawing.sum)
+    }
+    // The same point gives the same sum, a new point another.
+    expect(sums[3]).toEqual(sums[0])
+    expect(sums[1]).not.toEqual(sums[0])
+    // One term removed after those runs: the drawing is compiled afresh and says what is missing.
+    const gone = new Set(terms[0]!.nodeIds)
+    const edited: Graph = { ...full, nodes: full.nodes.filter(n => !gone.has(n.id)), edges: full.edges.filter(e => !gone.has(e.source) && !gone.has(e.target)) }
+    for (let k = 0; k < 2; k++) {
+      const res = await post(edited, 10)
+      expect(res.status).toBe(200)
+      expect(res.body.verdict).toBe('disagrees')
+      expect(res.body.drawing.comparison.missing).toHaveLength(1)
+    }
+    expect((await post(full, 10)).body.drawing.sum).toEqual(sums[0])
+  })
 })

@@ -42,15 +42,36 @@ interface Problem { type: 'missing' | 'duplicated' | 'foreign', message: string 
 
 const legName = (l: DrawnPart['legs'][number], lineName: (e: string) => string) => ('label' in l ? String(l.label) : lineName(l.edge))
 
-const keys = new WeakMap<DrawnPart, string>()
+/**
+ * Canonical keys of drawn parts (the same structure gives the same key), short: a term's key names
+ * its children by number, so keys stay a few characters however deep the tree (hashing whole
+ * nested strings was most of a comparison). One keyer per comparison.
+ */
+export function partKeyer(): (x: DrawnPart) => string {
+  const keys = new Map<DrawnPart, string>()
+  const ids = new Map<string, string>()
+  const key = (x: DrawnPart): string => {
+    if (x.kind === 'vertex') return x.vertexKind === 'angle' ? 'Va' : 'Vs'
+    if (x.kind === 'block') return 'B'
+    let k = keys.get(x)
+    if (k === undefined) {
+      let mask = 0
+      for (const u of x.L) mask |= 1 << u
+      const full = `T${x.shift[0]},${x.shift[1]},${mask},${x.helicity}(${key(x.left)})(${key(x.right)})`
+      k = ids.get(full)
+      if (k === undefined) ids.set(full, (k = `#${ids.size}`))
+      keys.set(x, k)
+    }
+    return k
+  }
+  return key
+}
 
-/** A canonical key of a drawn part (the same structure gives the same key); memoized, cover asks often. */
-export function partKey(x: DrawnPart): string {
-  if (x.kind === 'vertex') return x.vertexKind === 'angle' ? 'Va' : 'Vs'
-  if (x.kind === 'block') return 'B'
-  let k = keys.get(x)
-  if (k === undefined) keys.set(x, (k = `T${x.shift.join(',')}{${x.L.join(',')}}${x.helicity}(${partKey(x.left)})(${partKey(x.right)})`))
-  return k
+/** What the cover rule reads: the process, Line names, and the comparison's part keys. */
+interface Cx {
+  p: Process
+  lineName: (e: string) => string
+  key: (x: DrawnPart) => string
 }
 
 /** A (channel, internal helicity) as one number: the bit mask of the channel's positions or labels (≤ 16 legs), then 2h (|h| ≤ 12). */
@@ -60,15 +81,24 @@ function chKey(L: readonly number[], h: number): number {
   return mask * 64 + 2 * h + 32
 }
 
+// The keys of a live-channel list (liveChannels hands out the same list for the same amplitude).
+const liveKeySets = new WeakMap<readonly { L: readonly number[], helicity: number }[], Set<number>>()
+function liveKeysOf(live: readonly { L: readonly number[], helicity: number }[]): Set<number> {
+  let k = liveKeySets.get(live)
+  if (!k) liveKeySets.set(live, (k = new Set(live.map(c => chKey(c.L, c.helicity)))))
+  return k
+}
+
 function times(k: number): string {
   return k === 2 ? 'twice' : `${k} times`
 }
 
 /** Whether `parts` (all standing for one amplitude) add up to it exactly once. */
-function cover(p: Process, parts: DrawnPart[], context: () => string, lineName: (e: string) => string): Problem[] {
+function cover(cx: Cx, parts: DrawnPart[], context: () => string): Problem[] {
+  const { p, lineName } = cx
   if (parts.length === 1 && parts[0]!.kind !== 'term') return []
   const whereOf = () => `${context()}, sub-amplitude (${parts[0]!.legs.map(l => legName(l, lineName)).join(', ')})`
-  const keys = parts.map(partKey)
+  const keys = parts.map(cx.key)
   const distinct = new Set(keys)
   if (distinct.size < keys.length) {
     const k = keys.find((x, t) => keys.indexOf(x) !== t)!
@@ -76,9 +106,9 @@ function cover(p: Process, parts: DrawnPart[], context: () => string, lineName: 
   }
   if (parts.some(x => x.kind !== 'term')) return [{ type: 'duplicated', message: `${whereOf()} is drawn both as one ${parts.find(x => x.kind !== 'term')!.kind === 'block' ? 'Block' : 'vertex'} and expanded: it is counted more than once` }]
   const terms = parts as Extract<DrawnPart, { kind: 'term' }>[]
-  const shifts = new Set(terms.map(t => t.shift.join(',')))
   const first = terms[0]!
-  if (shifts.size > 1) return [{ type: 'duplicated', message: `${whereOf()} is expanded under ${shifts.size} different shifts: expand it under one` }]
+  const shifts = terms.length === 1 ? null : new Set(terms.map(t => t.shift.join(',')))
+  if (shifts && shifts.size > 1) return [{ type: 'duplicated', message: `${whereOf()} is expanded under ${shifts.size} different shifts: expand it under one` }]
   const [a, b] = first.shift
   const names = () => first.legs.map(l => legName(l, lineName))
   const sh = () => `[${names()[a]}, ${names()[b]}⟩`
@@ -95,34 +125,34 @@ function cover(p: Process, parts: DrawnPart[], context: () => string, lineName: 
   for (const c of live) {
     if (!groups.has(chKey(c.L, c.helicity))) out.push({ type: 'missing', message: `${whereOf()}: its term ${chName(c.L, c.helicity)} under ${sh()} is not drawn` })
   }
-  const liveKeys = new Set(live.map(c => chKey(c.L, c.helicity)))
+  const liveKeys = liveKeysOf(live)
   for (const [k, g] of groups) {
     const t0 = g[0]!
     if (!liveKeys.has(k)) {
       out.push({ type: 'foreign', message: `${whereOf()}: ${chName(t0.L, t0.helicity)} is not a term of its recursion under ${sh()} (it vanishes)` })
       continue
     }
-    out.push(...coverPairs(p, g, () => `${whereOf()}, term ${chName(t0.L, t0.helicity)}`, lineName))
+    out.push(...coverPairs(cx, g, () => `${whereOf()}, term ${chName(t0.L, t0.helicity)}`))
   }
   return out
 }
 
 /** The (A_L, A_R) pairs drawn for one channel must add up to A_L · A_R once. */
-function coverPairs(p: Process, g: Extract<DrawnPart, { kind: 'term' }>[], where: () => string, lineName: (e: string) => string): Problem[] {
+function coverPairs(cx: Cx, g: Extract<DrawnPart, { kind: 'term' }>[], where: () => string): Problem[] {
   const wl = where
   const wr = where
-  if (g.length === 1) return [...cover(p, [g[0]!.left], wl, lineName), ...cover(p, [g[0]!.right], wr, lineName)]
+  if (g.length === 1) return [...cover(cx, [g[0]!.left], wl), ...cover(cx, [g[0]!.right], wr)]
   const attempt = (by: 'left' | 'right'): Problem[] => {
     const other = by === 'left' ? 'right' : 'left'
     const groups = new Map<string, { part: DrawnPart, others: DrawnPart[] }>()
     for (const t of g) {
-      const k = partKey(t[by])
+      const k = cx.key(t[by])
       const e = groups.get(k) ?? { part: t[by], others: [] }
       e.others.push(t[other])
       groups.set(k, e)
     }
-    const probs = cover(p, [...groups.values()].map(e => e.part), by === 'left' ? wl : wr, lineName)
-    for (const e of groups.values()) probs.push(...cover(p, e.others, by === 'left' ? wr : wl, lineName))
+    const probs = cover(cx, [...groups.values()].map(e => e.part), by === 'left' ? wl : wr)
+    for (const e of groups.values()) probs.push(...cover(cx, e.others, by === 'left' ? wr : wl))
     return probs
   }
   const byRight = attempt('right')
@@ -150,6 +180,7 @@ export function compareDrawing(process: GraphProcess, s: DrawingStructure, lineN
   const key = chKey
   const liveKeys = new Set(live.map(c => key(c.left, c.helicity)))
   const liveChannelsOnly = new Set(live.map(c => key(c.left, 0)))
+  const cx: Cx = { p, lineName, key: partKeyer() }
   const groups = new Map<number, { left: number[], helicity: number, ids: string[], plans: DrawnPart[] }>()
   for (const t of s.terms) {
     if (!t.channel || !t.plan) {
@@ -183,8 +214,8 @@ export function compareDrawing(process: GraphProcess, s: DrawingStructure, lineN
     }
     const where = `channel ${channelText(g.left)} with internal helicity ${word(g.helicity)}`
     const probs = g.plans.length === 1 && g.plans[0]!.kind === 'term'
-      ? coverPairs(p, [g.plans[0] as Extract<DrawnPart, { kind: 'term' }>], () => where, lineName)
-      : coverTop(p, g.plans, where, lineName)
+      ? coverPairs(cx, [g.plans[0] as Extract<DrawnPart, { kind: 'term' }>], () => where)
+      : coverTop(cx, g.plans, where)
     const dup = probs.filter(x => x.type === 'duplicated')
     const rest = probs.filter(x => x.type !== 'duplicated')
     if (dup.length) cmp.duplicated.push({ left: g.left, helicity: g.helicity, terms: g.ids, message: dup[0]!.message })
@@ -203,11 +234,11 @@ export function compareDrawing(process: GraphProcess, s: DrawingStructure, lineN
 }
 
 /** Several components of one top-level channel: the same (A_L, A_R) cover rule. */
-function coverTop(p: Process, plans: DrawnPart[], where: string, lineName: (e: string) => string): Problem[] {
-  const keys = plans.map(partKey)
+function coverTop(cx: Cx, plans: DrawnPart[], where: string): Problem[] {
+  const keys = plans.map(cx.key)
   if (new Set(keys).size < keys.length) {
     const k = keys.find((x, t) => keys.indexOf(x) !== t)!
     return [{ type: 'duplicated', message: `${where} is drawn ${times(keys.filter(x => x === k).length)}` }]
   }
-  return coverPairs(p, plans as Extract<DrawnPart, { kind: 'term' }>[], () => where, lineName)
+  return coverPairs(cx, plans as Extract<DrawnPart, { kind: 'term' }>[], () => where)
 }

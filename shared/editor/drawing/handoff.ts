@@ -34,54 +34,63 @@ const TRUE = 4
 const FALSE = 5
 const OTHER = 6
 const NUMS = 7
-const NODE = 8
 
 const numbersOnly = (v: unknown[]) => {
   for (let t = 0; t < v.length; t++) if (typeof v[t] !== 'number') return false
   return true
 }
 
+// One scratch buffer per thread, grown as needed; each pack copies out what it wrote.
+let scratch = new Float64Array(4096)
+
 /** The graph as drawingGraph reads it, packed for postMessage. */
 export function packDrawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[] }): PackedGraph {
   const nodesIn = g.nodes ?? []
   const edgesIn = g.edges ?? []
-  const nums: number[] = []
-  const text: string[] = []
+  // At most 3 numbers per value plus list items: grown before each node or edge when it may not fit.
+  let nums = scratch
+  let n = 0
+  let text = ''
   const other: unknown[] = []
-  const put = (v: unknown) => {
-    if (v === undefined) nums.push(ABSENT)
-    else if (v === null) nums.push(NULL)
-    else if (typeof v === 'number') nums.push(NUM, v)
-    else if (typeof v === 'string') { nums.push(STR, v.length); text.push(v) }
-    else if (v === true) nums.push(TRUE)
-    else if (v === false) nums.push(FALSE)
-    else if (Array.isArray(v) && numbersOnly(v)) {
-      nums.push(NUMS, v.length)
-      for (let t = 0; t < v.length; t++) nums.push(v[t] as number)
-    }
-    else { nums.push(OTHER, other.length); other.push(v) }
+  const room = (k: number) => {
+    if (n + k <= nums.length) return
+    const next = new Float64Array(Math.max(nums.length * 2, n + k))
+    next.set(nums.subarray(0, n))
+    scratch = nums = next
   }
-  const index = new Map<string, number>()
-  nodesIn.forEach((n, k) => {
-    const d = (n.data ?? {}) as Record<string, unknown>
-    const code = KIND_CODE[n.type]
-    if (code === undefined) { nums.push(-1); put(n.type) }
-    else nums.push(code)
-    put(n.id)
-    if (n.type === 'leg') { put(d.label); put(d.helicity); put(d.species) }
-    else if (n.type === 'block') put(d.helicities)
-    if (!index.has(n.id)) index.set(n.id, k)
-  })
-  const end = (id: string) => {
-    const k = index.get(id)
-    if (k === undefined) put(id)
-    else nums.push(NODE, k)
+  const put = (v: unknown) => {
+    if (v === undefined) nums[n++] = ABSENT
+    else if (v === null) nums[n++] = NULL
+    else if (typeof v === 'number') { nums[n++] = NUM; nums[n++] = v }
+    else if (typeof v === 'string') { nums[n++] = STR; nums[n++] = v.length; text += v }
+    else if (v === true) nums[n++] = TRUE
+    else if (v === false) nums[n++] = FALSE
+    else if (Array.isArray(v) && numbersOnly(v)) {
+      room(v.length + 2)
+      nums[n++] = NUMS
+      nums[n++] = v.length
+      for (let t = 0; t < v.length; t++) nums[n++] = v[t] as number
+    }
+    else { nums[n++] = OTHER; nums[n++] = other.length; other.push(v) }
+  }
+  for (let k = 0; k < nodesIn.length; k++) {
+    const nd = nodesIn[k]!
+    room(16)
+    const d = (nd.data ?? {}) as Record<string, unknown>
+    const code = KIND_CODE[nd.type]
+    if (code === undefined) { nums[n++] = -1; put(nd.type) }
+    else nums[n++] = code
+    put(nd.id)
+    if (nd.type === 'leg') { put(d.label); put(d.helicity); put(d.species) }
+    else if (nd.type === 'block') put(d.helicities)
   }
   for (const e of edgesIn) {
+    room(32)
     const d = (e.data ?? {}) as Record<string, unknown>
     put(e.id)
-    end(e.source)
-    end(e.target)
+    // Ends as strings: an index of node ids cost more to build than the longer text costs to copy.
+    put(e.source)
+    put(e.target)
     put(e.sourceHandle ?? null)
     put(e.targetHandle ?? null)
     put(d.helicity)
@@ -90,7 +99,7 @@ export function packDrawingGraph(g: { nodes?: EditorNode[], edges?: EditorEdge[]
     put(d.external)
     put(d.species)
   }
-  return { v: 3, nodeCount: nodesIn.length, edgeCount: edgesIn.length, nums: Float64Array.from(nums), text: text.join(''), other }
+  return { v: 3, nodeCount: nodesIn.length, edgeCount: edgesIn.length, nums: nums.slice(0, n), text, other }
 }
 
 /** The graph back from its packed form (what drawingGraph gives); a malformed one names the field. */
@@ -129,10 +138,6 @@ export function unpackDrawingGraph(p: PackedGraph): { nodes: EditorNode[], edges
         const out: number[] = []
         for (let t = 0; t < len; t++) out.push(nums[at++]!)
         return out
-      }
-      case NODE: {
-        const k = num()
-        return Number.isInteger(k) && k >= 0 && k < p.nodeCount && nodes[k] ? nodes[k].id : fail('no such node')
       }
       default: return fail(`unknown value tag ${tag}`)
     }

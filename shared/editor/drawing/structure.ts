@@ -110,10 +110,17 @@ export function engineProcess(p: GraphProcess): Process | null {
   return processOf(p.theory, p.spin)
 }
 
+/** 1..n (a loop: Array.from over an array-like costs more than a drawn term). */
+export function labelsUpTo(n: number): number[] {
+  const out: number[] = []
+  for (let t = 0; t < n; t++) out.push(t + 1)
+  return out
+}
+
 /** Colour order (labels) of a process: `order` when it is a permutation, else 1..n. */
 function colourOrder(p: GraphProcess, colourOrdered: boolean): number[] {
   const n = p.helicities.length
-  const id = Array.from({ length: n }, (_, t) => t + 1)
+  const id = labelsUpTo(n)
   if (!colourOrdered || !p.order || p.order.length !== n) return id
   const seen = new Set(p.order)
   return seen.size === n && p.order.every(l => Number.isInteger(l) && l >= 1 && l <= n) ? p.order : id
@@ -136,19 +143,52 @@ export const channelLabel = (c: DrawnChannel): string => `${channelText(c.left)}
 
 const hsOf = (p: Process): number[] => (p.s === 0 ? [0] : [p.s, -p.s])
 
+/**
+ * A memo keyed by a process, helicities, an optional shift and PDG codes: a numeric hash, then an
+ * exact comparison (building and hashing a string key per call cost more than the lookups saved).
+ */
+class HelicityMemo<V> {
+  private readonly map = new Map<number, { theory: string, s: number, a: number, b: number, h: number[], pdg: number[] | undefined, value: V }[]>()
+  private size = 0
+  private static hash(p: Process, h: readonly number[], a: number, b: number, pdg?: readonly number[]): number {
+    let x = Math.imul(p.s * 4 + 7, 0x01000193) ^ Math.imul(a + 3, 0x9e3779b1) ^ (b + 11) ^ p.theory.length
+    for (let t = 0; t < h.length; t++) x = Math.imul(x ^ (h[t]! * 2 + 64), 0x01000193)
+    if (pdg) for (let t = 0; t < pdg.length; t++) x = Math.imul(x ^ (pdg[t]! + 1000), 0x01000193)
+    return x
+  }
+
+  private static same(x: readonly number[] | undefined, y: readonly number[] | undefined): boolean {
+    if (x === y) return true
+    if (!x || !y || x.length !== y.length) return false
+    for (let t = 0; t < x.length; t++) if (!Object.is(x[t], y[t])) return false
+    return true
+  }
+
+  get(p: Process, h: readonly number[], a: number, b: number, pdg: readonly number[] | undefined, make: () => V): V {
+    const k = HelicityMemo.hash(p, h, a, b, pdg)
+    const list = this.map.get(k)
+    if (list) for (const e of list) if (e.theory === p.theory && e.s === p.s && e.a === a && e.b === b && HelicityMemo.same(e.h, h) && HelicityMemo.same(e.pdg, pdg)) return e.value
+    if (this.size > 5000) {
+      this.map.clear()
+      this.size = 0
+    }
+    const value = make()
+    const e = { theory: p.theory, s: p.s, a, b, h: [...h], pdg: pdg ? [...pdg] : undefined, value }
+    const again = this.map.get(k)
+    if (again) again.push(e)
+    else this.map.set(k, [e])
+    this.size++
+    return value
+  }
+}
+
 /** The live (channel, internal helicity) pairs of an amplitude under a shift: the terms the recursion sums. */
 export function liveChannels(p: Process, h: readonly number[], shift: readonly [number, number], pdg?: readonly number[]): readonly LiveChannel[] {
-  const key = `${p.theory}:${p.s}:${shift[0]}:${shift[1]}:${h.join(',')}${pdg ? `|${pdg.join(',')}` : ''}`
-  let out = liveCache.get(key)
-  if (!out) {
-    if (liveCache.size > 5000) liveCache.clear()
-    liveCache.set(key, (out = computeLive(p, h, shift, pdg)))
-  }
-  return out
+  return liveMemo.get(p, h, shift[0], shift[1], pdg, () => computeLive(p, h, shift, pdg))
 }
 
 interface LiveChannel { L: readonly number[], R: readonly number[], helicity: number }
-const liveCache = new Map<string, readonly LiveChannel[]>()
+const liveMemo = new HelicityMemo<readonly LiveChannel[]>()
 
 function computeLive(p: Process, h: readonly number[], shift: readonly [number, number], pdg?: readonly number[]): LiveChannel[] {
   const out: LiveChannel[] = []
@@ -177,16 +217,11 @@ function channelsByMask(n: number, sh: readonly [number, number], colourOrdered:
   return m
 }
 
-const shiftCache = new Map<string, readonly [number, number]>()
+const shiftMemo = new HelicityMemo<readonly [number, number]>()
 
-/** The default shift of a sub-amplitude (cached: the same helicities recur in every term). */
+/** The default shift of a sub-amplitude (memoized: the same helicities recur in every term). */
 function subShift(p: Process, h: readonly number[], pdg?: readonly number[]): [number, number] {
-  const k = `${p.theory}:${p.s}:${h.join(',')}${pdg ? `|${pdg.join(',')}` : ''}`
-  let d = shiftCache.get(k)
-  if (!d) {
-    if (shiftCache.size > 5000) shiftCache.clear()
-    shiftCache.set(k, (d = defaultShift(p, h, pdg ? [...pdg] : undefined)))
-  }
+  const d = shiftMemo.get(p, h, -1, -1, pdg, () => defaultShift(p, h, pdg ? [...pdg] : undefined))
   return [d[0], d[1]]
 }
 
@@ -280,7 +315,16 @@ function readAmp(ctx: Ctx, amp: Amp, region: string[], kind: VertexKind | null, 
   for (const id of region) {
     for (const x of linksOf(ctx, id)) if (inside.has(x.to) && id < x.to) lines.push({ edge: x.edge, a: id, b: x.to, rank: x.rank })
   }
-  lines.sort((x, y) => x.rank - y.rank)
+  // Stable insertion sort: a region has a few Lines, often in order already (sort with a comparator costs more).
+  for (let t = 1; t < lines.length; t++) {
+    const x = lines[t]!
+    let u = t - 1
+    while (u >= 0 && lines[u]!.rank > x.rank) {
+      lines[u + 1] = lines[u]!
+      u--
+    }
+    lines[u + 1] = x
+  }
   // For each Line: the amplitude's legs on its `a` side (a bit mask of positions; −1 when one repeats) and the nodes there.
   const sideOf = (line: { edge: string, a: string }) => {
     let mask = 0
@@ -401,7 +445,8 @@ export function compileStructure(input: StructureInput): DrawingStructure {
   const terms: DrawnTerm[] = []
   const p = process ? engineProcess(process) : null
   const shift = process ? drawingShift(process) : null
-  const edgeById = new Map(edges.map(e => [e.id, e]))
+  const edgeById = new Map<string, EditorEdge>()
+  for (const e of edges) edgeById.set(e.id, e)
   let anon = 0
   const anonNames = new Map<string, string>()
   const lineName = (edge: string) => {
@@ -422,8 +467,13 @@ export function compileStructure(input: StructureInput): DrawingStructure {
     // Both shifted legs on one vertex or Block: no line of this term can separate them.
     if (shift) {
       for (const id of inner) {
-        const legs = (slots.get(id) ?? []).map(s => s.leg)
-        if (legs.includes(shift[0]) && legs.includes(shift[1])) {
+        let i = false
+        let j = false
+        for (const x of slots.get(id) ?? []) {
+          if (x.leg === shift[0]) i = true
+          else if (x.leg === shift[1]) j = true
+        }
+        if (i && j) {
           const what = byId.get(id)!.type === 'block' ? 'Block' : 'vertex'
           const message = `both shifted legs ${shift[0]} and ${shift[1]} of [${shift[0]}, ${shift[1]}⟩ sit on this ${what}: a term's top-level line must separate them`
           issues.push({ id, on: 'node', level: 'error', message })

@@ -13,6 +13,7 @@ import { evaluate, floatTolerance } from '#shared/physics/index'
 import { DrawingResultSchema } from '#shared/schemas/drawing'
 import type { Graph, Process } from '#shared/schemas/graph'
 import type { EvaluateRequestInput, WireComplex } from '#shared/schemas/evaluate'
+import { flipped } from '../../helpers/drawing'
 
 type G = { nodes: EditorNode[], edges: EditorEdge[] }
 
@@ -39,18 +40,6 @@ function withCopy(g: G, compId: string): G {
   const nodes = g.nodes.filter(n => ids.has(n.id)).map(n => ({ ...n, id: `${n.id}x` }))
   const edges = g.edges.filter(e => ids.has(e.source)).map(e => ({ ...e, id: `${e.id}x`, source: `${e.source}x`, target: `${e.target}x` }))
   return { nodes: [...g.nodes, ...nodes], edges: [...g.edges, ...edges] }
-}
-
-/** Flips a Line's helicity as the editor does: both ends change sign. */
-function flipped(g: G, edgeId: string): G {
-  return {
-    nodes: g.nodes,
-    edges: g.edges.map((e) => {
-      if (e.id !== edgeId) return e
-      const d = e.data as { helicity: number, targetHelicity?: number }
-      return { ...e, data: { ...d, helicity: -d.helicity, targetHelicity: -(d.targetHelicity ?? -d.helicity) } }
-    }),
-  }
 }
 
 const M = -1
