@@ -88,3 +88,6 @@ export function bestRotation(type: EditorNode['type'], k: number, want: (('left'
   }
   return best
 }
+
+/** Room above a term's or ring's frame for its label: the canvas places the frame node this much higher. */
+export const TERM_LABEL_HEIGHT = 28
