@@ -6,7 +6,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import type { Page } from 'playwright-core'
-import { demoProject, newDiagram, runCheck, shot, signedInBrowser } from '../helpers/browser'
+import { demoProject, newDiagram, rowsOf, runCheck, shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 import { FORMULA_SYNTAX } from '#shared/physics/formula-syntax'
 import { exportCaption } from '#shared/editor/exports'
@@ -14,19 +14,6 @@ import { exportCaption } from '#shared/editor/exports'
 async function setLegs(page: Page, n: number) {
   await page.fill('input[name=legs]', String(n))
   await page.locator('input[name=legs]').press('Tab')
-}
-/** The distinct rows (rounded top edges) the visible children of an element sit in. */
-async function rowsOf(page: Page, selector: string): Promise<number> {
-  return page.evaluate((sel) => {
-    const el = document.querySelector(sel)!
-    const tops = [...el.children].map(c => c.getBoundingClientRect()).filter(b => b.width > 0 && b.height > 0)
-    // Children in one row share a vertical band: count bands by their centres.
-    const centres = tops.map(b => b.top + b.height / 2).sort((x, y) => x - y)
-    let rows = 0
-    let last = -Infinity
-    for (const c of centres) { if (c - last > 12) rows++; last = c }
-    return rows
-  }, selector)
 }
 
 describe('editor extras', () => {

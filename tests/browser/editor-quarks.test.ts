@@ -4,7 +4,7 @@
 // arrow marker, the check of the drawing agrees, species survive save and reload, and a species
 // change is undone. Page errors and console errors fail the test.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { openEditor, nodesOutside, shot, signedInBrowser } from '../helpers/browser'
+import { openEditor, nodesOutside, rowsOf, shot, signedInBrowser } from '../helpers/browser'
 import { demo, signIn } from '../helpers/api'
 
 let project: number
@@ -94,6 +94,11 @@ describe('quark legs and lines in the editor', () => {
     await openEditor(page, project, d.id)
     await expect.poll(() => page.locator('.vue-flow__edge [data-test=fermion-arrow]').count()).toBeGreaterThan(0)
     await shot(page, 'editor-quarks-demo')
+    // the header with a species select beside each chip stays one row at both laptop widths
+    for (const [width, height] of [[1440, 900], [1280, 720]] as const) {
+      await page.setViewportSize({ width, height })
+      await expect.poll(() => rowsOf(page, '[data-test=process-header]')).toBe(1)
+    }
     expect(errors).toEqual([])
   })
 })

@@ -122,3 +122,17 @@ export async function runCheck(page: Page, button: 'evaluate-quick' | 'evaluate'
   await page.waitForSelector('[data-test=results]', { timeout: 60_000 })
   await page.waitForSelector(`[data-test=${button}]:not([disabled])`, { timeout: 90_000 })
 }
+
+/** The distinct rows (rounded top edges) the visible children of an element sit in. */
+export async function rowsOf(page: Page, selector: string): Promise<number> {
+  return page.evaluate((sel) => {
+    const el = document.querySelector(sel)!
+    const tops = [...el.children].map(c => c.getBoundingClientRect()).filter(b => b.width > 0 && b.height > 0)
+    // Children in one row share a vertical band: count bands by their centres.
+    const centres = tops.map(b => b.top + b.height / 2).sort((x, y) => x - y)
+    let rows = 0
+    let last = -Infinity
+    for (const c of centres) { if (c - last > 12) rows++; last = c }
+    return rows
+  }, selector)
+}
