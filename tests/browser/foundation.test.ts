@@ -26,6 +26,8 @@ describe('foundation in the browser', () => {
     await page.fill('input[name=email]', email)
     await page.fill('input[name=password]', 'long-enough-1')
     await Promise.all([page.waitForURL(/\/projects$/), page.click('button[type=submit]')])
+    // The URL changes before the projects page replaces the register form (both have a name field).
+    await page.waitForSelector('textarea[name=description]')
 
     await page.fill('input[name=name]', 'Collinear limits')
     await page.fill('textarea[name=description]', 'Where do the recursions lose digits?')
