@@ -17,15 +17,19 @@ import { errMessage, type Say } from './useEditorNotice'
 
 export interface StoredCheck { id: number, kind?: string, status?: string, result: EvaluateResponse | null, diagramVersion: number | null, summary?: { target?: string | null } | null }
 
-interface Ctx {
+/** What a check run needs of the editor page (tree checks here, loop cuts in useLoopCutCheck). */
+export interface CheckRunContext {
   diagramId: number
   canEdit: Ref<boolean>
   say: Say
   busy: Ref<boolean>
   /** The diagram's canvas and process are the saved ones. */
   inSync: Ref<boolean>
-  savedProcess: Ref<string>
   save: (note?: string) => Promise<boolean>
+}
+
+interface Ctx extends CheckRunContext {
+  savedProcess: Ref<string>
 }
 
 async function measureFalloff(p: Process, res: EvaluateResponse, step: (s: string) => void, tick: () => void): Promise<FalloffPoints> {

@@ -4,19 +4,13 @@
 // The result goes to the store, which marks it stale once the canvas changes.
 import { isLoopCutResult, type LoopCutDrawingResult } from '#shared/editor/loop-cut-check'
 import { useEditorStore } from '~~/stores/editor'
-import { errMessage, type Say } from './useEditorNotice'
+import { errMessage } from './useEditorNotice'
+import type { CheckRunContext } from './useCheckRun'
 
 export interface LoopSettings { arithmetic: 'float' | 'exact', seed: number, corners: 'closed' | 'bcfw' | 'berends-giele' }
 export const defaultLoopSettings = (): LoopSettings => ({ arithmetic: 'float', seed: 1, corners: 'closed' })
 
-interface Ctx {
-  diagramId: number
-  canEdit: Ref<boolean>
-  say: Say
-  busy: Ref<boolean>
-  /** The canvas and process are the saved ones. */
-  inSync: Ref<boolean>
-  save: (note?: string) => Promise<boolean>
+interface Ctx extends CheckRunContext {
   /** Bumped when a check is stored, so the Stored tab reloads. */
   checksToken: Ref<number>
 }
@@ -54,6 +48,7 @@ export function useLoopCutCheck(ctx: Ctx) {
         ctx.checksToken.value++
       }
       else {
+        // through a const: assigning the typed fetch straight to `res` exceeds TypeScript's stack depth
         const drawn = await $fetch(`/api/diagrams/${diagramId}/check-loop-cut`, { method: 'POST', body: { ...body, graph: store.toGraph() } })
         res = drawn
         notStored.value = 'not stored: viewers run checks without storing them; this is a check of what is drawn'

@@ -14,17 +14,22 @@ import type { EditorEdge, EditorNode } from '#shared/editor/types'
 export default defineEventHandler(async (event) => {
   const id = routeId(event)
   const { diagram, user, project } = await requireDiagramRole(event, id, 'editor')
-  if (diagramKindOf(diagram.graph) === 'loop-cut') {
-    const settings = await readValid(event, LoopCutCheckRunSchema)
-    const t0 = performance.now()
-    const columns = loopCutCheckColumns(await checkLoopCutGraph(event, diagram.graph, undefined, settings))
+  type Columns = Pick<typeof tables.checks.$inferInsert, 'request' | 'result' | 'summary' | 'verdict' | 'engineVersion' | 'arithmetic' | 'seed'>
+  // One stored row per run (tree or loop cut), its audit entry, and 201.
+  async function store(columns: Columns, t0: number, auditExtra: Record<string, unknown> = {}) {
     const row = await useDB().insert(tables.checks).values({
       projectId: project.id, diagramId: diagram.id, diagramVersion: diagram.version, kind: 'single', status: 'done', ...columns,
       durationMs: Math.round((performance.now() - t0) * 1000) / 1000, done: 1, total: 1, createdBy: user.id,
     }).returning().get()
-    await audit(project.id, user.id, 'check.run', 'check', row.id, { diagramId: diagram.id, diagramVersion: diagram.version, title: diagram.title, verdict: row.verdict, kind: 'loop-cut' })
+    await audit(project.id, user.id, 'check.run', 'check', row.id, { diagramId: diagram.id, diagramVersion: diagram.version, title: diagram.title, verdict: row.verdict, ...auditExtra })
     setResponseStatus(event, 201)
-    return checkView(row, user.name)
+    return row
+  }
+  if (diagramKindOf(diagram.graph) === 'loop-cut') {
+    const settings = await readValid(event, LoopCutCheckRunSchema)
+    const t0 = performance.now()
+    const columns = loopCutCheckColumns(await checkLoopCutGraph(event, diagram.graph, undefined, settings))
+    return checkView(await store(columns, t0, { kind: 'loop-cut' }), user.name)
   }
   const body = await readValid(event, CheckRunSchema)
   const process = diagramProcess(diagram.graph)
@@ -51,14 +56,8 @@ export default defineEventHandler(async (event) => {
   catch (e) {
     throw evaluationHttpError(e, processField)
   }
-  const durationMs = Math.round((performance.now() - t0) * 1000) / 1000
   const seed = 'seed' in req.kinematics && typeof req.kinematics.seed === 'number' ? req.kinematics.seed : null
-  const row = await useDB().insert(tables.checks).values({
-    projectId: project.id,
-    diagramId: diagram.id,
-    diagramVersion: diagram.version,
-    kind: 'single',
-    status: 'done',
+  const row = await store({
     request: { ...req, ...(process.order ? { order: process.order } : {}) },
     result,
     summary: checkSummary(req, process, result),
@@ -66,13 +65,7 @@ export default defineEventHandler(async (event) => {
     engineVersion: result.engine.version,
     arithmetic: result.arithmetic,
     seed,
-    durationMs,
-    done: 1,
-    total: 1,
-    createdBy: user.id,
-  }).returning().get()
-  await audit(project.id, user.id, 'check.run', 'check', row.id, { diagramId: diagram.id, diagramVersion: diagram.version, title: diagram.title, verdict: result.verdict })
-  setResponseStatus(event, 201)
+  }, t0)
   // The result as evaluated (the row holds the same), typed as never null.
   return { ...checkView(row, user.name), result }
 })
