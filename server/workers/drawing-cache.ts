@@ -8,6 +8,7 @@ import type { Process as GraphProcess } from '#shared/schemas/graph'
 import type { EvaluateResponse } from '#shared/schemas/evaluate'
 import { checkCompiled, compileDrawing, type CheckedResponse, type CompiledDrawing } from '#shared/editor/drawing/evaluate'
 import { unpackDrawingGraph, type PackedGraph } from '#shared/editor/drawing/handoff'
+import { processKey } from '#shared/editor/process'
 
 interface Entry {
   process: string
@@ -25,14 +26,6 @@ const MAX_NUMS = 200_000
 const cache: Entry[] = []
 
 const bytesOf = (a: Float64Array) => new Uint8Array(a.buffer, a.byteOffset, a.byteLength)
-const num = (x: number) => (Object.is(x, -0) ? '-0' : String(x))
-
-/** Everything of the process the compiler reads, as one string. */
-function processKey(proc: GraphProcess): string {
-  const s = proc.shift
-  return `${proc.theory}|${proc.spin === undefined ? '' : num(proc.spin)}|${proc.helicities.map(num).join(',')}|${JSON.stringify(proc.species ?? null)}|${JSON.stringify(proc.order ?? null)}|${s ? `${num(s[0])},${num(s[1])}` : '-'}`
-}
-
 /** The compiled drawing of a packed graph for `proc` (the process with the check's shift): from the cache, or unpacked and compiled. */
 export function compilePacked(proc: GraphProcess, p: PackedGraph): CompiledDrawing {
   // Values of no simple kind (never written by the editor) are not compared: compiled afresh.
